@@ -1,0 +1,62 @@
+#!/usr/bin/env node
+/**
+ * coldsoak command line: one sub-command per file in this folder, each exporting `register`.
+ * Exit codes (product brief, section 6): 0 success, 2 input or usage error, 1 anything else.
+ */
+import { realpathSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import { Command, CommanderError } from "commander";
+import { InputError } from "../errors.js";
+import { TOOL_VERSION } from "../version.js";
+import { registerCommands } from "./commands.js";
+
+export function buildProgram(): Command {
+  const program = new Command("coldsoak")
+    .description(
+      "Plans how day-to-night temperature swings affect nitrogen-charged APU start accumulators across a fleet's bases.",
+    )
+    .version(TOOL_VERSION)
+    .showHelpAfterError(false)
+    .exitOverride();
+  registerCommands(program);
+  return program;
+}
+
+export async function main(argv: string[]): Promise<number> {
+  const program = buildProgram();
+  try {
+    await program.parseAsync(argv, { from: "user" });
+    return 0;
+  } catch (err) {
+    if (err instanceof CommanderError) {
+      if (err.code === "commander.helpDisplayed" || err.code === "commander.version" || err.exitCode === 0)
+        return 0;
+      return 2; // commander already printed its one-line message
+    }
+    if (err instanceof InputError) {
+      process.stderr.write(`coldsoak: ${err.message}\n`);
+      return 2;
+    }
+    const msg = err instanceof Error ? err.message : String(err);
+    process.stderr.write(`coldsoak: ${msg.split("\n")[0]}\n`);
+    if (process.env.COLDSOAK_DEBUG && err instanceof Error) process.stderr.write(`${err.stack}\n`);
+    return 1;
+  }
+}
+
+/** True when this file is the program being run (directly or through the npm bin link). */
+function isEntryPoint(): boolean {
+  const script = process.argv[1];
+  if (script === undefined) return false;
+  try {
+    return realpathSync(script) === fileURLToPath(import.meta.url);
+  } catch {
+    return false;
+  }
+}
+
+if (isEntryPoint()) {
+  main(process.argv.slice(2)).then((code) => {
+    process.exitCode = code;
+  });
+}

@@ -1,0 +1,214 @@
+/**
+ * The `results.json` contract (product brief, section 6). Everything the report shows comes from here;
+ * the report never calls the climate or physics code. Units are fixed whatever the plan says:
+ * °C, kPa gauge (`…KPaGauge`), L, kg, J; percentages 0–100; `null` where a month has no preflights.
+ * No wall-clock time is stored, so two runs on the same inputs give byte-identical files.
+ */
+
+export type Units = "us" | "si";
+
+/** Quality-control counts for one station (product brief, section 4). read = kept + Σ dropped. */
+export interface QcCounts {
+  read: number;
+  kept: number;
+  dropped: {
+    malformed: number;
+    summary: number;
+    otherSite: number;
+    missing: number;
+    range: number;
+    erroneous: number;
+    suspect: number;
+    duplicate: number;
+  };
+}
+
+export interface StationResult {
+  id: string; // "USAF-WBAN"
+  name: string | null;
+  lat: number;
+  lon: number;
+  elevationM: number;
+  timeZone: string;
+  firstUtc: string;
+  lastUtc: string;
+  hours: number;
+  filledHours: number;
+  completeness: number; // 0–1
+  qc: QcCounts;
+}
+
+/** One assumption as shown in the report's assumptions table. */
+export interface Assumption {
+  key: string; // YAML path, e.g. "profiles.main.precharge.ref"
+  label: string;
+  value: string; // formatted in the plan's units
+  unit: string;
+  origin: "plan file" | "default" | "demo assumption";
+}
+
+export interface MethodNote {
+  name: string;
+  source: string;
+  description: string;
+}
+
+/** Precharge line and its tolerance lines against temperature, for one profile. */
+export interface PrechargeRow {
+  tempC: number;
+  prechargeKPaGauge: number;
+  prechargeLowKPaGauge: number;
+  prechargeHighKPaGauge: number;
+  idealPrechargeKPaGauge: number;
+}
+
+/** Fill-reading band at system pressure against temperature (n units in parallel read alike). */
+export interface BandRow {
+  tempC: number;
+  readingLowPct: number;
+  readingNominalPct: number;
+  readingHighPct: number;
+  idealReadingNominalPct: number;
+}
+
+export interface ProfileResult {
+  name: string;
+  prechargeLine: PrechargeRow[];
+  band: BandRow[];
+}
+
+export interface MonthRow {
+  month: number; // 1–12, local
+  preflights: number;
+  belowBandPct: number | null;
+  aboveBandPct: number | null;
+  shortPctOne: number | null;
+  shortPctTwo: number | null;
+  morningKPaGaugeP10: number | null;
+  morningKPaGaugeP50: number | null;
+  morningKPaGaugeP90: number | null;
+  morningReadingPctP10: number | null;
+  morningReadingPctP50: number | null;
+  morningReadingPctP90: number | null;
+  overnightDropTempMeanC: number | null;
+  overnightDropTempP90C: number | null;
+  overnightDropKPaMean: number | null;
+  overnightDropKPaP90: number | null;
+  overnightDropReadingMeanPct: number | null;
+  overnightDropReadingP90Pct: number | null;
+  dailyRangeMeanC: number | null;
+  dailyRangeP90C: number | null;
+}
+
+export interface ClimateMonthRow {
+  month: number;
+  minC: number | null;
+  meanC: number | null;
+  maxC: number | null;
+  meanDailyRangeC: number | null;
+  p90DailyRangeC: number | null;
+}
+
+export interface HourRow {
+  hour: number; // local hour of day 0–23
+  preflights: number;
+  outOfBandPct: number | null;
+}
+
+export interface AdviceRow {
+  month: number;
+  fitColdStartOption: boolean;
+  shortPctOne: number | null;
+  shortPctTwo: number | null;
+  /** shortPctOne − shortPctTwo: what a second accumulator buys, in percentage points. */
+  improvementPct: number | null;
+}
+
+/** One hour of an overnight trace (36 hours from the last recharge of an evening). */
+export interface TracePoint {
+  hour: number; // hours since trace start
+  localTime: string; // ISO local time with offset
+  ambientC: number;
+  accumulatorC: number;
+  gasKPaGauge: number;
+  readingPct: number;
+  bandLowPct: number;
+  bandHighPct: number;
+}
+
+export interface Trace {
+  label: string; // e.g. "typical (median overnight drop)"
+  year: number;
+  startLocal: string;
+  points: TracePoint[];
+}
+
+export interface NitrogenStay {
+  aircraft: string;
+  arrive: string; // YYYY-MM-DD
+  depart: string;
+  profile: string;
+  coldStartOption: boolean;
+  servicingEventsP50: number;
+  kgAddedP50: number;
+  kgVentedP50: number;
+  kgP50: number;
+  kgP90: number;
+  kgP95: number;
+}
+
+export interface NitrogenBase {
+  kgP50: number;
+  kgP90: number;
+  kgP95: number;
+  cylindersP50: number;
+  cylindersP90: number;
+  cylindersP95: number;
+  cartsP95: number;
+  stays: NitrogenStay[];
+}
+
+export interface BaseResult {
+  name: string;
+  stations: StationResult[];
+  timeZone: string;
+  yearsUsed: number[];
+  yearsSkipped: { year: number; completenessPct: number }[];
+  climateMonths: ClimateMonthRow[];
+  /** Distribution of daily range, pooled over years: bin edges in °C and day counts. */
+  dailyRangeHistogram: { lowC: number; highC: number; days: number }[];
+  months: MonthRow[];
+  outOfBandByHour: HourRow[];
+  coldestMorningC: number | null;
+  coldestMorningByYear: { year: number; tempC: number }[];
+  coldest1in10C: number | null;
+  advice: AdviceRow[];
+  traces: { typical: Trace | null; worst: Trace | null };
+  nitrogen: NitrogenBase;
+}
+
+export interface StayResult {
+  aircraft: string;
+  base: string;
+  arrive: string;
+  depart: string;
+  profile: string;
+  coldStartOption: boolean;
+}
+
+export interface Results {
+  plan: string;
+  generatedBy: string; // "coldsoak <version>"
+  units: Units;
+  seed: number;
+  climateYears: number[];
+  quantileMethod: string;
+  thresholds: { shortPct: number };
+  profiles: ProfileResult[];
+  bases: BaseResult[];
+  stays: StayResult[];
+  assumptions: Assumption[];
+  methods: MethodNote[];
+  randomInputs: { name: string; description: string }[];
+  warnings: string[];
+}
