@@ -1,0 +1,377 @@
+/**
+ * The plan file (YAML), validated with zod (product brief §2). Every error names the file, the line,
+ * the YAML path and what was expected: `plan.yaml:23:profiles[0].precharge.reference: ...`.
+ *
+ * Format (a complete example is `tests/fixtures/plan/minimal-plan.yaml`):
+ *
+ * ```yaml
+ * name: minimal                  # output folder out/<name>/; letters, digits, - _ . and spaces
+ * units: us                      # us | si — output units only (default us)
+ * seed: 42                       # integer seed of every random input (default 0)
+ * assumptionOrigin: plan file    # optional: "demo" marks every plan value as a demo assumption
+ * schedule: schedule.csv         # optional, relative to the plan file; --schedule overrides
+ * climate:
+ *   paths: [climate]             # ISD files or folders, relative to the plan file
+ *   years: { from: 1991, to: 2020 }   # optional; default every year in the data
+ *   gapHours: 3                  # default 3: longest gap filled linearly
+ *   minYearShare: 0.8            # default 0.8: share of a window's hours present for a year to count
+ *   minYears: 5                  # default 5: fewer usable years at a base gives a warning
+ *   cacheDir: cache              # optional, relative to the plan file; default out/cache/climate
+ * bases:
+ *   - name: North Field
+ *     stations: ["725300-94846"] # ISD ids "USAF-WBAN", in priority order
+ *     hangar: { temperature: "50 F", in: "20:00", out: "06:00" }   # optional, local times
+ * profiles:
+ *   - name: standard
+ *     accumulator: { gasVolumeEmpty: "300 in3", gasVolumeFull: "60 in3" }   # V0 (0 %), Vmin (100 %)
+ *     precharge: { reference: "1450 psig @ 70 F", tolerance: "50 psi" }
+ *     system: { low: "2850 psig", nominal: "3000 psig", high: "3150 psig" }
+ *     fluid: { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" }
+ *     thermalTimeConstant: "2 h"                 # "0 s" = accumulator at ambient
+ *     gasLoss: { rate: "5 psi/month", spread: 0.3 }   # median rate at the reference temperature;
+ *                                                # spread = σ of ln(rate) across aircraft (default 0)
+ *     starter: { minUsefulPressure: "1000 psig", returnPressure: "0 psig", expansion: isentropic }
+ *     startEnergy: [ { ambient: "-40 F", energy: "30 kJ" }, { ambient: "70 F", energy: "15 kJ" } ]
+ *     pump: { curve: [ { pressure: "0 psig", flow: "1.2 L/min" } ], timer: "3 min" }
+ *     handPump: { displacement: "1 in3", efficiency: 0.9 }
+ *     coldStartOption: { count: 2, timer: "6 min" }
+ * operations:
+ *   startTimes: ["06:30", "13:00"]   # local; the first is the day's preflight
+ *   weekdays: [Mon, Tue, Wed, Thu, Fri]   # or a count 1–7: that many days drawn from the seed
+ *   prechargeCheckDays: 7            # precharge checked at the first start every N days of a stay
+ *   outOfBand: adjust-precharge      # log | adjust-precharge (default log)
+ * nitrogen:
+ *   cylinder: { waterVolume: "49 L", fill: "2200 psig @ 70 F" }
+ *   transferDifferential: "50 psi"
+ *   hoseVolume: "10 in3"
+ *   cylindersPerCart: 2
+ * thresholds: { shortStartsPct: 1 }  # default 1: share of starts short that calls for the option
+ * ```
+ */
+import { readFile } from "node:fs/promises";
+import { dirname, resolve } from "node:path";
+import { type Document, isMap, LineCounter, parseDocument } from "yaml";
+import { z } from "zod";
+import { inputError } from "../errors.js";
+import {
+  type PointPressure,
+  parseClockMinutes,
+  parseEnergyJ,
+  parseExpansionPerK,
+  parseFlowM3S,
+  parsePointPressure,
+  parsePressureAt,
+  parsePressureDifference,
+  parsePressureRatePaS,
+  parseTemperatureK,
+  parseTimeS,
+  parseVolumeM3,
+  QuantityError,
+} from "./quantities.js";
+
+/** A string field parsed by `parser`; a parse failure becomes a zod issue at that path. */
+function q<T>(parser: (s: string) => T) {
+  return z.string().transform((s, ctx): T => {
+    try {
+      return parser(s);
+    } catch (err) {
+      if (err instanceof QuantityError) {
+        ctx.addIssue({ code: "custom", message: err.message });
+        return z.NEVER;
+      }
+      throw err;
+    }
+  });
+}
+
+const positive = <T extends z.ZodType<number>>(s: T, what: string) =>
+  s.refine((v) => v > 0, { message: `${what} must be greater than zero` });
+
+const pressureAt = q(parsePressureAt);
+const pointPressure = q(parsePointPressure);
+const clock = q(parseClockMinutes);
+const NAME_RE = /^[A-Za-z0-9][A-Za-z0-9 _.-]*$/;
+
+export const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"] as const;
+const weekdayName = z.string().transform((s, ctx) => {
+  const i = WEEKDAY_NAMES.findIndex((d) => s.toLowerCase().startsWith(d.toLowerCase()));
+  if (i < 0 || s.length < 3) {
+    ctx.addIssue({
+      code: "custom",
+      message: `"${s}" is not a day name; expected Mon, Tue, Wed, Thu, Fri, Sat or Sun`,
+    });
+    return z.NEVER;
+  }
+  return i + 1; // ISO weekday, Monday = 1
+});
+
+const hangarSchema = z.strictObject({ temperature: q(parseTemperatureK), in: clock, out: clock });
+
+const baseSchema = z.strictObject({
+  name: z.string().min(1),
+  stations: z
+    .array(z.string().regex(/^\d{6}-\d{5}$/, 'expected an ISD station id "USAF-WBAN", e.g. "725300-94846"'))
+    .min(1),
+  hangar: hangarSchema.optional(),
+});
+
+const profileSchema = z
+  .strictObject({
+    name: z.string().min(1),
+    accumulator: z.strictObject({
+      gasVolumeEmpty: positive(q(parseVolumeM3), "gasVolumeEmpty"),
+      gasVolumeFull: positive(q(parseVolumeM3), "gasVolumeFull"),
+    }),
+    precharge: z.strictObject({ reference: pressureAt, tolerance: q(parsePressureDifference) }),
+    system: z.strictObject({ low: pointPressure, nominal: pointPressure, high: pointPressure }),
+    fluid: z.strictObject({
+      expansionPerK: q(parseExpansionPerK),
+      bulkModulus: positive(q(parsePressureDifference), "bulkModulus"),
+      lineVolume: q(parseVolumeM3),
+    }),
+    thermalTimeConstant: q(parseTimeS),
+    gasLoss: z.strictObject({
+      rate: q(parsePressureRatePaS),
+      spread: z.number().min(0).max(3).default(0),
+    }),
+    starter: z.strictObject({
+      minUsefulPressure: pointPressure,
+      returnPressure: pointPressure.default("0 psig"),
+      expansion: z.enum(["isentropic", "isothermal"]).default("isentropic"),
+    }),
+    startEnergy: z.array(z.strictObject({ ambient: q(parseTemperatureK), energy: q(parseEnergyJ) })).min(1),
+    pump: z.strictObject({
+      curve: z.array(z.strictObject({ pressure: pointPressure, flow: q(parseFlowM3S) })).min(1),
+      timer: positive(q(parseTimeS), "timer"),
+    }),
+    handPump: z.strictObject({
+      displacement: positive(q(parseVolumeM3), "displacement"),
+      efficiency: z.number().gt(0).max(1),
+    }),
+    coldStartOption: z.strictObject({
+      count: z.number().int().min(1).max(4).default(2),
+      timer: positive(q(parseTimeS), "timer"),
+    }),
+  })
+  .superRefine((p, ctx) => {
+    if (p.accumulator.gasVolumeFull >= p.accumulator.gasVolumeEmpty) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["accumulator", "gasVolumeFull"],
+        message: "expected a gas volume at 100 % fill smaller than gasVolumeEmpty",
+      });
+    }
+    const sys = p.system;
+    if (sys.low.isGauge !== sys.nominal.isGauge || sys.nominal.isGauge !== sys.high.isGauge) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["system"],
+        message: "expected low, nominal and high all gauge or all absolute",
+      });
+    } else if (!(sys.low.pa <= sys.nominal.pa && sys.nominal.pa <= sys.high.pa)) {
+      ctx.addIssue({ code: "custom", path: ["system"], message: "expected low ≤ nominal ≤ high" });
+    }
+    const temps = p.startEnergy.map((r) => r.ambient);
+    for (let i = 1; i < temps.length; i++) {
+      if (temps[i]! <= temps[i - 1]!) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["startEnergy", i, "ambient"],
+          message: "expected ambient temperatures in increasing order",
+        });
+      }
+    }
+    const pressures = p.pump.curve.map((r) => r.pressure.pa + (r.pressure.isGauge ? 0 : -1e12));
+    for (let i = 1; i < pressures.length; i++) {
+      if (pressures[i]! <= pressures[i - 1]!) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["pump", "curve", i, "pressure"],
+          message: "expected pump-curve pressures in increasing order, all gauge or all absolute",
+        });
+      }
+    }
+  });
+
+const operationsSchema = z.strictObject({
+  startTimes: z
+    .array(clock)
+    .min(1)
+    .refine((t) => t.every((m, i) => i === 0 || m > t[i - 1]!), {
+      message: "expected start times in increasing order within the day",
+    }),
+  weekdays: z
+    .union([z.number().int().min(1).max(7), z.array(weekdayName).min(1)])
+    .default(7)
+    .refine((w) => typeof w === "number" || new Set(w).size === w.length, {
+      message: "expected each weekday once",
+    }),
+  prechargeCheckDays: z.number().int().min(1),
+  outOfBand: z.enum(["log", "adjust-precharge"]).default("log"),
+});
+
+const nitrogenSchema = z.strictObject({
+  cylinder: z.strictObject({ waterVolume: positive(q(parseVolumeM3), "waterVolume"), fill: pressureAt }),
+  transferDifferential: q(parsePressureDifference),
+  hoseVolume: q(parseVolumeM3),
+  cylindersPerCart: z.number().int().min(1),
+});
+
+export const planSchema = z
+  .strictObject({
+    name: z
+      .string()
+      .regex(NAME_RE, "expected a name of letters, digits, spaces, - _ or . (it names the output folder)"),
+    units: z.enum(["us", "si"]).default("us"),
+    seed: z
+      .number()
+      .int()
+      .min(0)
+      .max(2 ** 32 - 1)
+      .default(0),
+    assumptionOrigin: z.enum(["plan file", "demo"]).default("plan file"),
+    schedule: z.string().min(1).optional(),
+    climate: z.strictObject({
+      paths: z.array(z.string().min(1)).min(1),
+      years: z
+        .strictObject({
+          from: z.number().int().min(1900).max(2100),
+          to: z.number().int().min(1900).max(2100),
+        })
+        .refine((y) => y.from <= y.to, { message: "expected from ≤ to" })
+        .optional(),
+      gapHours: z.number().int().min(0).max(48).default(3),
+      minYearShare: z.number().min(0).max(1).default(0.8),
+      minYears: z.number().int().min(1).default(5),
+      cacheDir: z.string().min(1).optional(),
+    }),
+    bases: z.array(baseSchema).min(1),
+    profiles: z.array(profileSchema).min(1),
+    operations: operationsSchema,
+    nitrogen: nitrogenSchema,
+    thresholds: z
+      .strictObject({ shortStartsPct: z.number().min(0).max(100).default(1) })
+      .default({ shortStartsPct: 1 }),
+  })
+  .superRefine((p, ctx) => {
+    const seen = (items: { name: string }[], key: string) => {
+      const names = new Set<string>();
+      items.forEach((it, i) => {
+        if (names.has(it.name))
+          ctx.addIssue({ code: "custom", path: [key, i, "name"], message: `duplicate name "${it.name}"` });
+        names.add(it.name);
+      });
+    };
+    seen(p.bases, "bases");
+    seen(p.profiles, "profiles");
+  });
+
+export type PlanInput = z.output<typeof planSchema>;
+export type ProfileInput = PlanInput["profiles"][number];
+export type BaseInput = PlanInput["bases"][number];
+export type { PointPressure };
+
+/** A validated plan, with the file it came from and a way to point back at its lines. */
+export interface Plan extends PlanInput {
+  file: string;
+  dir: string;
+  /** Line of a YAML path (the nearest existing parent when absent), 1-based. */
+  lineOf(path: (string | number)[]): number;
+  /** True when the YAML file sets this path (false: the value is a default). */
+  has(path: (string | number)[]): boolean;
+}
+
+/** "profiles[0].precharge.reference" */
+export function yamlPathText(path: readonly PropertyKey[]): string {
+  let out = "";
+  for (const p of path) {
+    if (typeof p === "number") out += `[${p}]`;
+    else out += out === "" ? String(p) : `.${String(p)}`;
+  }
+  return out;
+}
+
+function nodeLine(doc: Document, lc: LineCounter, path: (string | number)[]): number {
+  for (let n = path.length; n >= 0; n--) {
+    const node = n === 0 ? doc.contents : doc.getIn(path.slice(0, n), true);
+    const range = (node as { range?: [number, number, number] } | undefined)?.range;
+    if (node !== undefined && node !== null && range) return lc.linePos(range[0]).line;
+  }
+  return 1;
+}
+
+function describeIssue(issue: z.core.$ZodIssue): string {
+  switch (issue.code) {
+    case "invalid_type":
+      if (issue.input === undefined)
+        return `missing; expected ${issue.expected === "nonoptional" ? "a value" : `a ${issue.expected}`}`;
+      return `expected a ${issue.expected}, found ${issue.input === null ? "nothing" : typeof issue.input}`;
+    case "unrecognized_keys":
+      return `unknown key${issue.keys.length > 1 ? "s" : ""} ${issue.keys.map((k) => `"${k}"`).join(", ")}`;
+    case "invalid_value":
+      return `expected one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}`;
+    case "invalid_union":
+      return "expected a count 1–7 or a list of day names";
+    case "too_small":
+      return issue.origin === "array"
+        ? `expected at least ${issue.minimum} item${Number(issue.minimum) > 1 ? "s" : ""}`
+        : issue.origin === "string"
+          ? "expected a non-empty text"
+          : `expected a number ${issue.inclusive ? "≥" : ">"} ${issue.minimum}`;
+    case "too_big":
+      return `expected a number ${issue.inclusive ? "≤" : "<"} ${issue.maximum}`;
+    default:
+      return issue.message;
+  }
+}
+
+/** Parses and validates plan text; throws InputError `file:line:yaml.path: message`. */
+export function parsePlanText(text: string, file: string): Plan {
+  const lc = new LineCounter();
+  const doc = parseDocument(text, { lineCounter: lc, prettyErrors: false, uniqueKeys: true });
+  const yamlError = doc.errors[0];
+  if (yamlError !== undefined) {
+    const line = lc.linePos(yamlError.pos[0]).line;
+    throw inputError(file, line, undefined, `not valid YAML: ${yamlError.message.split("\n")[0]}`);
+  }
+  if (!isMap(doc.contents)) {
+    throw inputError(
+      file,
+      1,
+      undefined,
+      "expected a YAML mapping with the keys name, climate, bases, profiles, operations, nitrogen",
+    );
+  }
+  const raw: unknown = doc.toJS({ maxAliasCount: 100 });
+  const parsed = planSchema.safeParse(raw);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0]!;
+    const path = issue.path.filter((p): p is string | number => typeof p !== "symbol");
+    const where = issue.code === "unrecognized_keys" ? [...path, issue.keys[0]!] : path;
+    throw inputError(file, nodeLine(doc, lc, where), yamlPathText(path) || "(top)", describeIssue(issue));
+  }
+  const has = (path: (string | number)[]) => doc.hasIn(path);
+  return {
+    ...parsed.data,
+    file,
+    dir: dirname(resolve(file)),
+    lineOf: (path) => nodeLine(doc, lc, path),
+    has,
+  };
+}
+
+/** Reads and validates a plan file. */
+export async function loadPlan(file: string): Promise<Plan> {
+  let text: string;
+  try {
+    text = await readFile(file, "utf8");
+  } catch (err) {
+    throw inputError(
+      file,
+      undefined,
+      undefined,
+      `cannot read the plan file (${(err as NodeJS.ErrnoException).code ?? "error"})`,
+    );
+  }
+  return parsePlanText(text, file);
+}
