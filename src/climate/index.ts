@@ -1,0 +1,19 @@
+/** Climate ingestion: NOAA ISD files in, cleaned hourly temperature series out (product brief, §2 and §4). */
+export { cacheStats, fileHash, READER_VERSION, resetCacheStats } from "./cache.js";
+export {
+  emptySeries,
+  filledHours,
+  fillGaps,
+  mergeByPriority,
+  presentHours,
+  tempAtUtcMs,
+  valueAtHour,
+  windowCompleteness,
+  yearCompleteness,
+} from "./hourly.js";
+export { buildStations, climateOptions, listClimateFiles, loadClimate, readClimateFiles } from "./load.js";
+export { dailyRanges, hourlyOffsetsMin, monthlyClimate, timeZoneFor } from "./localTime.js";
+export { TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "./qc.js";
+export { detectFormat, readClimateFile } from "./source.js";
+export { isoUtc, type StationSummary, stationSummary } from "./summary.js";
+export * from "./types.js";

@@ -1,0 +1,292 @@
+/**
+ * Quality control of one station's records, across all the files that hold it (product brief, section 4):
+ * every record lands in exactly one count, tested in the order malformed, summary, otherSite, missing,
+ * range, erroneous, suspect, duplicate; the rest are kept.
+ */
+import {
+  KIND_MALFORMED,
+  KIND_SPECIAL,
+  KIND_SUMMARY,
+  MISSING_ELEV,
+  MISSING_LAT,
+  MISSING_LON,
+  MISSING_PRESSURE,
+  MISSING_TEMP,
+  type ParsedFile,
+} from "./records.js";
+import type { Extremes, QcCounts } from "./types.js";
+
+/** Air-temperature limits of the ISD format document (POS 88-92): −93.2 … +61.8 °C, in tenths. */
+export const TEMP_MIN_TENTHS = -932;
+export const TEMP_MAX_TENTHS = 618;
+/** Second-site rule (brief §4): records farther than this from the station-year's usual position. */
+export const SITE_RADIUS_M = 5000;
+export const SITE_ELEVATION_M = 30;
+
+/** Quality codes dropped (ISD format document, POS 93): suspect 2 and 6, erroneous 3 and 7. */
+const Q_SUSPECT = new Set([50, 54]); // "2", "6"
+const Q_ERRONEOUS = new Set([51, 55]); // "3", "7"
+
+/** The part of a parsed file that belongs to one station. */
+export interface StationPart {
+  file: ParsedFile;
+  station: number; // index in file.stations
+}
+
+/** What quality control keeps of one station. */
+export interface QcResult {
+  qc: QcCounts;
+  /** Kept observations, in time order: UTC minutes, tenths of °C, 1 for special reports. */
+  keptTimeMin: Int32Array;
+  keptTempTenths: Int16Array;
+  keptSpecial: Uint8Array;
+  extremes: Extremes | null;
+  meanStationPressureHpa: number | null;
+  /** Most frequent position among the kept records (null when the records carry none, as in ISD-Lite). */
+  position: { latMilli: number; lonMilli: number; elevM: number } | null;
+  callLetters: string | null;
+  name: string | null;
+  malformedExamples: string[];
+}
+
+export function emptyQc(): QcCounts {
+  return {
+    read: 0,
+    kept: 0,
+    dropped: {
+      malformed: 0,
+      summary: 0,
+      otherSite: 0,
+      missing: 0,
+      range: 0,
+      erroneous: 0,
+      suspect: 0,
+      duplicate: 0,
+    },
+  };
+}
+
+const EARTH_RADIUS_M = 6_371_008.8; // mean Earth radius (IUGG)
+
+/** Great-circle distance in metres (haversine formula) between two points in thousandths of a degree. */
+export function distanceM(lat1: number, lon1: number, lat2: number, lon2: number): number {
+  const k = Math.PI / 180_000;
+  const dLat = (lat2 - lat1) * k;
+  const dLon = (lon2 - lon1) * k;
+  const a = Math.sin(dLat / 2) ** 2 + Math.cos(lat1 * k) * Math.cos(lat2 * k) * Math.sin(dLon / 2) ** 2;
+  return 2 * EARTH_RADIUS_M * Math.asin(Math.min(1, Math.sqrt(a)));
+}
+
+/** One number per (lat, lon, elevation) triple, for counting positions. */
+function positionKey(lat: number, lon: number, elev: number): number {
+  const e = Math.max(-10_000, Math.min(9_999, elev));
+  return ((lat + 90_000) * 360_001 + (lon + 180_000)) * 20_000 + (e + 10_000);
+}
+function keyToPosition(key: number): { latMilli: number; lonMilli: number; elevM: number } {
+  const elev = (key % 20_000) - 10_000;
+  const ll = Math.floor(key / 20_000);
+  return { latMilli: Math.floor(ll / 360_001) - 90_000, lonMilli: (ll % 360_001) - 180_000, elevM: elev };
+}
+
+/** UTC year of a minute count, with the year's bounds cached (records come mostly in time order). */
+function yearCache() {
+  let lo = 0;
+  let hi = -1;
+  let year = 0;
+  return (min: number): number => {
+    if (min >= lo && min < hi) return year;
+    year = new Date(min * 60_000).getUTCFullYear();
+    lo = Date.UTC(year, 0, 1) / 60_000;
+    hi = Date.UTC(year + 1, 0, 1) / 60_000;
+    return year;
+  };
+}
+
+/** Most frequent key of a count map (first seen wins a tie). */
+function modeOf(counts: Map<number, number>): number | null {
+  let best: number | null = null;
+  let bestN = 0;
+  for (const [k, n] of counts)
+    if (n > bestN) {
+      best = k;
+      bestN = n;
+    }
+  return best;
+}
+
+function isoMinute(min: number): string {
+  return new Date(min * 60_000).toISOString().replace(".000Z", "Z");
+}
+
+/**
+ * Applies the quality rules to one station's records from all its files (given in reading order).
+ * `typeCode` maps a report type to a small number shared by all files, for the duplicate key.
+ */
+export function qualityControl(parts: StationPart[], typeCode: (type: string) => number): QcResult {
+  const qc = emptyQc();
+  const yearOf = yearCache();
+  // Pass 1: count positions per station-year among records that are observations.
+  const positionsByYear = new Map<number, Map<number, number>>();
+  let total = 0;
+  for (const { file, station } of parts) {
+    const c = file.records;
+    for (let i = 0; i < c.count; i++) {
+      if (c.station[i] !== station) continue;
+      total++;
+      const kind = c.kind[i]!;
+      if (kind === KIND_MALFORMED || kind === KIND_SUMMARY) continue;
+      const lat = c.latMilli[i]!;
+      const lon = c.lonMilli[i]!;
+      if (lat === MISSING_LAT || lon === MISSING_LON) continue;
+      const y = yearOf(c.timeMin[i]!);
+      let m = positionsByYear.get(y);
+      if (m === undefined) {
+        m = new Map();
+        positionsByYear.set(y, m);
+      }
+      const key = positionKey(lat, lon, c.elevM[i]!);
+      m.set(key, (m.get(key) ?? 0) + 1);
+    }
+  }
+  const siteByYear = new Map<number, { latMilli: number; lonMilli: number; elevM: number }>();
+  for (const [y, m] of positionsByYear) siteByYear.set(y, keyToPosition(modeOf(m)!));
+
+  // Pass 2: classify every record.
+  const keptTime = new Int32Array(total);
+  const keptTemp = new Int16Array(total);
+  const keptSpecial = new Uint8Array(total);
+  let nKept = 0;
+  const seen = new Set<number>();
+  const keptPositions = new Map<number, number>();
+  let presSum = 0;
+  let presN = 0;
+  const calls = new Map<string, number>();
+  let name: string | null = null;
+  const examples: string[] = [];
+  for (const { file, station } of parts) {
+    const c = file.records;
+    const types = file.reportTypes.map(typeCode);
+    for (const [k, n] of file.callLetters[station]!) calls.set(k, (calls.get(k) ?? 0) + n);
+    name ??= file.stationNames[station] ?? null;
+    for (const ex of file.malformedExamples) if (examples.length < 5) examples.push(ex);
+    for (let i = 0; i < c.count; i++) {
+      if (c.station[i] !== station) continue;
+      qc.read++;
+      const kind = c.kind[i]!;
+      if (kind === KIND_MALFORMED) {
+        qc.dropped.malformed++;
+        continue;
+      }
+      if (kind === KIND_SUMMARY) {
+        qc.dropped.summary++;
+        continue;
+      }
+      const t = c.timeMin[i]!;
+      const lat = c.latMilli[i]!;
+      const lon = c.lonMilli[i]!;
+      const elev = c.elevM[i]!;
+      if (lat !== MISSING_LAT && lon !== MISSING_LON) {
+        const site = siteByYear.get(yearOf(t))!;
+        const far = distanceM(site.latMilli, site.lonMilli, lat, lon) > SITE_RADIUS_M;
+        const higher =
+          elev !== MISSING_ELEV &&
+          site.elevM !== MISSING_ELEV &&
+          Math.abs(elev - site.elevM) > SITE_ELEVATION_M;
+        if (far || higher) {
+          qc.dropped.otherSite++;
+          continue;
+        }
+      }
+      const temp = c.tempTenths[i]!;
+      const q = c.tempQ[i]!;
+      if (temp === MISSING_TEMP) qc.dropped.missing++;
+      else if (temp < TEMP_MIN_TENTHS || temp > TEMP_MAX_TENTHS) qc.dropped.range++;
+      else if (Q_ERRONEOUS.has(q)) qc.dropped.erroneous++;
+      else if (Q_SUSPECT.has(q)) qc.dropped.suspect++;
+      else {
+        // Equal records (same time, report type and value), e.g. from overlapping files.
+        const key = ((t + 2 ** 30) * 2048 + (temp + 1024)) * 256 + types[c.type[i]!]!;
+        if (seen.has(key)) {
+          qc.dropped.duplicate++;
+          continue;
+        }
+        seen.add(key);
+        qc.kept++;
+        keptTime[nKept] = t;
+        keptTemp[nKept] = temp;
+        keptSpecial[nKept] = kind === KIND_SPECIAL ? 1 : 0;
+        nKept++;
+        if (lat !== MISSING_LAT && lon !== MISSING_LON) {
+          const pk = positionKey(lat, lon, elev);
+          keptPositions.set(pk, (keptPositions.get(pk) ?? 0) + 1);
+        }
+        const p = c.stationPresTenths[i]!;
+        if (p !== MISSING_PRESSURE) {
+          presSum += p;
+          presN++;
+        }
+      }
+    }
+  }
+  const order = timeOrder(keptTime, nKept);
+  const outTime = new Int32Array(nKept);
+  const outTemp = new Int16Array(nKept);
+  const outSpecial = new Uint8Array(nKept);
+  for (let j = 0; j < nKept; j++) {
+    const k = order === null ? j : order[j]!;
+    outTime[j] = keptTime[k]!;
+    outTemp[j] = keptTemp[k]!;
+    outSpecial[j] = keptSpecial[k]!;
+  }
+  const posKey = modeOf(keptPositions);
+  let callLetters: string | null = null;
+  let callN = 0;
+  for (const [k, n] of calls)
+    if (k !== "" && k !== "99999" && n > callN) {
+      callLetters = k;
+      callN = n;
+    }
+  return {
+    qc,
+    keptTimeMin: outTime,
+    keptTempTenths: outTemp,
+    keptSpecial: outSpecial,
+    extremes: extremesOf(outTime, outTemp),
+    meanStationPressureHpa: presN > 0 ? presSum / presN / 10 : null,
+    position: posKey === null ? null : keyToPosition(posKey),
+    callLetters,
+    name,
+    malformedExamples: examples,
+  };
+}
+
+/** Stable time order of the first n entries, or null when they are already in order. */
+function timeOrder(time: Int32Array, n: number): Uint32Array | null {
+  let sorted = true;
+  for (let i = 1; i < n; i++)
+    if (time[i]! < time[i - 1]!) {
+      sorted = false;
+      break;
+    }
+  if (sorted) return null;
+  const idx = Array.from({ length: n }, (_, i) => i);
+  idx.sort((a, b) => time[a]! - time[b]! || a - b);
+  return Uint32Array.from(idx);
+}
+
+/** Coldest and warmest kept observation; the earliest wins a tie. */
+function extremesOf(time: Int32Array, temp: Int16Array): Extremes | null {
+  if (time.length === 0) return null;
+  let lo = 0;
+  let hi = 0;
+  for (let i = 1; i < time.length; i++) {
+    if (temp[i]! < temp[lo]!) lo = i;
+    if (temp[i]! > temp[hi]!) hi = i;
+  }
+  return {
+    minC: temp[lo]! / 10,
+    minUtc: isoMinute(time[lo]!),
+    maxC: temp[hi]! / 10,
+    maxUtc: isoMinute(time[hi]!),
+  };
+}

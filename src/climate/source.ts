@@ -1,0 +1,280 @@
+/**
+ * Opens a climate file (plain or gzip, told apart by the gzip magic bytes), detects its layout from
+ * its first lines, and streams it through the matching reader. A file is never held whole in memory
+ * as one string: the full and Lite readers split lines on the decompressed byte chunks, the CSV
+ * reader streams through csv-parse.
+ */
+import { createReadStream } from "node:fs";
+import { open } from "node:fs/promises";
+import { basename } from "node:path";
+import { Readable } from "node:stream";
+import { pipeline } from "node:stream/promises";
+import { createGunzip } from "node:zlib";
+import { parse } from "csv-parse";
+import { inputError } from "../errors.js";
+import { type CsvColumns, csvColumns, readCsvRecord } from "./csvHourly.js";
+import { createIsdLineState, looksLikeIsdLine, parseIsdLine } from "./isdFull.js";
+import { looksLikeLiteLine, parseLiteLine, stationIdFromFileName } from "./isdLite.js";
+import {
+  emptyParsedFile,
+  noteMalformed,
+  type ParsedFile,
+  pushMalformed,
+  resolveUnknownStations,
+  trimColumns,
+  UNKNOWN_STATION,
+} from "./records.js";
+
+/** Bytes per read and per decompressed chunk, the same for the reader and the decompress-only baseline. */
+export const CHUNK_BYTES = 256 * 1024;
+/** A "line" longer than this is garbage: ISD records are at most 105 + 9999 characters. */
+const MAX_LINE_BYTES = 16 * 1024;
+/** How much of the start of a file is looked at to detect its layout. */
+const DETECT_BYTES = 64 * 1024;
+
+/** True when the file starts with the gzip magic bytes 1f 8b (RFC 1952). */
+export async function isGzipFile(path: string): Promise<boolean> {
+  const fh = await open(path, "r");
+  try {
+    const head = Buffer.alloc(2);
+    const { bytesRead } = await fh.read(head, 0, 2, 0);
+    return bytesRead === 2 && head[0] === 0x1f && head[1] === 0x8b;
+  } finally {
+    await fh.close();
+  }
+}
+
+/**
+ * The file's decompressed bytes as a stream of chunks of about CHUNK_BYTES. Errors of the gzip layer
+ * (a file cut short, a damaged stream) become input errors naming the file.
+ */
+export async function* readChunks(path: string): AsyncGenerator<Buffer> {
+  const gz = await isGzipFile(path);
+  const raw = createReadStream(path, { highWaterMark: CHUNK_BYTES });
+  const stream: Readable = gz ? raw.pipe(createGunzip({ chunkSize: CHUNK_BYTES })) : raw;
+  if (gz) raw.on("error", (err) => stream.destroy(err));
+  try {
+    for await (const chunk of stream) yield chunk as Buffer;
+  } catch (err) {
+    const e = err as NodeJS.ErrnoException;
+    if (e.code === "ENOENT") throw inputError(path, undefined, undefined, "file not found");
+    if (gz && typeof e.code === "string" && e.code.startsWith("Z_"))
+      throw inputError(
+        path,
+        undefined,
+        "gzip",
+        e.code === "Z_BUF_ERROR"
+          ? "gzip data ends early (file cut short?); expected a complete gzip file"
+          : `damaged gzip data (${e.message}); expected a complete gzip file`,
+      );
+    throw err;
+  } finally {
+    raw.destroy();
+  }
+}
+
+export type ClimateFormat = ParsedFile["format"];
+
+/** Splits the first bytes of a file into lines (for detection only). */
+function headLines(head: Buffer): [number, number][] {
+  const out: [number, number][] = [];
+  let pos = 0;
+  while (pos < head.length && out.length < 20) {
+    let nl = head.indexOf(10, pos);
+    if (nl < 0) nl = head.length;
+    let end = nl;
+    if (end > pos && head[end - 1] === 13) end--;
+    if (end > pos) out.push([pos, end]);
+    pos = nl + 1;
+  }
+  return out;
+}
+
+/** Detects the layout from the first lines: CSV header, else the majority of full vs Lite lines. */
+export function detectFormat(head: Buffer): ClimateFormat | null {
+  let start = 0;
+  if (head[0] === 0xef && head[1] === 0xbb && head[2] === 0xbf) start = 3; // UTF-8 byte-order mark
+  const first = head.subarray(start, Math.min(head.length, start + 200)).toString("latin1");
+  if (/^"?STATION"?,/.test(first) && /(^|,)"?DATE"?(,|\r?\n|$)/m.test(first.split("\n")[0] ?? ""))
+    return "csv";
+  let full = 0;
+  let lite = 0;
+  for (const [s, e] of headLines(head)) {
+    if (looksLikeIsdLine(head, s, e)) full++;
+    else if (looksLikeLiteLine(head, s, e)) lite++;
+  }
+  if (full === 0 && lite === 0) return null;
+  return full >= lite ? "isd" : "isd-lite";
+}
+
+export interface ReadOptions {
+  /** Station id for ISD-Lite files whose name does not carry it. */
+  stationIdOverride?: string | undefined;
+}
+
+/**
+ * Reads one climate file into record columns (no quality control yet).
+ * Throws InputError for an empty file, a file in none of the three layouts, or broken gzip data.
+ */
+export async function readClimateFile(path: string, options: ReadOptions = {}): Promise<ParsedFile> {
+  const it = readChunks(path);
+  const headChunks: Buffer[] = [];
+  let headLen = 0;
+  let done = false;
+  while (headLen < DETECT_BYTES) {
+    const r = await it.next();
+    if (r.done) {
+      done = true;
+      break;
+    }
+    headChunks.push(r.value);
+    headLen += r.value.length;
+  }
+  const head = Buffer.concat(headChunks);
+  if (done && head.every((c) => c === 10 || c === 13 || c === 32 || c === 9))
+    throw inputError(path, undefined, undefined, "file is empty; expected ISD climate records");
+  const format = detectFormat(head);
+  if (format === null)
+    throw inputError(
+      path,
+      1,
+      undefined,
+      "not a climate file: expected the ISD full format, ISD-Lite or the comma-separated global-hourly layout",
+    );
+  async function* all(): AsyncGenerator<Buffer> {
+    yield head;
+    if (!done) yield* it;
+  }
+  const file = emptyParsedFile(path, format);
+  if (format === "csv") await readCsv(file, all());
+  else await readLines(file, all(), format, options);
+  resolveUnknownStations(file.records);
+  if (file.stations.length === 0)
+    throw inputError(
+      path,
+      undefined,
+      undefined,
+      "no readable record in the file; expected ISD climate records",
+    );
+  file.records = trimColumns(file.records);
+  return file;
+}
+
+/** Streams fixed-layout lines (full or Lite) from byte chunks to the line parser, without strings. */
+async function readLines(
+  file: ParsedFile,
+  chunks: AsyncIterable<Buffer>,
+  format: "isd" | "isd-lite",
+  options: ReadOptions,
+): Promise<void> {
+  let handle: (b: Uint8Array, s: number, e: number, lineNo: number) => void;
+  if (format === "isd") {
+    const st = createIsdLineState(file);
+    handle = (b, s, e, n) => parseIsdLine(st, b, s, e, n);
+  } else {
+    const id = options.stationIdOverride ?? stationIdFromFileName(basename(file.path));
+    if (id === null)
+      throw inputError(
+        file.path,
+        undefined,
+        "station id",
+        "ISD-Lite file name does not start with USAF-WBAN (e.g. 725300-94846-2014); give the station id as an option",
+      );
+    const station = file.stations.length;
+    file.stations.push(id);
+    file.stationNames.push(null);
+    file.callLetters.push(new Map());
+    handle = (b, s, e, n) => parseLiteLine(file, station, b, s, e, n);
+  }
+  let lineNo = 0;
+  let carry: Buffer | null = null;
+  let skipping = false; // inside an over-long line, waiting for its end
+  const line = (b: Uint8Array, s: number, e: number) => {
+    lineNo++;
+    if (e > s && b[e - 1] === 13) e--;
+    if (e === s) return; // blank line: not a record
+    handle(b, s, e, lineNo);
+  };
+  for await (const chunk of chunks) {
+    file.bytes += chunk.length;
+    let pos = 0;
+    if (carry !== null || skipping) {
+      const nl = chunk.indexOf(10);
+      if (nl < 0) {
+        if (!skipping) {
+          carry = Buffer.concat([carry!, chunk]);
+          if (carry.length > MAX_LINE_BYTES) {
+            skipping = true;
+            carry = null;
+          }
+        }
+        continue;
+      }
+      if (skipping) {
+        lineNo++;
+        tooLong(file, lineNo);
+        skipping = false;
+      } else {
+        const joined: Buffer = Buffer.concat([carry!, chunk.subarray(0, nl)]);
+        line(joined, 0, joined.length);
+      }
+      carry = null;
+      pos = nl + 1;
+    }
+    for (;;) {
+      const nl = chunk.indexOf(10, pos);
+      if (nl < 0) break;
+      line(chunk, pos, nl);
+      pos = nl + 1;
+    }
+    if (pos < chunk.length) {
+      if (chunk.length - pos > MAX_LINE_BYTES) skipping = true;
+      else carry = Buffer.from(chunk.subarray(pos));
+    }
+  }
+  if (skipping) {
+    lineNo++;
+    tooLong(file, lineNo);
+  } else if (carry !== null) line(carry, 0, carry.length);
+  file.lines = lineNo;
+}
+
+function tooLong(file: ParsedFile, lineNo: number): void {
+  pushMalformed(file.records, UNKNOWN_STATION, lineNo);
+  noteMalformed(file, lineNo, "length", `line longer than ${MAX_LINE_BYTES} bytes (not a climate record)`);
+}
+
+/** Streams the comma-separated global-hourly layout through csv-parse. */
+async function readCsv(file: ParsedFile, chunks: AsyncIterable<Buffer>): Promise<void> {
+  const parser = parse({
+    bom: true,
+    info: true,
+    relax_column_count: true,
+    skip_empty_lines: true,
+    skip_records_with_error: true,
+  });
+  parser.on("skip", (err: { lines?: number } | undefined) => {
+    const lineNo = err?.lines ?? 0;
+    pushMalformed(file.records, UNKNOWN_STATION, lineNo);
+    noteMalformed(file, lineNo, "CSV", "unreadable CSV record (quotes?)");
+  });
+  const counting = async function* () {
+    for await (const c of chunks) {
+      file.bytes += c.length;
+      yield c;
+    }
+  };
+  const feed = pipeline(Readable.from(counting()), parser);
+  feed.catch(() => undefined);
+  let columns: CsvColumns | null = null;
+  for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
+    if (columns === null) {
+      columns = csvColumns(item.record, file.path);
+      continue;
+    }
+    readCsvRecord(file, columns, item.record, item.info.lines);
+    file.lines = item.info.lines;
+  }
+  await feed;
+  if (columns === null) throw inputError(file.path, 1, undefined, "CSV without a header row");
+}
