@@ -1,4 +1,7 @@
 import type { Command } from "commander";
+import { registerPrecharge } from "./precharge.js";
 
 /** Adds every sub-command to the program. Each command lives in its own file of this folder. */
-export function registerCommands(_program: Command): void {}
+export function registerCommands(program: Command): void {
+  registerPrecharge(program);
+}

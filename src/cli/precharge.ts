@@ -1,0 +1,189 @@
+/**
+ * `coldsoak precharge`: the precharge gauge pressure at another temperature for a gas charge serviced to
+ * a reference "P at T" (the gas amount is fixed, the volume is V0), real gas and ideal gas side by side.
+ */
+import type { Command } from "commander";
+import { InputError } from "../errors.js";
+import { idealGas, N2_MAX_TEMP_K, N2_MIN_TEMP_K, realGas } from "../physics/nitrogen.js";
+import {
+  kToC,
+  kToF,
+  PA_PER_BAR,
+  PA_PER_KPA,
+  PA_PER_PSI,
+  parsePressure,
+  parseTemperature,
+  paToPsi,
+  standardAtmospherePa,
+} from "../physics/units.js";
+
+const REF_EXAMPLE = "--ref 1450psig@70F (units: psig psia bar bara kPa kPaa; F C K)";
+const AT_EXAMPLE = "--at 50F (units: F C K)";
+
+export interface PrechargeAnswer {
+  refAbsPa: number;
+  refIsGauge: boolean;
+  refTempK: number;
+  atTempK: number;
+  atmPa: number;
+  elevationM: number;
+  realAbsPa: number;
+  idealAbsPa: number;
+}
+
+function optionError(option: string, message: string): InputError {
+  return new InputError(`${option}: ${message}`);
+}
+
+function parseTempOption(option: string, text: string, example: string): number {
+  let tempK: number;
+  try {
+    tempK = parseTemperature(text);
+  } catch {
+    throw optionError(option, `"${text}" is not a temperature; expected <number><F|C|K>, e.g. ${example}`);
+  }
+  if (!(tempK >= N2_MIN_TEMP_K && tempK <= N2_MAX_TEMP_K)) {
+    throw optionError(
+      option,
+      `${text} is outside the nitrogen equation's range ${N2_MIN_TEMP_K}–${N2_MAX_TEMP_K} K (${(N2_MIN_TEMP_K - 273.15).toFixed(1)} to ${N2_MAX_TEMP_K - 273.15} °C)`,
+    );
+  }
+  return tempK;
+}
+
+/** Parses the options and computes the precharge at the new temperature with both gas models. */
+export function prechargeAnswer(refText: string, atText: string, elevationText = "0"): PrechargeAnswer {
+  const at = refText.indexOf("@");
+  if (at < 0 || refText.indexOf("@", at + 1) >= 0) {
+    throw optionError("--ref", `"${refText}" is not <pressure>@<temperature>, e.g. ${REF_EXAMPLE}`);
+  }
+  let pressure: { pa: number; isGauge: boolean };
+  try {
+    pressure = parsePressure(refText.slice(0, at));
+  } catch {
+    throw optionError(
+      "--ref",
+      `"${refText}" does not start with a pressure and its unit, e.g. ${REF_EXAMPLE}`,
+    );
+  }
+  const refTempK = parseTempOption("--ref", refText.slice(at + 1), REF_EXAMPLE);
+  const atTempK = parseTempOption("--at", atText, AT_EXAMPLE);
+  const elevationM = Number(elevationText);
+  if (elevationText.trim() === "" || !Number.isFinite(elevationM)) {
+    throw optionError("--elevation", `"${elevationText}" is not a number of metres, e.g. --elevation 1500`);
+  }
+  let atmPa: number;
+  try {
+    atmPa = standardAtmospherePa(elevationM);
+  } catch (err) {
+    throw optionError("--elevation", err instanceof Error ? err.message : String(err));
+  }
+  const refAbsPa = pressure.isGauge ? pressure.pa + atmPa : pressure.pa;
+  if (!(refAbsPa > 0)) {
+    throw optionError(
+      "--ref",
+      `${refText} is not above absolute zero pressure (local atmosphere ${atmPa.toFixed(0)} Pa)`,
+    );
+  }
+  if (refAbsPa > 100e6)
+    throw optionError("--ref", `${refText} is above 100 MPa, not an accumulator precharge`);
+  const solve = (model: typeof realGas): number =>
+    model.pressurePa(model.densityMolM3(refAbsPa, refTempK), atTempK);
+  return {
+    refAbsPa,
+    refIsGauge: pressure.isGauge,
+    refTempK,
+    atTempK,
+    atmPa,
+    elevationM,
+    realAbsPa: solve(realGas),
+    idealAbsPa: solve(idealGas),
+  };
+}
+
+const round = (x: number, digits: number): number => {
+  const f = 10 ** digits;
+  return Math.round(x * f) / f;
+};
+
+/** The `--json` object: gauge pressures at the local atmosphere, temperature in °C. */
+export function prechargeJson(a: PrechargeAnswer): {
+  realPsig: number;
+  idealPsig: number;
+  realKPaGauge: number;
+  idealKPaGauge: number;
+  atTempC: number;
+} {
+  return {
+    realPsig: round(paToPsi(a.realAbsPa - a.atmPa), 3),
+    idealPsig: round(paToPsi(a.idealAbsPa - a.atmPa), 3),
+    realKPaGauge: round((a.realAbsPa - a.atmPa) / PA_PER_KPA, 2),
+    idealKPaGauge: round((a.idealAbsPa - a.atmPa) / PA_PER_KPA, 2),
+    atTempC: round(kToC(a.atTempK), 3),
+  };
+}
+
+function tempText(k: number): string {
+  return `${kToF(k).toFixed(1)} °F (${kToC(k).toFixed(1)} °C)`;
+}
+
+/** Human-readable answer. */
+export function prechargeText(a: PrechargeAnswer): string {
+  const gReal = a.realAbsPa - a.atmPa;
+  const gIdeal = a.idealAbsPa - a.atmPa;
+  const refG = a.refAbsPa - a.atmPa;
+  const row = (label: string, perUnit: number, digits: number): string =>
+    `  ${label.padEnd(12)}${(gReal / perUnit).toFixed(digits).padStart(12)}${(gIdeal / perUnit).toFixed(digits).padStart(14)}`;
+  const lines = [
+    `Precharge serviced to ${paToPsi(refG).toFixed(1)} psig (${(refG / PA_PER_BAR).toFixed(2)} bar gauge) at ${tempText(a.refTempK)}`,
+    `Local atmosphere ${(a.atmPa / PA_PER_KPA).toFixed(3)} kPa (standard atmosphere at ${a.elevationM} m); gauge = absolute − atmosphere`,
+    "",
+    `Precharge at ${tempText(a.atTempK)}:`,
+    `  ${"".padEnd(12)}${"real gas".padStart(12)}${"ideal gas".padStart(14)}`,
+    row("psig", PA_PER_PSI, 1),
+    row("bar gauge", PA_PER_BAR, 2),
+    row("kPa gauge", PA_PER_KPA, 0),
+    "",
+    "Real gas: nitrogen reference equation of state (Span et al. 2000); ideal gas: the same equation",
+    "without its residual part. Planning estimate only: service from the approved maintenance data.",
+  ];
+  return `${lines.join("\n")}\n`;
+}
+
+/** Registers `coldsoak precharge`. */
+export function registerPrecharge(program: Command): void {
+  program
+    .command("precharge")
+    .description(
+      "precharge gauge pressure at another temperature for a charge serviced to a reference pressure at a reference temperature (real and ideal gas side by side)",
+    )
+    .requiredOption(
+      "--ref <pressure@temperature>",
+      "service reference, <number><psig|psia|bar|bara|kPa|kPaa>@<number><F|C|K>; psig, bar and kPa are gauge",
+    )
+    .requiredOption("--at <temperature>", "temperature to convert to, <number><F|C|K>")
+    .option(
+      "--elevation <metres>",
+      "site elevation for the local atmospheric pressure (ISO 2533 standard atmosphere)",
+      "0",
+    )
+    .option("--json", "write { realPsig, idealPsig, realKPaGauge, idealKPaGauge, atTempC } to stdout")
+    .addHelpText(
+      "after",
+      [
+        "",
+        "Examples:",
+        "  coldsoak precharge --ref 1450psig@70F --at 50F",
+        "  coldsoak precharge --ref 100bar@20C --at -30C --elevation 1500 --json",
+        "",
+        "The gas amount is fixed by the reference with the piston on its fluid-side stop; the answer is",
+        "the pressure of that amount at the same volume at the new temperature.",
+      ].join("\n"),
+    )
+    .action((opts: { ref: string; at: string; elevation: string; json?: boolean }) => {
+      const answer = prechargeAnswer(opts.ref, opts.at, opts.elevation);
+      process.stdout.write(
+        opts.json ? `${JSON.stringify(prechargeJson(answer), null, 2)}\n` : prechargeText(answer),
+      );
+    });
+}

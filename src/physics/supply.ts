@@ -1,0 +1,196 @@
+/**
+ * Nitrogen supply from high-pressure cylinders (product brief, section 3). Transfers are isothermal at
+ * the site temperature. A servicing draws from the cylinders in order of increasing pressure (a
+ * cascade): a cylinder gives gas while its pressure exceeds the accumulator's gas pressure plus the
+ * transfer differential; the next higher cylinder finishes. The charging hose is vented at disconnect:
+ * loss = hose volume × gas density at the final transfer pressure.
+ */
+import { InputError } from "../errors.js";
+import type { GasModel } from "./nitrogen.js";
+
+export interface Cylinder {
+  /** Internal (water) volume, m³. */
+  waterVolumeM3: number;
+  /** Gas held, mol. */
+  amountMol: number;
+}
+
+export interface SupplySpec {
+  cylinderWaterVolumeM3: number;
+  /** Fill pressure of a full cylinder, Pa absolute, at fillTempK. */
+  fillAbsPa: number;
+  fillTempK: number;
+  /** A cylinder gives gas only while P_cyl > P_acc + this differential, Pa. */
+  transferDifferentialPa: number;
+  /** Charging hose internal volume, m³, vented at each disconnect. */
+  hoseVolumeM3: number;
+}
+
+function fail(param: string, message: string): never {
+  throw new InputError(`${param}: ${message}`);
+}
+
+function checkSpec(spec: SupplySpec): void {
+  if (!(spec.cylinderWaterVolumeM3 > 0))
+    fail("cylinderWaterVolumeM3", `${spec.cylinderWaterVolumeM3} m³ must be above 0`);
+  if (!(spec.fillAbsPa > 0)) fail("fillAbsPa", `${spec.fillAbsPa} Pa must be above 0`);
+  if (!(spec.transferDifferentialPa >= 0)) {
+    fail("transferDifferentialPa", `${spec.transferDifferentialPa} Pa must be ≥ 0`);
+  }
+  if (!(spec.hoseVolumeM3 >= 0)) fail("hoseVolumeM3", `${spec.hoseVolumeM3} m³ must be ≥ 0`);
+}
+
+/** A full cylinder: amount = ρ(fill pressure, fill temperature) × water volume. */
+export function fullCylinder(model: GasModel, spec: SupplySpec): Cylinder {
+  checkSpec(spec);
+  return {
+    waterVolumeM3: spec.cylinderWaterVolumeM3,
+    amountMol: model.densityMolM3(spec.fillAbsPa, spec.fillTempK) * spec.cylinderWaterVolumeM3,
+  };
+}
+
+/** Pressure in a cylinder at a temperature, Pa absolute. */
+export function cylinderPressureAbsPa(model: GasModel, cyl: Cylinder, tempK: number): number {
+  if (!(cyl.waterVolumeM3 > 0)) fail("waterVolumeM3", `${cyl.waterVolumeM3} m³ must be above 0`);
+  if (!(cyl.amountMol >= 0)) fail("amountMol", `${cyl.amountMol} mol must be ≥ 0`);
+  return cyl.amountMol > 0 ? model.pressurePa(cyl.amountMol / cyl.waterVolumeM3, tempK) : 0;
+}
+
+/** Gas (mol) to take an accumulator from fromMol to targetMol; 0 if it already holds at least the target. */
+export function gasToAddMol(fromMol: number, targetMol: number): number {
+  if (!(fromMol >= 0)) fail("fromMol", `${fromMol} mol must be ≥ 0`);
+  if (!(targetMol >= 0)) fail("targetMol", `${targetMol} mol must be ≥ 0`);
+  return Math.max(0, targetMol - fromMol);
+}
+
+export interface CascadeResult {
+  /** Cylinders after the servicing (same order as given; the input is not changed). */
+  cylinders: Cylinder[];
+  /** Gas that ended up in the accumulator, mol. */
+  addedMol: number;
+  /** Gas vented with the hose at disconnect, mol. */
+  ventedMol: number;
+  reachedTarget: boolean;
+}
+
+/**
+ * Cascade servicing of one accumulator (gas volume `accumulatorVolumeM3`, piston on its stop, V0) from
+ * fromMol toward targetMol, isothermal at tempK. On connection the hose fills from the accumulator, so
+ * accumulator and hose form one receiver of volume V_acc + V_hose at one pressure; the receiver's target
+ * is targetMol·(V_acc + V_hose)/V_acc. Cylinders are used in order of increasing pressure; each gives
+ * the gas x that reaches the target or brings it down to P_receiver + differential,
+ * P_cyl((n_c − x)/V_c) = P_rec((n_r + x)/V_r) + ΔP, solved by bisection (monotonic in x). At disconnect the
+ * hose's gas, V_hose × ρ(final pressure), is vented. Cylinders give addedMol + ventedMol in total.
+ */
+export function cascadeFill(
+  model: GasModel,
+  cylinders: Cylinder[],
+  accumulatorVolumeM3: number,
+  fromMol: number,
+  targetMol: number,
+  tempK: number,
+  spec: SupplySpec,
+): CascadeResult {
+  checkSpec(spec);
+  if (!(accumulatorVolumeM3 > 0)) fail("accumulatorVolumeM3", `${accumulatorVolumeM3} m³ must be above 0`);
+  if (!(fromMol >= 0)) fail("fromMol", `${fromMol} mol must be ≥ 0`);
+  if (!(targetMol > 0)) fail("targetMol", `${targetMol} mol must be above 0`);
+  const out = cylinders.map((c) => ({ ...c }));
+  if (fromMol >= targetMol) return { cylinders: out, addedMol: 0, ventedMol: 0, reachedTarget: true };
+
+  const vRec = accumulatorVolumeM3 + spec.hoseVolumeM3;
+  const recTarget = (targetMol * vRec) / accumulatorVolumeM3;
+  let nRec = fromMol;
+  const pRec = (n: number): number => (n > 0 ? model.pressurePa(n / vRec, tempK) : 0);
+  const order = out
+    .map((c, i) => ({ i, p: cylinderPressureAbsPa(model, c, tempK) }))
+    .sort((a, b) => a.p - b.p || a.i - b.i);
+  for (const { i } of order) {
+    if (nRec >= recTarget) break;
+    const cyl = out[i]!;
+    const excess = (x: number): number =>
+      cylinderPressureAbsPa(
+        model,
+        { waterVolumeM3: cyl.waterVolumeM3, amountMol: cyl.amountMol - x },
+        tempK,
+      ) -
+      pRec(nRec + x) -
+      spec.transferDifferentialPa;
+    if (!(excess(0) > 0)) continue;
+    const need = recTarget - nRec;
+    let x: number;
+    if (excess(Math.min(need, cyl.amountMol)) >= 0 && need <= cyl.amountMol) {
+      x = need;
+    } else {
+      let lo = 0;
+      let hi = Math.min(need, cyl.amountMol);
+      for (let k = 0; k < 200 && hi - lo > 1e-13 * (hi + 1e-30); k++) {
+        const mid = 0.5 * (lo + hi);
+        if (excess(mid) > 0) lo = mid;
+        else hi = mid;
+      }
+      x = lo;
+    }
+    cyl.amountMol -= x;
+    nRec += x;
+  }
+  const connected = nRec > fromMol;
+  const accMol = connected ? (nRec * accumulatorVolumeM3) / vRec : fromMol;
+  const ventedMol = connected ? nRec - accMol : 0;
+  return {
+    cylinders: out,
+    addedMol: accMol - fromMol,
+    ventedMol,
+    reachedTarget: nRec >= recTarget * (1 - 1e-12),
+  };
+}
+
+/** A cylinder is spent once its pressure is below the lowest precharge it will be asked to raise plus the differential. */
+export function isCylinderSpent(
+  model: GasModel,
+  cyl: Cylinder,
+  tempK: number,
+  lowestTargetAbsPa: number,
+  differentialPa: number,
+): boolean {
+  if (!(lowestTargetAbsPa > 0)) fail("lowestTargetAbsPa", `${lowestTargetAbsPa} Pa must be above 0`);
+  if (!(differentialPa >= 0)) fail("differentialPa", `${differentialPa} Pa must be ≥ 0`);
+  return cylinderPressureAbsPa(model, cyl, tempK) < lowestTargetAbsPa + differentialPa;
+}
+
+/**
+ * Usable gas of one full cylinder at tempK: fill amount minus the amount left when it becomes spent,
+ * ρ(lowest target + differential, T) × water volume.
+ */
+export function usableMolPerCylinder(
+  model: GasModel,
+  spec: SupplySpec,
+  lowestTargetAbsPa: number,
+  tempK: number,
+): number {
+  const full = fullCylinder(model, spec);
+  if (!(lowestTargetAbsPa > 0)) fail("lowestTargetAbsPa", `${lowestTargetAbsPa} Pa must be above 0`);
+  const spentMol =
+    model.densityMolM3(lowestTargetAbsPa + spec.transferDifferentialPa, tempK) * spec.cylinderWaterVolumeM3;
+  return Math.max(0, full.amountMol - spentMol);
+}
+
+/** Cylinders needed for a gas demand (mol): ⌈demand / usable gas per cylinder⌉. */
+export function cylindersForDemand(
+  model: GasModel,
+  demandMol: number,
+  spec: SupplySpec,
+  lowestTargetAbsPa: number,
+  tempK: number,
+): number {
+  if (!(demandMol >= 0 && Number.isFinite(demandMol))) fail("demandMol", `${demandMol} mol must be ≥ 0`);
+  if (demandMol === 0) return 0;
+  const usable = usableMolPerCylinder(model, spec, lowestTargetAbsPa, tempK);
+  if (!(usable > 0)) {
+    fail(
+      "fillAbsPa",
+      `a full cylinder (${spec.fillAbsPa} Pa) cannot raise a precharge to ${lowestTargetAbsPa} Pa plus the differential`,
+    );
+  }
+  return Math.ceil(demandMol / usable - 1e-12);
+}
