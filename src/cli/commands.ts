@@ -1,7 +1,9 @@
 import type { Command } from "commander";
 import { registerPrecharge } from "./precharge.js";
+import { registerPdf } from "./pdf.js";
 
 /** Adds every sub-command to the program. Each command lives in its own file of this folder. */
 export function registerCommands(program: Command): void {
   registerPrecharge(program);
+  registerPdf(program);
 }

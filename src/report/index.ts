@@ -1,6 +1,75 @@
+/**
+ * The self-contained HTML planning report, rendered from `results.json` alone (issue 5). Templates,
+ * CSS and partials are read at run time from `templates/` at the package root, which sits two folders
+ * above this file both in `src/report/` (tests) and in `dist/report/` (built tool).
+ */
+import { readdirSync, readFileSync } from "node:fs";
+import Handlebars from "handlebars";
+import { InputError } from "../errors.js";
 import type { Results } from "../plan/results.js";
+import type { Chart } from "./charts.js";
+import { buildView, type Status } from "./view.js";
 
-/** Renders the self-contained HTML planning report from `results.json` alone. (Stub: replaced by the report work.) */
+export { writePdf } from "./pdf.js";
+
+const TEMPLATE_DIR = new URL("../../templates/", import.meta.url);
+
+/**
+ * Status marks: a distinct shape per status (square, triangle, circle, dash) as well as a colour from
+ * the Okabe–Ito palette, so the fleet summary reads in greyscale and for colour-blind readers.
+ * Constant markup only: no data goes into these.
+ */
+const MARKS: Record<Status, string> = {
+  act: '<svg class="mark" viewBox="0 0 10 10" aria-hidden="true"><rect x="1" y="1" width="8" height="8" fill="#D55E00" stroke="#000" stroke-width="0.8"/></svg>',
+  watch:
+    '<svg class="mark" viewBox="0 0 10 10" aria-hidden="true"><path d="M5 0.8 L9.4 9 L0.6 9 Z" fill="#E69F00" stroke="#000" stroke-width="0.8"/></svg>',
+  ok: '<svg class="mark" viewBox="0 0 10 10" aria-hidden="true"><circle cx="5" cy="5" r="4" fill="#0072B2" stroke="#000" stroke-width="0.8"/></svg>',
+  none: '<svg class="mark" viewBox="0 0 10 10" aria-hidden="true"><rect x="1.5" y="4.2" width="7" height="1.6" fill="#8a929b"/></svg>',
+};
+
+/** Generation time: `SOURCE_DATE_EPOCH` (whole seconds since 1970, UTC) when set, else now. */
+export function generationTime(
+  env: NodeJS.ProcessEnv = process.env,
+  now: () => Date = () => new Date(),
+): string {
+  const raw = env["SOURCE_DATE_EPOCH"];
+  let date: Date;
+  if (raw !== undefined && raw !== "") {
+    if (!/^\d{1,12}$/.test(raw.trim()))
+      throw new InputError(`SOURCE_DATE_EPOCH: expected whole seconds since 1970-01-01 UTC, got "${raw}"`);
+    date = new Date(Number(raw.trim()) * 1000);
+  } else {
+    date = now();
+  }
+  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+}
+
+let compiled: Handlebars.TemplateDelegate | null = null;
+let css = "";
+
+/** Compiles the templates once per process, in an isolated handlebars environment. */
+function template(): Handlebars.TemplateDelegate {
+  if (compiled) return compiled;
+  const hb = Handlebars.create();
+  const partials = new URL("partials/", TEMPLATE_DIR);
+  for (const file of readdirSync(partials).sort()) {
+    if (!file.endsWith(".hbs")) continue;
+    hb.registerPartial(file.slice(0, -4), readFileSync(new URL(file, partials), "utf8"));
+  }
+  // The chart SVG is rendered by vega from data it escapes, with our escaped <title>: placed as is.
+  hb.registerHelper("chartSvg", (chart: Chart) => new hb.SafeString(chart.svg));
+  hb.registerHelper("mark", (status: Status) => new hb.SafeString(MARKS[status] ?? MARKS.none));
+  css = readFileSync(new URL("report.css", TEMPLATE_DIR), "utf8");
+  compiled = hb.compile(readFileSync(new URL("report.hbs", TEMPLATE_DIR), "utf8"), {
+    strict: true,
+    noEscape: false,
+  });
+  return compiled;
+}
+
+/** Renders the self-contained HTML planning report from the results alone. */
 export async function renderReport(results: Results): Promise<string> {
-  return `<!doctype html><html><head><meta charset="utf-8"><title>coldsoak</title></head><body>${results.bases.length}</body></html>`;
+  const view = await buildView(results, { generatedAt: generationTime() });
+  const render = template();
+  return render({ ...view, css: new Handlebars.SafeString(css) });
 }

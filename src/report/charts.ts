@@ -1,0 +1,352 @@
+/**
+ * Charts as static inline SVG: a vega-lite spec compiled to vega and rendered on the server through
+ * `View.toSVG()` with the headless renderer ("none"): no canvas, no network, no script in the page.
+ * Vega escapes every text and attribute it writes; the chart's own `<title>` is escaped here.
+ * Colours are the Okabe–Ito colour-blind-safe palette (Okabe and Ito, "Color Universal Design", 2008);
+ * every series also differs by dash pattern or point shape, so the charts read in greyscale.
+ */
+import * as vega from "vega";
+import * as vl from "vega-lite";
+
+/** Okabe–Ito palette. */
+export const PALETTE = {
+  black: "#000000",
+  orange: "#E69F00",
+  sky: "#56B4E9",
+  green: "#009E73",
+  yellow: "#F0E442",
+  blue: "#0072B2",
+  vermillion: "#D55E00",
+  purple: "#CC79A7",
+} as const;
+
+const FONT = "Liberation Sans, DejaVu Sans, Arial, Helvetica, sans-serif";
+
+/** A rendered chart: escaped-by-construction SVG markup and its plain-text title. */
+export interface Chart {
+  id: string;
+  title: string;
+  svg: string;
+  /** Axis titles as written in the spec (for the caption and for tests). */
+  axisTitles: string[];
+}
+
+export interface LineSeries {
+  name: string;
+  color: string;
+  /** Dash pattern; empty or absent = solid. */
+  dash?: number[];
+  /** Point shape (vega symbol name); absent = no points. */
+  shape?: string;
+  points: { x: number | string; y: number | null }[];
+}
+
+export interface BandSeries {
+  name: string;
+  color: string;
+  points: { x: number | string; y: number | null; y2: number | null }[];
+}
+
+export interface RuleLine {
+  y: number;
+  label: string;
+  color: string;
+}
+
+export interface XYChartOptions {
+  id: string;
+  title: string;
+  xTitle: string;
+  yTitle: string;
+  /** "quantitative" for numbers, "ordinal" for categories such as month names (in the given order). */
+  xType?: "quantitative" | "ordinal";
+  xOrder?: string[];
+  xDomain?: [number, number];
+  yDomain?: [number, number];
+  yZero?: boolean;
+  width?: number;
+  height?: number;
+  lines: LineSeries[];
+  bands?: BandSeries[];
+  rules?: RuleLine[];
+}
+
+type Spec = Record<string, unknown>;
+
+const BASE_CONFIG = {
+  font: FONT,
+  background: "white",
+  view: { stroke: "#bbb" },
+  axis: {
+    labelFontSize: 10,
+    titleFontSize: 11,
+    titleFontWeight: "normal",
+    titleColor: "#222",
+    labelColor: "#333",
+    gridColor: "#e4e4e4",
+    domainColor: "#888",
+    tickColor: "#888",
+  },
+  legend: {
+    orient: "bottom",
+    direction: "horizontal",
+    labelFontSize: 10,
+    titleFontSize: 10,
+    symbolStrokeWidth: 2,
+    labelLimit: 220,
+    columns: 2,
+  },
+} as const;
+
+function finite(v: number | null): v is number {
+  return v !== null && Number.isFinite(v);
+}
+
+/** Layers of one x–y panel (bands, lines with optional points, horizontal rules). */
+function xyLayers(o: XYChartOptions): { layers: Spec[]; domain: string[]; colors: string[] } {
+  const xType = o.xType ?? "quantitative";
+  const xEnc: Spec = {
+    field: "x",
+    type: xType,
+    title: o.xTitle,
+    ...(xType === "ordinal" && o.xOrder ? { sort: o.xOrder, scale: { domain: o.xOrder } } : {}),
+    ...(xType === "quantitative" && o.xDomain ? { scale: { domain: o.xDomain, nice: false } } : {}),
+    axis: xType === "ordinal" ? { labelAngle: 0 } : { tickCount: 8 },
+  };
+  const yScale: Spec = { zero: o.yZero ?? false };
+  if (o.yDomain) yScale["domain"] = o.yDomain;
+  const yEnc: Spec = { field: "y", type: "quantitative", title: o.yTitle, scale: yScale };
+  const bands = o.bands ?? [];
+  const domain = [...bands.map((b) => b.name), ...o.lines.map((l) => l.name)];
+  const colors = [...bands.map((b) => b.color), ...o.lines.map((l) => l.color)];
+  // Bands use the fill channel (square legend symbols), lines the stroke and dash channels (one merged
+  // legend with stroke symbols); points share the stroke scale and add a shape.
+  const lineDomain = o.lines.map((l) => l.name);
+  const strokeScale = { domain: lineDomain, range: o.lines.map((l) => l.color) };
+  const dashScale = { domain: lineDomain, range: o.lines.map((l) => (l.dash?.length ? l.dash : [1, 0])) };
+  // With a band legend beside it, the line legend takes one column so the two fit the chart's width.
+  const lineLegend = { title: null, symbolType: "stroke", ...(bands.length > 0 ? { columns: 1 } : {}) };
+  const layers: Spec[] = [];
+  if (bands.length > 0) {
+    layers.push({
+      data: {
+        values: bands.flatMap((b) =>
+          b.points
+            .filter((p) => finite(p.y) && finite(p.y2))
+            .map((p) => ({ x: p.x, y: p.y, y2: p.y2, band: b.name })),
+        ),
+      },
+      mark: { type: "area", fillOpacity: 0.3 },
+      encoding: {
+        x: xEnc,
+        y: yEnc,
+        y2: { field: "y2" },
+        fill: {
+          field: "band",
+          type: "nominal",
+          scale: { domain: bands.map((b) => b.name), range: bands.map((b) => b.color) },
+          legend: { title: null, symbolType: "square", symbolOpacity: 0.45, columns: 1 },
+        },
+      },
+    });
+  }
+  const lineValues = o.lines.flatMap((l) =>
+    l.points.filter((p) => finite(p.y)).map((p) => ({ x: p.x, y: p.y, series: l.name })),
+  );
+  layers.push({
+    data: { values: lineValues },
+    mark: { type: "line", strokeWidth: 2 },
+    encoding: {
+      x: xEnc,
+      y: yEnc,
+      stroke: { field: "series", type: "nominal", scale: strokeScale, legend: lineLegend },
+      strokeDash: { field: "series", type: "nominal", scale: dashScale, legend: lineLegend },
+    },
+  });
+  const pointed = o.lines.filter((l) => l.shape);
+  if (pointed.length > 0) {
+    layers.push({
+      data: {
+        values: pointed.flatMap((l) =>
+          l.points.filter((p) => finite(p.y)).map((p) => ({ x: p.x, y: p.y, series: l.name })),
+        ),
+      },
+      mark: { type: "point", filled: false, size: 40, strokeWidth: 1.6 },
+      encoding: {
+        x: xEnc,
+        y: yEnc,
+        stroke: { field: "series", type: "nominal", scale: strokeScale },
+        shape: {
+          field: "series",
+          type: "nominal",
+          scale: { domain: pointed.map((l) => l.name), range: pointed.map((l) => l.shape) },
+          legend: null,
+        },
+      },
+    });
+  }
+  for (const r of o.rules ?? []) {
+    layers.push({
+      data: { values: [{ y: r.y, label: r.label }] },
+      layer: [
+        {
+          mark: { type: "rule", strokeDash: [2, 2], color: r.color, strokeWidth: 1.5 },
+          encoding: { y: { field: "y", type: "quantitative" } },
+        },
+        {
+          mark: { type: "text", align: "right", baseline: "bottom", dy: -2, fontSize: 10, color: r.color },
+          encoding: {
+            y: { field: "y", type: "quantitative" },
+            x: { value: o.width ?? 290 },
+            text: { field: "label" },
+          },
+        },
+      ],
+    });
+  }
+  return { layers, domain, colors };
+}
+
+/** A single x–y chart with lines, optional shaded bands and horizontal rules. */
+export async function xyChart(o: XYChartOptions): Promise<Chart> {
+  const { layers } = xyLayers(o);
+  const spec: Spec = {
+    $schema: "https://vega.github.io/schema/vega-lite/v5.json",
+    width: o.width ?? 290,
+    height: o.height ?? 170,
+    config: BASE_CONFIG,
+    layer: layers,
+  };
+  return renderChart(o.id, o.title, spec, [o.xTitle, o.yTitle]);
+}
+
+/** Panels stacked vertically over a shared x axis title (the overnight traces). */
+export async function stackedChart(id: string, title: string, panels: XYChartOptions[]): Promise<Chart> {
+  const spec: Spec = {
+    $schema: "https://vega.github.io/schema/vega-lite/v5.json",
+    config: { ...BASE_CONFIG, legend: { ...BASE_CONFIG.legend, orient: "right", direction: "vertical" } },
+    spacing: 12,
+    vconcat: panels.map((p) => ({
+      width: p.width ?? 560,
+      height: p.height ?? 110,
+      layer: xyLayers(p).layers,
+    })),
+    resolve: {
+      scale: { stroke: "independent", strokeDash: "independent", fill: "independent", shape: "independent" },
+      legend: { stroke: "independent", strokeDash: "independent", fill: "independent" },
+    },
+  };
+  return renderChart(
+    id,
+    title,
+    spec,
+    panels.flatMap((p) => [p.xTitle, p.yTitle]),
+  );
+}
+
+export interface BarOptions {
+  id: string;
+  title: string;
+  xTitle: string;
+  yTitle: string;
+  color: string;
+  /** Bars at categories (ordinal) or over [x, x2) bins (quantitative). */
+  bars: { x: number | string; x2?: number; y: number | null; label?: string }[];
+  xOrder?: string[];
+  yDomain?: [number, number];
+  width?: number;
+  height?: number;
+}
+
+/** A bar chart: categories, or contiguous bins when every bar has `x2`. */
+export async function barChart(o: BarOptions): Promise<Chart> {
+  const binned = o.bars.length > 0 && o.bars.every((b) => b.x2 !== undefined);
+  const values = o.bars.filter((b) => finite(b.y)).map((b) => ({ x: b.x, x2: b.x2, y: b.y }));
+  const x: Spec = binned
+    ? { field: "x", type: "quantitative", bin: { binned: true }, title: o.xTitle }
+    : {
+        field: "x",
+        type: "ordinal",
+        title: o.xTitle,
+        axis: { labelAngle: 0 },
+        ...(o.xOrder ? { sort: o.xOrder, scale: { domain: o.xOrder } } : {}),
+      };
+  const spec: Spec = {
+    $schema: "https://vega.github.io/schema/vega-lite/v5.json",
+    width: o.width ?? 290,
+    height: o.height ?? 170,
+    config: BASE_CONFIG,
+    data: { values },
+    mark: { type: "bar", color: o.color, stroke: "#333", strokeWidth: 0.5, ...(binned ? {} : {}) },
+    encoding: {
+      x,
+      ...(binned ? { x2: { field: "x2" } } : {}),
+      y: {
+        field: "y",
+        type: "quantitative",
+        title: o.yTitle,
+        ...(o.yDomain ? { scale: { domain: o.yDomain } } : {}),
+      },
+    },
+  };
+  return renderChart(o.id, o.title, spec, [o.xTitle, o.yTitle]);
+}
+
+/** Escapes text for XML content and attribute values. */
+export function escapeXml(text: string): string {
+  return text
+    .replace(/&/g, "&amp;")
+    .replace(/</g, "&lt;")
+    .replace(/>/g, "&gt;")
+    .replace(/"/g, "&quot;")
+    .replace(/'/g, "&#39;");
+}
+
+/**
+ * Compiles and renders a vega-lite spec to SVG, then makes it safe to inline next to other charts:
+ * element ids (clip paths) get a per-chart prefix, numbered in order of appearance so the output is
+ * the same on every run, and an escaped `<title>` becomes the first child of the root element.
+ */
+export async function renderChart(
+  id: string,
+  title: string,
+  spec: Spec,
+  axisTitles: string[],
+): Promise<Chart> {
+  const compiled = vl.compile(spec as unknown as vl.TopLevelSpec).spec;
+  const view = new vega.View(vega.parse(compiled), { renderer: "none" });
+  let svg: string;
+  try {
+    svg = await view.toSVG();
+  } finally {
+    view.finalize();
+  }
+  svg = prefixIds(svg, id);
+  const titleId = `${id}-title`;
+  svg = svg.replace(
+    /^<svg\b([^>]*)>/,
+    (_m, attrs: string) =>
+      `<svg${attrs} role="img" aria-labelledby="${titleId}" id="${id}"><title id="${titleId}">${escapeXml(title)}</title>`,
+  );
+  return { id, title, svg, axisTitles };
+}
+
+/** Renames every `id="…"` in one SVG to `<prefix>-<n>` and rewrites its `url(#…)` and `href="#…"` uses. */
+function prefixIds(svg: string, prefix: string): string {
+  const map = new Map<string, string>();
+  for (const m of svg.matchAll(/\sid="([^"]+)"/g)) {
+    const old = m[1]!;
+    if (!map.has(old)) map.set(old, `${prefix}-d${map.size + 1}`);
+  }
+  if (map.size === 0) return svg;
+  return svg
+    .replace(
+      /(\sid=")([^"]+)(")/g,
+      (_m, a: string, old: string, b: string) => `${a}${map.get(old) ?? old}${b}`,
+    )
+    .replace(/url\(#([^)]+)\)/g, (_m, old: string) => `url(#${map.get(old) ?? old})`)
+    .replace(
+      /(href=")#([^"]+)(")/g,
+      (_m, a: string, old: string, b: string) => `${a}#${map.get(old) ?? old}${b}`,
+    );
+}
