@@ -1,0 +1,236 @@
+/**
+ * `coldsoak climate <files or folders...>`: reads NOAA ISD climate files and prints, per station, the
+ * period, hours, completeness, quality-control counts, monthly local-time climatology and extremes
+ * (product brief, sections 4 and 6). `--json` prints the brief's contract on stdout.
+ */
+import { SingleBar } from "cli-progress";
+import { type Command, Option } from "commander";
+import { DateTime } from "luxon";
+import {
+  type ClimateOptions,
+  DEFAULT_CACHE_DIR,
+  DEFAULT_GAP_HOURS,
+  DROP_REASONS,
+  loadClimate,
+  type StationClimate,
+  type StationSummary,
+  stationSummary,
+} from "../climate/index.js";
+import { InputError } from "../errors.js";
+import { writeFileAtomic } from "../fsutil.js";
+
+type Units = "us" | "si";
+
+interface ClimateCliOptions {
+  units: Units;
+  json?: boolean;
+  csv?: string;
+  gapHours: string;
+  cacheDir: string;
+  cache: boolean;
+  stationHistory?: string;
+  stationId?: string;
+}
+
+/** A progress bar is drawn on stderr from this many files on (and only on a terminal). */
+const PROGRESS_MIN_FILES = 8;
+
+const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+
+/** Temperature and temperature difference in the user's units. */
+function temp(c: number, units: Units): number {
+  return units === "us" ? c * 1.8 + 32 : c;
+}
+function delta(c: number, units: Units): number {
+  return units === "us" ? c * 1.8 : c;
+}
+function unitLabel(units: Units): string {
+  return units === "us" ? "°F" : "°C";
+}
+function fmt(v: number | null, digits = 1): string {
+  return v === null ? "—" : v.toFixed(digits);
+}
+
+function localTime(utcIso: string, zone: string): string {
+  return DateTime.fromISO(utcIso, { zone: "utc" }).setZone(zone).toFormat("yyyy-MM-dd HH:mm ZZZZ");
+}
+
+function parseGapHours(text: string): number {
+  const n = Number(text);
+  if (!/^\d+$/.test(text.trim()) || !Number.isInteger(n) || n > 48)
+    throw new InputError(`--gap-hours: "${text}" is not a whole number of hours 0–48, e.g. --gap-hours 3`);
+  return n;
+}
+
+/** The per-station text block of the table output. */
+export function formatStation(s: StationSummary, units: Units): string {
+  const u = unitLabel(units);
+  const lines: string[] = [];
+  lines.push(`${s.id}  ${s.name ?? "(name unknown)"}`);
+  lines.push(
+    `  position ${s.lat.toFixed(3)}, ${s.lon.toFixed(3)}, elevation ${s.elevationM} m, time zone ${s.timeZone}`,
+  );
+  lines.push(
+    `  period ${s.firstUtc ?? "—"} to ${s.lastUtc ?? "—"}: ${s.hours} hours with a value (${s.filledHours} filled), completeness ${(s.completeness * 100).toFixed(1)} %`,
+  );
+  const dropped = DROP_REASONS.map((r) => `${r} ${s.qc.dropped[r]}`).join(", ");
+  lines.push(`  records read ${s.qc.read}, kept ${s.qc.kept}; dropped: ${dropped}`);
+  if (s.extremes) {
+    const e = s.extremes;
+    lines.push(
+      `  coldest ${fmt(temp(e.minC, units))} ${u} at ${e.minUtc} (${localTime(e.minUtc, s.timeZone)}); warmest ${fmt(temp(e.maxC, units))} ${u} at ${e.maxUtc} (${localTime(e.maxUtc, s.timeZone)})`,
+    );
+  }
+  lines.push(`  month      min     mean      max   mean range  P90 range   (${u}, local time)`);
+  for (const m of s.months) {
+    if (m.minC === null) continue;
+    const cells = [
+      fmt(temp(m.minC, units)),
+      fmt(temp(m.meanC!, units)),
+      fmt(temp(m.maxC!, units)),
+      fmt(m.meanDailyRangeC === null ? null : delta(m.meanDailyRangeC, units)),
+      fmt(m.p90DailyRangeC === null ? null : delta(m.p90DailyRangeC, units)),
+    ];
+    lines.push(
+      `  ${MONTHS[m.month - 1]!.padEnd(5)}${cells[0]!.padStart(8)} ${cells[1]!.padStart(8)} ${cells[2]!.padStart(8)} ${cells[3]!.padStart(12)} ${cells[4]!.padStart(10)}`,
+    );
+  }
+  return lines.join("\n");
+}
+
+function csvCell(v: string | number | null): string {
+  if (v === null) return "";
+  const s = String(v);
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** One row per station and local month, in the chosen units (unit in the column names). */
+export function climateCsv(stations: StationSummary[], units: Units): string {
+  const t = units === "us" ? "degF" : "degC";
+  const header = [
+    "station",
+    "name",
+    "month",
+    `min_${t}`,
+    `mean_${t}`,
+    `max_${t}`,
+    `mean_daily_range_${t}`,
+    `p90_daily_range_${t}`,
+  ];
+  const rows = [header.join(",")];
+  const r2 = (v: number | null) => (v === null ? null : Math.round(v * 100) / 100);
+  for (const s of stations)
+    for (const m of s.months)
+      rows.push(
+        [
+          s.id,
+          s.name,
+          m.month,
+          r2(m.minC === null ? null : temp(m.minC, units)),
+          r2(m.meanC === null ? null : temp(m.meanC, units)),
+          r2(m.maxC === null ? null : temp(m.maxC, units)),
+          r2(m.meanDailyRangeC === null ? null : delta(m.meanDailyRangeC, units)),
+          r2(m.p90DailyRangeC === null ? null : delta(m.p90DailyRangeC, units)),
+        ]
+          .map(csvCell)
+          .join(","),
+      );
+  return `${rows.join("\r\n")}\r\n`;
+}
+
+/** The `--json` document (brief §6); temperatures always in °C. */
+export function climateJson(stations: StationClimate[]): unknown {
+  return {
+    stations: stations.map((s) => ({
+      ...stationSummary(s),
+      callLetters: s.meta.callLetters,
+      meanStationPressureHpa:
+        s.meanStationPressureHpa === null ? null : Math.round(s.meanStationPressureHpa * 10) / 10,
+    })),
+  };
+}
+
+export async function runClimate(paths: string[], opts: ClimateCliOptions): Promise<void> {
+  const gapHours = parseGapHours(opts.gapHours);
+  let bar: SingleBar | null = null;
+  const options: ClimateOptions = {
+    gapHours,
+    cacheDir: opts.cache ? opts.cacheDir : null,
+    onProgress: (done, total) => {
+      if (total < PROGRESS_MIN_FILES || !process.stderr.isTTY) return;
+      if (bar === null) {
+        bar = new SingleBar({ stream: process.stderr, format: "climate files [{bar}] {value}/{total}" });
+        bar.start(total, 0);
+      }
+      bar.update(done);
+      if (done === total) bar.stop();
+    },
+  };
+  if (opts.stationHistory !== undefined) options.stationHistoryCsv = opts.stationHistory;
+  if (opts.stationId !== undefined) {
+    if (!/^[0-9A-Z]{6}-\d{5}$/.test(opts.stationId))
+      throw new InputError(
+        `--station-id: "${opts.stationId}" is not USAF-WBAN, e.g. --station-id 725300-94846`,
+      );
+    options.stationIdOverride = opts.stationId;
+  }
+  let stations: StationClimate[];
+  try {
+    stations = await loadClimate(paths, options);
+  } finally {
+    (bar as SingleBar | null)?.stop();
+  }
+  for (const s of stations) {
+    const bad = s.qc.dropped.malformed;
+    if (bad > 0)
+      process.stderr.write(
+        `coldsoak: warning: ${s.meta.id}: ${bad} malformed line(s) skipped, e.g.\n${s.malformedExamples.map((e) => `  ${e}`).join("\n")}\n`,
+      );
+  }
+  const summaries = stations.map(stationSummary);
+  if (opts.csv !== undefined) await writeFileAtomic(opts.csv, climateCsv(summaries, opts.units));
+  if (opts.json) process.stdout.write(`${JSON.stringify(climateJson(stations), null, 2)}\n`);
+  else process.stdout.write(`${summaries.map((s) => formatStation(s, opts.units)).join("\n\n")}\n`);
+}
+
+export function registerClimate(program: Command): void {
+  program
+    .command("climate")
+    .summary("read NOAA ISD climate files and summarise each station")
+    .description(
+      "Reads NOAA Integrated Surface Data files (ISD full format, ISD-Lite, or the comma-separated " +
+        "global-hourly layout; plain or gzip; the layout is detected from the content) and folders of them, " +
+        "applies the quality rules, builds the hourly series and prints, per station: period, hours, " +
+        "completeness, quality-control counts, monthly min/mean/max in local time, mean and P90 daily range, " +
+        "and the coldest and warmest observation.",
+    )
+    .argument("<paths...>", "climate files or folders (read recursively)")
+    .addOption(
+      new Option("--units <system>", "units of the table and CSV").choices(["us", "si"]).default("us"),
+    )
+    .option("--json", "print the stations as JSON on stdout (always °C)")
+    .option("--csv <file>", "also write the monthly table as CSV")
+    .option(
+      "--gap-hours <n>",
+      "fill gaps up to this many hours by linear interpolation",
+      String(DEFAULT_GAP_HOURS),
+    )
+    .option("--cache-dir <dir>", "folder of the parsed-series cache", DEFAULT_CACHE_DIR)
+    .option("--no-cache", "read every file again, neither using nor writing the cache")
+    .option(
+      "--station-history <csv>",
+      "station list CSV (USAF,WBAN,STATION NAME,...,LAT,LON,ELEV(M),...) for names and positions",
+    )
+    .option("--station-id <USAF-WBAN>", "station id of ISD-Lite files whose name does not carry it")
+    .addHelpText(
+      "after",
+      "\nExamples:\n" +
+        "  coldsoak climate data/isd/725300-94846-2014.gz\n" +
+        "  coldsoak climate data/isd --units si --csv out/climate.csv\n" +
+        "  coldsoak climate data/isd --json > climate.json\n" +
+        "\nExit codes: 0 success, 2 bad input or usage (the message names file:line:field), 1 anything else.",
+    )
+    .action(async (paths: string[], opts: ClimateCliOptions) => {
+      await runClimate(paths, opts);
+    });
+}
