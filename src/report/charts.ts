@@ -175,7 +175,7 @@ function xyLayers(o: XYChartOptions): { layers: Spec[]; domain: string[]; colors
       encoding: {
         x: xEnc,
         y: yEnc,
-        stroke: { field: "series", type: "nominal", scale: strokeScale },
+        stroke: { field: "series", type: "nominal", scale: strokeScale, legend: lineLegend },
         shape: {
           field: "series",
           type: "nominal",
@@ -313,8 +313,10 @@ export async function renderChart(
   spec: Spec,
   axisTitles: string[],
 ): Promise<Chart> {
-  const compiled = vl.compile(spec as unknown as vl.TopLevelSpec).spec;
-  const view = new vega.View(vega.parse(compiled), { renderer: "none" });
+  // Only errors are reported: legend-merging notices from vega-lite would be noise on the CLI's stderr.
+  const quiet = vega.logger(vega.Error);
+  const compiled = vl.compile(spec as unknown as vl.TopLevelSpec, { logger: quiet }).spec;
+  const view = new vega.View(vega.parse(compiled), { renderer: "none", logLevel: vega.Error });
   let svg: string;
   try {
     svg = await view.toSVG();

@@ -67,7 +67,8 @@ export interface BaseView {
   coldest: { morning: string; oneIn10: string; byYear: string };
   profiles: { name: string; figures: Figure[]; table: TableRow[] }[];
   traces: { label: string; detail: string; figure: Figure | null }[];
-  riskTable: TableRow[];
+  readingTable: TableRow[];
+  energyTable: TableRow[];
   riskFigure: Figure | null;
   hourFigure: Figure | null;
   hourNote: string;
@@ -512,18 +513,27 @@ async function buildBase(
 
   const months = [...base.months].sort((a, b) => a.month - b.month);
   const riskOrder = months.map((m) => monthName(m.month));
-  const riskTable = months.map((m) => ({
+  const readingTable = months.map((m) => ({
     cells: [
       monthName(m.month),
       formatNumber(m.preflights, 0),
       pct(m.belowBandPct),
       pct(m.aboveBandPct),
-      pct(m.shortPctOne),
-      pct(m.shortPctTwo),
       `${show(u.pressure, m.morningKPaGaugeP10)} / ${show(u.pressure, m.morningKPaGaugeP50)} / ${show(u.pressure, m.morningKPaGaugeP90)}`,
       `${pct(m.morningReadingPctP10)} / ${pct(m.morningReadingPctP50)} / ${pct(m.morningReadingPctP90)}`,
       `${show(u.tempDelta, m.overnightDropTempMeanC)} / ${show(u.tempDelta, m.overnightDropTempP90C)}`,
       `${show(u.pressureDelta, m.overnightDropKPaMean)} / ${show(u.pressureDelta, m.overnightDropKPaP90)}`,
+      `${pct(m.overnightDropReadingMeanPct)} / ${pct(m.overnightDropReadingP90Pct)}`,
+    ],
+  }));
+  const energyTable = months.map((m) => ({
+    cells: [
+      monthName(m.month),
+      formatNumber(m.starts, 0),
+      pct(m.shortPctOne),
+      pct(m.shortPctTwo),
+      `${pct(m.energyMarginOneP10Pct)} / ${pct(m.energyMarginOneP50Pct)}`,
+      `${pct(m.energyMarginTwoP10Pct)} / ${pct(m.energyMarginTwoP50Pct)}`,
       `${show(u.tempDelta, m.dailyRangeMeanC)} / ${show(u.tempDelta, m.dailyRangeP90C)}`,
     ],
   }));
@@ -582,7 +592,7 @@ async function buildBase(
       ? figs.next(
           await barChart({
             id: `${anchor}-hours`,
-            title: `${base.name}: share of preflights out of band by local hour`,
+            title: `${base.name}: share out of band by local hour of day`,
             xTitle: "Hour of day (local)",
             yTitle: "Out of band (%)",
             color: PALETTE.orange,
@@ -591,7 +601,7 @@ async function buildBase(
             width: 560,
             height: 170,
           }),
-          `Share of preflights reading out of band, by the local hour of the preflight, at ${base.name}, all months pooled.`,
+          `Share of hours at which a preflight would read out of band (the trapped charge against the band for the ambient temperature), by local hour of day, at ${base.name}, all stay months pooled.`,
         )
       : null;
 
@@ -608,6 +618,8 @@ async function buildBase(
       if (!m || m.preflights === 0) text = "No preflights in this month.";
       return {
         month: monthName(a.month),
+        marginOne: m ? pct(m.energyMarginOneP10Pct) : "–",
+        marginTwo: m ? pct(m.energyMarginTwoP10Pct) : "–",
         status: !m || m.preflights === 0 ? ("none" as Status) : status,
         label: STATUS_LABEL[!m || m.preflights === 0 ? "none" : status],
         one: pct(a.shortPctOne),
@@ -649,7 +661,9 @@ async function buildBase(
       s.depart,
       s.profile,
       s.coldStartOption ? "yes" : "no",
+      formatNumber(s.prechargeChecksP50, 1),
       formatNumber(s.servicingEventsP50, 1),
+      formatNumber(s.handPumpStrokesP50, 0),
       show(M, s.kgAddedP50),
       show(M, s.kgVentedP50),
       show(M, s.kgP50),
@@ -687,7 +701,8 @@ async function buildBase(
     },
     profiles,
     traces,
-    riskTable,
+    readingTable,
+    energyTable,
     riskFigure,
     hourFigure,
     hourNote:
