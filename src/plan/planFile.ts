@@ -136,7 +136,7 @@ const profileSchema = z
     }),
     starter: z.strictObject({
       minUsefulPressure: pointPressure,
-      returnPressure: pointPressure.default("0 psig"),
+      returnPressure: pointPressure.prefault("0 psig"),
       expansion: z.enum(["isentropic", "isothermal"]).default("isentropic"),
     }),
     startEnergy: z.array(z.strictObject({ ambient: q(parseTemperatureK), energy: q(parseEnergyJ) })).min(1),
@@ -170,6 +170,36 @@ const profileSchema = z
       });
     } else if (!(sys.low.pa <= sys.nominal.pa && sys.nominal.pa <= sys.high.pa)) {
       ctx.addIssue({ code: "custom", path: ["system"], message: "expected low ≤ nominal ≤ high" });
+    }
+    // Gauge comparisons (an absolute value is compared as if the atmosphere were 101.325 kPa).
+    const g = (x: PointPressure) => (x.isGauge ? x.pa : x.pa - 101325);
+    const ref = g(p.precharge.reference.pressure);
+    if (!(p.precharge.tolerance < ref)) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["precharge", "tolerance"],
+        message: "expected a tolerance smaller than the reference precharge",
+      });
+    } else if (!(ref + p.precharge.tolerance < g(sys.low))) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["precharge", "reference"],
+        message: "expected the precharge plus its tolerance below the lowest system pressure",
+      });
+    }
+    if (!(g(p.starter.returnPressure) < g(p.starter.minUsefulPressure))) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["starter", "returnPressure"],
+        message: "expected a return pressure below the minimum useful pressure",
+      });
+    }
+    if (!(g(p.starter.minUsefulPressure) < g(sys.nominal))) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["starter", "minUsefulPressure"],
+        message: "expected a minimum useful pressure below the nominal system pressure",
+      });
     }
     const temps = p.startEnergy.map((r) => r.ambient);
     for (let i = 1; i < temps.length; i++) {

@@ -13,15 +13,16 @@
  * Conversion factors are exact definitions (NIST SP 811, appendix B): psi = 6894.757293168 Pa,
  * in = 0.0254 m, lbf = 4.4482216152605 N, US gallon = 231 in³; °F → K by (F − 32)·5/9 + 273.15.
  */
+import { M3_PER_IN3, M3_PER_US_GALLON, PA_PER_PSI } from "../physics/units.js";
 
 /** Thrown for a malformed quantity; the plan reader adds file, line and YAML path. */
 export class QuantityError extends Error {
   override name = "QuantityError";
 }
 
-export const PSI_PA = 6894.757293168;
-export const IN3_M3 = 0.0254 ** 3;
-const US_GALLON_M3 = 231 * IN3_M3;
+export const PSI_PA = PA_PER_PSI;
+export const IN3_M3 = M3_PER_IN3;
+const US_GALLON_M3 = M3_PER_US_GALLON;
 const FT_LBF_J = 0.3048 * 4.4482216152605;
 /** Average Gregorian month (365.2425 d / 12), used for loss rates given "per month". */
 export const MONTH_S = (365.2425 / 12) * 86400;

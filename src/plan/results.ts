@@ -98,6 +98,13 @@ export interface MonthRow {
   overnightDropReadingP90Pct: number | null;
   dailyRangeMeanC: number | null;
   dailyRangeP90C: number | null;
+  /** Starts counted (every start time of flown days, with an ambient value). */
+  starts: number;
+  /** Start-energy margin (delivered − required)/required in %, one unit and the option's count. */
+  energyMarginOneP10Pct: number | null;
+  energyMarginOneP50Pct: number | null;
+  energyMarginTwoP10Pct: number | null;
+  energyMarginTwoP50Pct: number | null;
 }
 
 export interface ClimateMonthRow {
@@ -109,6 +116,11 @@ export interface ClimateMonthRow {
   p90DailyRangeC: number | null;
 }
 
+/**
+ * Out-of-band share by local hour of day: a what-if reading of the trapped charge at every grid hour
+ * of the stays (what a preflight at that hour would show), against the band at the ambient
+ * temperature. `preflights` counts those hourly readings.
+ */
 export interface HourRow {
   hour: number; // local hour of day 0–23
   preflights: number;
@@ -155,6 +167,8 @@ export interface NitrogenStay {
   kgP50: number;
   kgP90: number;
   kgP95: number;
+  prechargeChecksP50: number;
+  handPumpStrokesP50: number;
 }
 
 export interface NitrogenBase {

@@ -1,0 +1,67 @@
+/**
+ * Stay windows on climate years (product brief §5): a schedule's real dates are mapped onto each year
+ * of record by month and day. A window that crosses 31 December runs into the next climate year;
+ * a real 29 February folds onto 28 February when the climate year has no 29 February (a leap climate
+ * year's own 29 February stands for a real 29 February; it is not visited by stays in common years).
+ */
+import { DateTime } from "luxon";
+
+export interface CivilDate {
+  year: number;
+  month: number; // 1–12
+  day: number;
+}
+
+export function parseCivil(iso: string): CivilDate {
+  return { year: Number(iso.slice(0, 4)), month: Number(iso.slice(5, 7)), day: Number(iso.slice(8, 10)) };
+}
+
+export function civilIso(d: CivilDate): string {
+  return `${String(d.year).padStart(4, "0")}-${String(d.month).padStart(2, "0")}-${String(d.day).padStart(2, "0")}`;
+}
+
+export function isLeapYear(y: number): boolean {
+  return (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
+}
+
+/** Real calendar days of a stay: from arrive up to, not including, depart. */
+export function stayDays(arrive: string, depart: string): CivilDate[] {
+  const out: CivilDate[] = [];
+  let d = DateTime.fromISO(arrive, { zone: "UTC" });
+  const end = DateTime.fromISO(depart, { zone: "UTC" });
+  while (d < end) {
+    out.push({ year: d.year, month: d.month, day: d.day });
+    d = d.plus({ days: 1 });
+  }
+  return out;
+}
+
+/** ISO weekday (Monday 1 … Sunday 7) of a real date. */
+export function isoWeekday(d: CivilDate): number {
+  return DateTime.utc(d.year, d.month, d.day).weekday;
+}
+
+/**
+ * The climate date standing for real date `d` of a stay that arrives in `arriveYear`, in the sample
+ * year `climateYear` (the year the arrival maps onto). 29 February goes to 28 February unless the
+ * climate year is a leap year.
+ */
+export function climateDate(d: CivilDate, arriveYear: number, climateYear: number): CivilDate {
+  const year = climateYear + (d.year - arriveYear);
+  if (d.month === 2 && d.day === 29 && !isLeapYear(year)) return { year, month: 2, day: 28 };
+  return { year, month: d.month, day: d.day };
+}
+
+/** Number of extra calendar years a stay runs into after its arrival year (0 for most stays). */
+export function yearSpan(arrive: string, depart: string): number {
+  const days = stayDays(arrive, depart);
+  const last = days[days.length - 1]!;
+  return last.year - Number(arrive.slice(0, 4));
+}
+
+/** Climate years Y such that Y … Y + span all lie in [from, to]. */
+export function candidateYears(from: number, to: number, span: number): number[] {
+  const out: number[] = [];
+  for (let y = from; y + span <= to; y++) out.push(y);
+  return out;
+}

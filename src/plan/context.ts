@@ -1,0 +1,171 @@
+/**
+ * Everything the hour-by-hour simulation needs about one accumulator profile at one base, in SI
+ * absolute units: the plan's gauge pressures become absolute with the base's atmospheric pressure
+ * (product brief §3: gauge = absolute − local atmospheric pressure).
+ */
+import {
+  type AccumulatorGeometry,
+  type BandInputs,
+  type FluidProps,
+  gasAmountMol,
+  type PumpSpec,
+  prechargePressureAbsPa,
+  readingBand,
+  type StarterSpec,
+} from "../physics/accumulator.js";
+import type { GasModel } from "../physics/nitrogen.js";
+import type { PointPressure, ProfileInput } from "./planFile.js";
+
+export function absPa(p: PointPressure, atmPa: number): number {
+  return p.isGauge ? p.pa + atmPa : p.pa;
+}
+export function gaugePa(p: PointPressure, atmPa: number): number {
+  return p.isGauge ? p.pa : p.pa - atmPa;
+}
+
+/** Reading band tabulated against temperature and interpolated linearly (it is smooth in T). */
+export interface BandTable {
+  minK: number;
+  stepK: number;
+  low: Float64Array;
+  nominal: Float64Array;
+  high: Float64Array;
+}
+
+export interface ProfileContext {
+  name: string;
+  model: GasModel;
+  geometry: AccumulatorGeometry;
+  fluid: FluidProps;
+  atmPa: number;
+  /** Gas amount per unit fixed by the precharge reference (piston on the fluid-side stop, V0). */
+  nominalMol: number;
+  /** Amounts through the tolerance lines (reference ± tolerance at the reference temperature). */
+  lowMol: number;
+  highMol: number;
+  refTempK: number;
+  systemNominalAbsPa: number;
+  band: BandInputs;
+  bandTable: BandTable;
+  starter: StarterSpec;
+  energyTable: { x: number; y: number }[];
+  /** Units fitted in this configuration (1, or the option's count) and their pump timer. */
+  count: number;
+  optionCount: number;
+  pump: PumpSpec;
+  handPump: { displacementM3: number; efficiency: number };
+  tauS: number;
+  /** Nominal gas loss per unit, mol/s (the profile's pressure rate at the reference temperature and V0). */
+  gasLossMolS: number;
+}
+
+const BAND_MIN_K = 203.15;
+const BAND_MAX_K = 373.15;
+const BAND_STEP_K = 0.5;
+
+export function buildBandTable(model: GasModel, geometry: AccumulatorGeometry, band: BandInputs): BandTable {
+  const n = Math.round((BAND_MAX_K - BAND_MIN_K) / BAND_STEP_K) + 1;
+  const t: BandTable = {
+    minK: BAND_MIN_K,
+    stepK: BAND_STEP_K,
+    low: new Float64Array(n),
+    nominal: new Float64Array(n),
+    high: new Float64Array(n),
+  };
+  for (let i = 0; i < n; i++) {
+    const b = readingBand(model, geometry, band, BAND_MIN_K + i * BAND_STEP_K);
+    t.low[i] = b.lowPct;
+    t.nominal[i] = b.nominalPct;
+    t.high[i] = b.highPct;
+  }
+  return t;
+}
+
+/** Band at tempK by linear interpolation in the table (held at its ends). */
+export function bandAt(t: BandTable, tempK: number, which: "low" | "nominal" | "high"): number {
+  const arr = t[which];
+  const x = (tempK - t.minK) / t.stepK;
+  if (!(x > 0)) return arr[0]!;
+  const i = Math.floor(x);
+  if (i >= arr.length - 1) return arr[arr.length - 1]!;
+  const f = x - i;
+  return arr[i]! + f * (arr[i + 1]! - arr[i]!);
+}
+
+/** Precharge line of the nominal amount at tempK (absolute). */
+export function prechargeLineAbsPa(ctx: ProfileContext, tempK: number, amountMol = ctx.nominalMol): number {
+  return prechargePressureAbsPa(ctx.model, amountMol, tempK, ctx.geometry.v0M3);
+}
+
+/** Builds the context of one profile at a base whose atmospheric pressure is atmPa. */
+export function profileContext(
+  profile: ProfileInput,
+  model: GasModel,
+  atmPa: number,
+  coldStartOption: boolean,
+  bandTableCache?: Map<string, BandTable>,
+): ProfileContext {
+  const geometry = { v0M3: profile.accumulator.gasVolumeEmpty, vminM3: profile.accumulator.gasVolumeFull };
+  const ref = profile.precharge.reference;
+  const refAbs = absPa(ref.pressure, atmPa);
+  const tol = profile.precharge.tolerance;
+  const nominalMol = gasAmountMol(model, refAbs, ref.tempK, geometry.v0M3);
+  const lowMol = gasAmountMol(model, Math.max(refAbs - tol, 1), ref.tempK, geometry.v0M3);
+  const highMol = gasAmountMol(model, refAbs + tol, ref.tempK, geometry.v0M3);
+  // Gas loss: a pressure per second at the reference temperature, as an amount (central difference).
+  const dP = Math.min(1e5, refAbs / 10);
+  const molPerPa =
+    (gasAmountMol(model, refAbs + dP, ref.tempK, geometry.v0M3) -
+      gasAmountMol(model, refAbs - dP, ref.tempK, geometry.v0M3)) /
+    (2 * dP);
+  const band: BandInputs = {
+    refGaugePa: gaugePa(ref.pressure, atmPa),
+    refTempK: ref.tempK,
+    tolerancePa: tol,
+    systemLowGaugePa: gaugePa(profile.system.low, atmPa),
+    systemNominalGaugePa: gaugePa(profile.system.nominal, atmPa),
+    systemHighGaugePa: gaugePa(profile.system.high, atmPa),
+    atmPa,
+  };
+  const bandKey = `${profile.name}|${atmPa}|${model.kind}`;
+  let bandTable = bandTableCache?.get(bandKey);
+  if (bandTable === undefined) {
+    bandTable = buildBandTable(model, geometry, band);
+    bandTableCache?.set(bandKey, bandTable);
+  }
+  const count = coldStartOption ? profile.coldStartOption.count : 1;
+  return {
+    name: profile.name,
+    model,
+    geometry,
+    fluid: {
+      alphaPerK: profile.fluid.expansionPerK,
+      bulkModulusPa: profile.fluid.bulkModulus,
+      lineVolumeM3: profile.fluid.lineVolume,
+    },
+    atmPa,
+    nominalMol,
+    lowMol,
+    highMol,
+    refTempK: ref.tempK,
+    systemNominalAbsPa: absPa(profile.system.nominal, atmPa),
+    band,
+    bandTable,
+    starter: {
+      minUsefulAbsPa: absPa(profile.starter.minUsefulPressure, atmPa),
+      returnAbsPa: absPa(profile.starter.returnPressure, atmPa),
+      isothermal: profile.starter.expansion === "isothermal",
+    },
+    energyTable: profile.startEnergy.map((r) => ({ x: r.ambient, y: r.energy })),
+    count,
+    optionCount: profile.coldStartOption.count,
+    pump: {
+      curve: profile.pump.curve.map((r) => ({ gaugePa: gaugePa(r.pressure, atmPa), flowM3S: r.flow })),
+      timerS: coldStartOption ? profile.coldStartOption.timer : profile.pump.timer,
+      atmPa,
+    },
+    handPump: { displacementM3: profile.handPump.displacement, efficiency: profile.handPump.efficiency },
+    tauS: profile.thermalTimeConstant,
+    gasLossMolS: profile.gasLoss.rate * molPerPa,
+  };
+}

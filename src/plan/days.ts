@@ -1,0 +1,115 @@
+/**
+ * Local days of one stay mapped onto one climate year (product brief §5), with every instant the
+ * simulation needs as UTC milliseconds: local midnights, start times, hangar hours. Daylight saving is
+ * left to luxon; days of 23 or 25 hours keep their true length.
+ */
+import { DateTime } from "luxon";
+import { type CivilDate, civilIso, climateDate, isoWeekday } from "./calendar.js";
+
+export const HOUR_MS = 3_600_000;
+
+export interface DayPlan {
+  /** Real date of the schedule (YYYY-MM-DD). */
+  realIso: string;
+  /** Climate date it stands for. */
+  climateIso: string;
+  climateYear: number;
+  /** Local calendar month of the climate date, 1–12. */
+  month: number;
+  flown: boolean;
+  midnightUtcMs: number;
+  nextMidnightUtcMs: number;
+  /** Start instants (UTC ms) on flown days, ascending; the first is the preflight. */
+  startsUtcMs: number[];
+  /** Local hour of day of each start. */
+  startHours: number[];
+  /** Hangar intervals [from, to) in UTC ms. */
+  hangar: [number, number][];
+}
+
+export interface DayOptions {
+  timeZone: string;
+  startMinutes: number[];
+  flownWeekdays: ReadonlySet<number>;
+  hangar: { inMin: number; outMin: number } | null;
+}
+
+/** Cache of local-midnight instants per (zone, date): luxon is the slow part of building days. */
+const midnightCache = new Map<string, number>();
+
+function localInstant(d: CivilDate, minutes: number, zone: string): number {
+  if (minutes === 0) {
+    const key = `${zone}|${d.year}|${d.month}|${d.day}`;
+    const hit = midnightCache.get(key);
+    if (hit !== undefined) return hit;
+    const ms = DateTime.fromObject({ year: d.year, month: d.month, day: d.day }, { zone }).toMillis();
+    if (midnightCache.size > 500_000) midnightCache.clear();
+    midnightCache.set(key, ms);
+    return ms;
+  }
+  return DateTime.fromObject(
+    { year: d.year, month: d.month, day: d.day, hour: Math.floor(minutes / 60), minute: minutes % 60 },
+    { zone },
+  ).toMillis();
+}
+
+function nextDay(d: CivilDate): CivilDate {
+  const t = new Date(Date.UTC(d.year, d.month - 1, d.day + 1));
+  return { year: t.getUTCFullYear(), month: t.getUTCMonth() + 1, day: t.getUTCDate() };
+}
+
+/** Instant of local clock time `minutes` on date d: fast path on 24-hour days. */
+function instantOn(
+  d: CivilDate,
+  midnight: number,
+  dayLengthMs: number,
+  minutes: number,
+  zone: string,
+): number {
+  return dayLengthMs === 24 * HOUR_MS ? midnight + minutes * 60_000 : localInstant(d, minutes, zone);
+}
+
+/** Local hour of day of a UTC instant inside the day. */
+export function localHourOf(day: DayPlan, utcMs: number, zone: string): number {
+  if (day.nextMidnightUtcMs - day.midnightUtcMs === 24 * HOUR_MS) {
+    return Math.floor((utcMs - day.midnightUtcMs) / HOUR_MS);
+  }
+  return DateTime.fromMillis(utcMs, { zone }).hour;
+}
+
+/** The days of a stay (real dates) on climate year `climateYear` (the year its arrival maps onto). */
+export function buildDays(realDays: CivilDate[], climateYear: number, opts: DayOptions): DayPlan[] {
+  const arriveYear = realDays[0]!.year;
+  return realDays.map((real) => {
+    const c = climateDate(real, arriveYear, climateYear);
+    const midnight = localInstant(c, 0, opts.timeZone);
+    const next = localInstant(nextDay(c), 0, opts.timeZone);
+    const len = next - midnight;
+    const flown = opts.flownWeekdays.has(isoWeekday(real));
+    const startsUtcMs = flown
+      ? opts.startMinutes.map((m) => instantOn(c, midnight, len, m, opts.timeZone))
+      : [];
+    const hangar: [number, number][] = [];
+    if (opts.hangar !== null) {
+      const inMs = instantOn(c, midnight, len, opts.hangar.inMin, opts.timeZone);
+      const outMs = instantOn(c, midnight, len, opts.hangar.outMin, opts.timeZone);
+      if (opts.hangar.inMin > opts.hangar.outMin) {
+        hangar.push([midnight, outMs], [inMs, next]);
+      } else if (opts.hangar.inMin < opts.hangar.outMin) {
+        hangar.push([inMs, outMs]);
+      }
+    }
+    return {
+      realIso: civilIso(real),
+      climateIso: civilIso(c),
+      climateYear: c.year,
+      month: c.month,
+      flown,
+      midnightUtcMs: midnight,
+      nextMidnightUtcMs: next,
+      startsUtcMs,
+      startHours: opts.startMinutes.map((m) => Math.floor(m / 60)),
+      hangar,
+    };
+  });
+}

@@ -1,0 +1,78 @@
+/** The methods the report lists (product brief §3–§5), each with its published source. */
+import type { MethodNote } from "./results.js";
+import { QUANTILE_METHOD } from "./stats.js";
+
+export const METHODS: MethodNote[] = [
+  {
+    name: "Nitrogen equation of state",
+    source: "Span, Lemmon, Jacobsen, Wagner & Yokozeki (2000), J. Phys. Chem. Ref. Data 29(6):1361",
+    description:
+      "Reference Helmholtz equation for nitrogen; the simulation uses an interpolation table of it (error below 0.05 %). The ideal comparison keeps the real cp0(T) and drops the residual part.",
+  },
+  {
+    name: "Atmospheric pressure",
+    source: "ISO 2533:1975 standard atmosphere (troposphere)",
+    description:
+      "Gauge = absolute − local atmospheric pressure: the station's mean reported station pressure where the records carry it, else the standard atmosphere at the station elevation. Profile curves in the results use 101.325 kPa.",
+  },
+  {
+    name: "Accumulator temperature",
+    source: "First-order lag, exact solution for a constant ambient over each step",
+    description:
+      "T ← Ta + (T − Ta)·exp(−Δt/τ), with Ta the ambient (or hangar) temperature at the end of each step; τ = 0 gives the ambient.",
+  },
+  {
+    name: "Trapped charge",
+    source: "Product brief §3 fluid model",
+    description:
+      "Between recharges the fluid is trapped: V_f = V_f,c·(1 + α(T − T_c) − (P − P_c)/K); gas volume plus fluid volume constant; gas loss lowers the amount continuously.",
+  },
+  {
+    name: "Preflight and servicing",
+    source: "Product brief §5",
+    description:
+      "The reading (physics at the lagged accumulator temperature) is compared with the band for the ambient temperature a technician reads. Servicing sets the gas, on the fluid-side stop, to the precharge line for the ambient temperature while the gas is at the lagged temperature; the hand pump then recharges to nominal system pressure.",
+  },
+  {
+    name: "Start energy",
+    source: "Isentropic real-gas expansion (Span et al. 2000) or isothermal, brief §3",
+    description:
+      "Hydraulic energy ∫(P − P_return) dV until the piston reaches its stop or the pressure falls to the starter's minimum; n identical units deliver n times one unit's energy. The requirement is interpolated linearly in ambient temperature and held beyond the table's ends.",
+  },
+  {
+    name: "Recharge",
+    source: "Pump flow-versus-pressure table, isothermal compression, brief §3",
+    description:
+      "The pump recharges within its run timer (the option's timer when fitted); the charge stays where the timer leaves it.",
+  },
+  {
+    name: "Overnight drop",
+    source: "Product brief §5",
+    description:
+      "Value at the day's last recharge − value at the next day's first preflight (only when the next calendar day is flown), assigned to the morning's local month, for accumulator temperature, gas pressure and reading.",
+  },
+  {
+    name: "Quantiles",
+    source: "Hyndman & Fan (1996), The American Statistician 50(4):361",
+    description: `One method everywhere: ${QUANTILE_METHOD}.`,
+  },
+  {
+    name: "1-in-10-year coldest morning",
+    source:
+      "Gumbel (1958) Statistics of Extremes; method of moments as in Chow, Maidment & Mays (1988) Applied Hydrology §12.2",
+    description:
+      "Gumbel distribution fitted by the method of moments to the negated annual minima of the first-preflight ambient temperature (one value per climate year the stays map onto); needs two or more years.",
+  },
+  {
+    name: "Nitrogen cylinders",
+    source: "Cascade transfer, brief §3",
+    description:
+      "Per base and climate year the servicings of all stays draw, in time order, from one pool of cylinders, lowest pressure first, isothermal at the site temperature; a new full cylinder is opened when the pool cannot reach the target; the hose is vented at each disconnect. Quantiles are over climate years.",
+  },
+  {
+    name: "Climate years",
+    source: "Product brief §4–§5",
+    description:
+      "Each stay's month-day window is mapped onto every year of record (a window across 31 December runs into the next year; a real 29 February folds onto 28 February when the climate year has none). A year counts at a base when every stay there has at least the plan's share of its window hours present after gap filling.",
+  },
+];

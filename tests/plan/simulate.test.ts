@@ -1,0 +1,115 @@
+import { describe, expect, it } from "vitest";
+import { tabulatedGas } from "../../src/physics/gasTable.js";
+import { realGas } from "../../src/physics/nitrogen.js";
+import { stayDays } from "../../src/plan/calendar.js";
+import { profileContext } from "../../src/plan/context.js";
+import { buildDays } from "../../src/plan/days.js";
+import { runPlan } from "../../src/plan/engine.js";
+import { PSI_PA } from "../../src/plan/quantities.js";
+import { simulateStayYear } from "../../src/plan/simulate.js";
+import { fixturePlan, HOUR_MS, syntheticClimate, type Tree } from "./helpers.js";
+
+const ATM = 101325;
+
+/** The 1 L unit of the physics tests (issue 4): 1450 psig at 70 °F, 3000 psig, α 8e-4/K, K 1.5 GPa, 0.2 L line. */
+function oneLitreUnit(t: Tree) {
+  const p = t.profiles[0];
+  p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
+  p.precharge = { reference: "1450 psig @ 70 F", tolerance: "50 psi" };
+  p.system = { low: "2850 psig", nominal: "3000 psig", high: "3150 psig" };
+  p.fluid = { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" };
+  p.thermalTimeConstant = "0 s";
+  p.gasLoss = { rate: "0 psi/month", spread: 0 };
+  // A pump that always finishes within its timer, and a requirement far below delivery.
+  p.pump = {
+    curve: [
+      { pressure: "0 psig", flow: "100 L/min" },
+      { pressure: "3000 psig", flow: "100 L/min" },
+    ],
+    timer: "10 min",
+  };
+  p.startEnergy = [{ ambient: "-60 C", energy: "0.1 kJ" }];
+  t.operations.weekdays = 7;
+  t.operations.weekdays = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
+  delete t.bases[0].hangar;
+}
+
+describe("simulation physics identities", () => {
+  it("constant temperature, no gas loss, complete recharge: no drop, no out-of-band, no short start", () => {
+    // Physics identity (product brief §3): at one temperature with the fluid trapped and no gas loss,
+    // the state after each recharge is the same equilibrium, so nothing moves overnight.
+    const plan = fixturePlan((t) => {
+      oneLitreUnit(t);
+      t.profiles[0].thermalTimeConstant = "2 h";
+      t.operations.startTimes = ["06:30", "13:00", "18:00"];
+    });
+    const from = Date.UTC(2014, 0, 1);
+    const climate = new Map([["North Field", syntheticClimate(() => 5, from, Date.UTC(2015, 0, 1))]]);
+    const stays = [
+      {
+        aircraft: "A1",
+        base: "North Field",
+        arrive: "2027-01-04",
+        depart: "2027-02-15",
+        coldStartOption: false,
+        profile: "standard",
+        line: 2,
+      },
+    ];
+    const { results } = runPlan(plan, stays, climate);
+    const b = results.bases[0]!;
+    const jan = b.months[0]!;
+    const feb = b.months[1]!;
+    expect(jan.preflights + feb.preflights).toBe(42);
+    for (const m of [jan, feb]) {
+      expect(m.belowBandPct).toBe(0);
+      expect(m.aboveBandPct).toBe(0);
+      expect(m.shortPctOne).toBe(0);
+      expect(Math.abs(m.overnightDropKPaP90!)).toBeLessThan(1e-3);
+      expect(Math.abs(m.overnightDropTempP90C!)).toBeLessThan(1e-9);
+      expect(Math.abs(m.overnightDropReadingP90Pct!)).toBeLessThan(1e-6);
+    }
+    expect(b.outOfBandByHour.every((h) => h.outOfBandPct === null || h.outOfBandPct === 0)).toBe(true);
+    expect(b.nitrogen.kgP95).toBe(0);
+  });
+
+  it("20 °C at the last recharge, −20 °C by morning, lag zero: morning gas 2311.6 ± 1 psig", () => {
+    // Issue 4 / physics tests: computed independently from the equation of state (Span et al. 2000) and
+    // the brief's fluid model: 2311.6 psig ± 1.
+    const plan = fixturePlan((t) => {
+      oneLitreUnit(t);
+      t.operations.startTimes = ["07:00", "18:00"];
+    });
+    const day2 = Date.UTC(2014, 0, 2);
+    const climate = syntheticClimate(
+      (ms) => (ms < day2 - 4 * HOUR_MS ? 20 : -20),
+      Date.UTC(2014, 0, 1),
+      Date.UTC(2014, 0, 4),
+    );
+    const ctx = profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM, false);
+    const days = buildDays(stayDays("2027-01-01", "2027-01-03"), 2014, {
+      timeZone: "UTC",
+      startMinutes: plan.operations.startTimes,
+      flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
+      hangar: null,
+    });
+    const out = simulateStayYear({
+      ctx,
+      series: climate.series,
+      timeZone: "UTC",
+      days,
+      gasLossFactor: 1,
+      hangarTempK: null,
+      prechargeCheckDays: 30,
+      policy: "log",
+    });
+    expect(out.preflights).toHaveLength(2);
+    const morning = out.preflights[1]!;
+    expect(morning.ambientC).toBe(-20);
+    expect(Math.abs((morning.gasKPaGauge * 1000) / PSI_PA - 2311.6)).toBeLessThanOrEqual(1);
+    // The overnight drop is 3000 psig at the recharge minus the morning value (definition, brief §5).
+    expect(out.drops).toHaveLength(1);
+    expect(Math.abs((out.drops[0]!.kPa * 1000) / PSI_PA - (3000 - 2311.6))).toBeLessThanOrEqual(1);
+    expect(out.drops[0]!.tempC).toBeCloseTo(40, 9);
+  });
+});
