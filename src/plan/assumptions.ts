@@ -107,12 +107,12 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
     a(["starter", "minUsefulPressure"], "starter minimum useful pressure", pp(p.starter.minUsefulPressure));
     a(["starter", "returnPressure"], "starter return pressure", pp(p.starter.returnPressure));
     a(["starter", "expansion"], "gas expansion during a start", p.starter.expansion);
-    p.startEnergy.forEach((r, j) =>
-      a(["startEnergy", j], `required start energy at ${formatTemp(r.ambient, u)}`, formatEnergy(r.energy)),
-    );
-    p.pump.curve.forEach((r, j) =>
-      a(["pump", "curve", j], `pump flow at ${pp(r.pressure)}`, formatFlow(r.flow, u)),
-    );
+    p.startEnergy.forEach((r, j) => {
+      a(["startEnergy", j], `required start energy at ${formatTemp(r.ambient, u)}`, formatEnergy(r.energy));
+    });
+    p.pump.curve.forEach((r, j) => {
+      a(["pump", "curve", j], `pump flow at ${pp(r.pressure)}`, formatFlow(r.flow, u));
+    });
     a(["pump", "timer"], "pump run timer", formatTime(p.pump.timer));
     a(["handPump", "displacement"], "hand-pump displacement", formatVolume(p.handPump.displacement, u));
     a(["handPump", "efficiency"], "hand-pump volumetric efficiency", String(p.handPump.efficiency));
