@@ -86,6 +86,7 @@ export interface IsdLineState {
   lastKind: number;
   lastCall: Uint8Array; // 5 bytes
   lastCallText: string | null;
+  lineEnd: number; // end of the line being read
 }
 
 export function createIsdLineState(file: ParsedFile): IsdLineState {
@@ -98,13 +99,19 @@ export function createIsdLineState(file: ParsedFile): IsdLineState {
     lastKind: 0,
     lastCall: new Uint8Array(5),
     lastCallText: null,
+    lineEnd: 0,
   };
 }
 
 function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, field: string, why: string) {
-  // Attribute the line to the station its positions 5-15 name, if they read as one already seen.
+  // Attribute the line to the station its positions 5-15 name, if that is a station of the file;
+  // otherwise resolveUnknownStations gives it the station of the line before.
   let station = UNKNOWN_STATION;
   if (st.lastStation >= 0 && sameBytes(st.lastId, b, s + 4, 11)) station = st.lastStation;
+  else if (st.lineEnd >= s + 15 && printable(b, s + 4, 11)) {
+    const known = st.file.stations.indexOf(`${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
+    if (known >= 0) station = known;
+  }
   pushMalformed(st.file.records, station, lineNo);
   noteMalformed(st.file, lineNo, field, why);
 }
@@ -115,6 +122,7 @@ function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, f
  */
 export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: number, lineNo: number): void {
   const len = e - s;
+  st.lineEnd = e;
   if (len < ISD_FIXED_LENGTH) {
     malformed(st, b, s, lineNo, "length", `line has ${len} characters, the fixed part needs 105`);
     return;
@@ -139,17 +147,9 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
     malformed(st, b, s, lineNo, "characters", "non-printable bytes in the fixed part");
     return;
   }
-  // Station: USAF (POS 5-10) + WBAN (POS 11-15).
-  let station = st.lastStation;
-  if (station < 0 || !sameBytes(st.lastId, b, s + 4, 11)) {
-    if (digits(b, s + 10, 5) < 0) {
-      malformed(st, b, s, lineNo, "WBAN", "expected 5 digits at positions 11-15");
-      return;
-    }
-    station = stationIndex(st.file, `${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
-    st.lastId.set(b.subarray(s + 4, s + 15));
-    st.lastStation = station;
-    st.lastCallText = null;
+  if (digits(b, s + 10, 5) < 0) {
+    malformed(st, b, s, lineNo, "WBAN", "expected 5 digits at positions 11-15");
+    return;
   }
   // Date and time (POS 16-23, 24-27), UTC.
   const year = digits(b, s + 15, 4);
@@ -191,6 +191,14 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
   if (Number.isNaN(dew) || slp < 0) {
     malformed(st, b, s, lineNo, "DEW/SLP", "expected dew point and sea-level pressure digits (POS 94-104)");
     return;
+  }
+  // Station: USAF (POS 5-10) + WBAN (POS 11-15), created only once a line of it reads well.
+  let station = st.lastStation;
+  if (station < 0 || !sameBytes(st.lastId, b, s + 4, 11)) {
+    station = stationIndex(st.file, `${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
+    st.lastId.set(b.subarray(s + 4, s + 15));
+    st.lastStation = station;
+    st.lastCallText = null;
   }
   // Report type (POS 42-46).
   if (st.lastTypeIdx < 0 || !sameBytes(st.lastType, b, s + 41, 5)) {

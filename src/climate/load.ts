@@ -99,7 +99,7 @@ export function buildStations(
         where,
         undefined,
         "station",
-        `no coordinates for station ${id}: its files carry none (ISD-Lite); give a station-history CSV that lists it`,
+        `no coordinates for station ${id}: its records carry none (ISD-Lite does not); give a station-history CSV that lists it`,
       );
     if (elevationM === null)
       throw inputError(

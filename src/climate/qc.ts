@@ -42,7 +42,7 @@ export interface QcResult {
   keptSpecial: Uint8Array;
   extremes: Extremes | null;
   meanStationPressureHpa: number | null;
-  /** Most frequent position among the kept records (null when the records carry none, as in ISD-Lite). */
+  /** Most frequent position of the station's observations (null when they carry none, as in ISD-Lite). */
   position: { latMilli: number; lonMilli: number; elevM: number } | null;
   callLetters: string | null;
   name: string | null;
@@ -127,6 +127,7 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
   const yearOf = yearCache();
   // Pass 1: count positions per station-year among records that are observations.
   const positionsByYear = new Map<number, Map<number, number>>();
+  const allPositions = new Map<number, number>();
   let total = 0;
   for (const { file, station } of parts) {
     const c = file.records;
@@ -146,6 +147,7 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
       }
       const key = positionKey(lat, lon, c.elevM[i]!);
       m.set(key, (m.get(key) ?? 0) + 1);
+      allPositions.set(key, (allPositions.get(key) ?? 0) + 1);
     }
   }
   const siteByYear = new Map<number, { latMilli: number; lonMilli: number; elevM: number }>();
@@ -157,7 +159,6 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
   const keptSpecial = new Uint8Array(total);
   let nKept = 0;
   const seen = new Set<number>();
-  const keptPositions = new Map<number, number>();
   let presSum = 0;
   let presN = 0;
   const calls = new Map<string, number>();
@@ -216,10 +217,6 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
         keptTemp[nKept] = temp;
         keptSpecial[nKept] = kind === KIND_SPECIAL ? 1 : 0;
         nKept++;
-        if (lat !== MISSING_LAT && lon !== MISSING_LON) {
-          const pk = positionKey(lat, lon, elev);
-          keptPositions.set(pk, (keptPositions.get(pk) ?? 0) + 1);
-        }
         const p = c.stationPresTenths[i]!;
         if (p !== MISSING_PRESSURE) {
           presSum += p;
@@ -238,7 +235,7 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
     outTemp[j] = keptTemp[k]!;
     outSpecial[j] = keptSpecial[k]!;
   }
-  const posKey = modeOf(keptPositions);
+  const posKey = modeOf(allPositions);
   let callLetters: string | null = null;
   let callN = 0;
   for (const [k, n] of calls)

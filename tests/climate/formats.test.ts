@@ -1,0 +1,123 @@
+/**
+ * One real day of the Chicago sample written out, inside the test, in the ISD-Lite and global-hourly CSV
+ * layouts (product brief §2) gives the same hourly series as the full format; plain and gzip alike.
+ */
+import { writeFileSync } from "node:fs";
+import { afterAll, describe, expect, it } from "vitest";
+import { HOUR_MS, loadClimate, readClimateFile } from "../../src/climate/index.js";
+import { HAVE_SAMPLES, sampleLines, tempDir, writeLines } from "./helpers.js";
+
+const noCache = { gapHours: 3, cacheDir: null };
+const tmp = tempDir();
+afterAll(() => tmp.cleanup());
+
+/** 2014-01-06 (the cold day) of the Chicago sample, plus the evening before for the first hour's window. */
+function realDay(): string[] {
+  return sampleLines("725300-94846-2014.gz").filter((l) => {
+    const d = l.slice(15, 23);
+    return d === "20140106" || (d === "20140105" && l.slice(23, 25) === "23");
+  });
+}
+
+/** A full-format line as a global-hourly CSV row, field by field from the format document's positions. */
+function csvRow(l: string): string {
+  const q = (s: string) => `"${s}"`;
+  const date = `${l.slice(15, 19)}-${l.slice(19, 21)}-${l.slice(21, 23)}T${l.slice(23, 25)}:${l.slice(25, 27)}:00`;
+  const ma1 = l.indexOf("MA1", 105);
+  const ma1Cell =
+    ma1 > 0 ? `${l.slice(ma1 + 3, ma1 + 8)},${l[ma1 + 8]},${l.slice(ma1 + 9, ma1 + 14)},${l[ma1 + 14]}` : "";
+  return [
+    q(l.slice(4, 15)),
+    q(date),
+    q(l[27]!),
+    q((Number(l.slice(28, 34)) / 1000).toFixed(5)),
+    q((Number(l.slice(34, 41)) / 1000).toFixed(5)),
+    q(String(Number(l.slice(46, 51)))),
+    q("CHICAGO O'HARE INTERNATIONAL AIRPORT, IL US"),
+    q(l.slice(41, 46)),
+    q(l.slice(51, 56)),
+    q(`${l.slice(87, 92)},${l[92]}`),
+    q(`${l.slice(93, 98)},${l[98]}`),
+    q(`${l.slice(99, 104)},${l[104]}`),
+    q(ma1Cell),
+  ].join(",");
+}
+const CSV_HEADER =
+  '"STATION","DATE","SOURCE","LATITUDE","LONGITUDE","ELEVATION","NAME","REPORT_TYPE","CALL_SIGN","TMP","DEW","SLP","MA1"';
+
+describe.skipIf(!HAVE_SAMPLES)("ISD-Lite and CSV layouts", () => {
+  it("the CSV layout gives the full format's series, QC counts and extremes", async () => {
+    const day = realDay();
+    const full = writeLines(`${tmp.dir}/full.txt`, day);
+    const csv = writeLines(`${tmp.dir}/day.csv`, [CSV_HEADER, ...day.map(csvRow)], true);
+    expect((await readClimateFile(csv)).format).toBe("csv");
+    const [a] = await loadClimate([full], noCache);
+    const [b] = await loadClimate([csv], noCache);
+    expect(b!.meta.id).toBe("725300-94846");
+    expect(b!.meta.name).toBe("CHICAGO O'HARE INTERNATIONAL AIRPORT, IL US");
+    expect(b!.series.startUtcMs).toBe(a!.series.startUtcMs);
+    expect(Array.from(b!.series.tempC)).toEqual(Array.from(a!.series.tempC));
+    expect(b!.qc).toEqual(a!.qc);
+    expect(b!.extremes).toEqual(a!.extremes);
+    // −26.7 °C at 13:51 UTC that day (real file; see samples.test.ts).
+    expect(b!.extremes!.minC).toBe(-26.7);
+    expect(b!.meanStationPressureHpa).toBeCloseTo(a!.meanStationPressureHpa!, 9);
+  });
+
+  it("the ISD-Lite layout (station from the file name, position from the station history) matches", async () => {
+    const [a] = await loadClimate([writeLines(`${tmp.dir}/full2.txt`, realDay())], noCache);
+    // One Lite line per grid hour of the full-format series: year month day hour temp dew slp ... (−9999 missing).
+    const lite: string[] = [];
+    for (let i = 0; i < a!.series.tempC.length; i++) {
+      if (a!.series.filled[i]) continue; // Lite holds observations only
+      const d = new Date(a!.series.startUtcMs + i * HOUR_MS);
+      const v = a!.series.tempC[i]!;
+      const t = Number.isNaN(v) ? -9999 : Math.round(v * 10);
+      const cells = [
+        d.getUTCFullYear(),
+        d.getUTCMonth() + 1,
+        d.getUTCDate(),
+        d.getUTCHours(),
+        t,
+        -9999,
+        -9999,
+        250,
+        31,
+        4,
+        0,
+        -9999,
+      ];
+      lite.push(cells.map((c, k) => String(c).padStart(k === 0 ? 4 : k < 4 ? 2 : 5)).join(" "));
+    }
+    const litePath = writeLines(`${tmp.dir}/725300-94846-2014`, lite, true);
+    expect((await readClimateFile(litePath)).format).toBe("isd-lite");
+    const history = `${tmp.dir}/history.csv`;
+    writeFileSync(
+      history,
+      '"USAF","WBAN","STATION NAME","CTRY","STATE","ICAO","LAT","LON","ELEV(M)","BEGIN","END"\n' +
+        // Position as in the sample's FM-15 records (real file); name from memory.
+        '"725300","94846","CHICAGO O\'HARE INTERNATIONAL AIRPORT","US","IL","KORD","+41.995","-087.934","+0205.0","19461001","20250101"\n',
+    );
+    const [b] = await loadClimate([litePath], { ...noCache, stationHistoryCsv: history });
+    expect(b!.meta).toMatchObject({ id: "725300-94846", lat: 41.995, lon: -87.934, elevationM: 205 });
+    expect(b!.meta.timeZone).toBe("America/Chicago");
+    expect(b!.series.startUtcMs).toBe(a!.series.startUtcMs);
+    expect(Array.from(b!.series.tempC)).toEqual(Array.from(a!.series.tempC));
+    expect(Array.from(b!.series.filled)).toEqual(Array.from(a!.series.filled));
+  });
+
+  it("an ISD-Lite file without coordinates anywhere is an input error naming the file", async () => {
+    const p = writeLines(`${tmp.dir}/725300-94846-2015`, [
+      "2015  1  1  0   -83  -156 10227   260    46     0     0 -9999",
+    ]);
+    await expect(loadClimate([p], noCache)).rejects.toThrow(/725300-94846-2015.*station-history/);
+  });
+
+  it("plain and gzip copies of a real file read the same (gzip told by its magic bytes)", async () => {
+    const day = realDay();
+    const [plain] = await loadClimate([writeLines(`${tmp.dir}/p.dat`, day)], noCache);
+    const [gz] = await loadClimate([writeLines(`${tmp.dir}/g.dat`, day, true)], noCache);
+    expect(gz!.qc).toEqual(plain!.qc);
+    expect(Array.from(gz!.series.tempC)).toEqual(Array.from(plain!.series.tempC));
+  });
+});
