@@ -1,0 +1,113 @@
+/**
+ * `coldsoak climate`: the `--json` contract and exit codes of the product brief (section 6).
+ */
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it, vi } from "vitest";
+import { main } from "../../src/cli/main.js";
+import { HAVE_SAMPLES, sample } from "../climate/helpers.js";
+
+const dir = mkdtempSync(join(tmpdir(), "coldsoak-cli-climate-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
+  let out = "";
+  let err = "";
+  const o = vi.spyOn(process.stdout, "write").mockImplementation((c) => {
+    out += String(c);
+    return true;
+  });
+  const e = vi.spyOn(process.stderr, "write").mockImplementation((c) => {
+    err += String(c);
+    return true;
+  });
+  try {
+    const code = await main(args);
+    return { code, out, err };
+  } finally {
+    o.mockRestore();
+    e.mockRestore();
+  }
+}
+
+describe.skipIf(!HAVE_SAMPLES)("coldsoak climate on a real sample", () => {
+  it("--json gives the contract's fields, extremes in °C whatever the units", async () => {
+    const r = await run(["climate", sample("725300-94846-2014.gz"), "--json", "--no-cache", "--units", "us"]);
+    expect(r.code).toBe(0);
+    const doc = JSON.parse(r.out);
+    expect(doc.stations).toHaveLength(1);
+    const s = doc.stations[0];
+    for (const key of [
+      "id",
+      "name",
+      "lat",
+      "lon",
+      "elevationM",
+      "timeZone",
+      "firstUtc",
+      "lastUtc",
+      "hours",
+      "filledHours",
+      "completeness",
+      "qc",
+      "extremes",
+      "months",
+    ])
+      expect(s).toHaveProperty(key);
+    expect(s.id).toBe("725300-94846");
+    // −26.7 °C at 13:51 UTC on 2014-01-06 (real file; NWS records give −16 °F, from memory).
+    expect(s.extremes).toMatchObject({ minC: -26.7, minUtc: "2014-01-06T13:51:00Z" });
+    expect(s.qc.read).toBe(
+      s.qc.kept + Object.values(s.qc.dropped as Record<string, number>).reduce((a, b) => a + b),
+    );
+    expect(s.months).toHaveLength(12);
+    expect(Object.keys(s.months[0]).sort()).toEqual(
+      ["maxC", "meanC", "meanDailyRangeC", "minC", "month", "p90DailyRangeC"].sort(),
+    );
+    expect(s.completeness).toBeGreaterThan(0);
+    expect(s.completeness).toBeLessThanOrEqual(1);
+  });
+
+  it("prints a table in °F by default and writes the CSV", async () => {
+    const csv = join(dir, "climate.csv");
+    const r = await run(["climate", sample("725300-94846-2014.gz"), "--no-cache", "--csv", csv]);
+    expect(r.code).toBe(0);
+    // −26.7 °C = −16.06 °F (conversion F = C × 1.8 + 32, exact by definition).
+    expect(r.out).toContain("coldest -16.1 °F at 2014-01-06T13:51:00Z (2014-01-06 07:51 CST)");
+    const text = readFileSync(csv, "utf8");
+    expect(text.split("\r\n")[0]).toBe(
+      "station,name,month,min_degF,mean_degF,max_degF,mean_daily_range_degF,p90_daily_range_degF",
+    );
+    expect(text.split("\r\n")[1]).toMatch(/^725300-94846,,1,-16\.06,/);
+  });
+
+  it("exit code 2 and a one-line message naming the file for a gzip file cut short", async () => {
+    const whole = readFileSync(sample("726430-14920-2015.gz"));
+    const cut = join(dir, "cut.gz");
+    writeFileSync(cut, whole.subarray(0, 3000));
+    const r = await run(["climate", cut, "--no-cache"]);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/cut\.gz:gzip: gzip data ends early/);
+    expect(r.err.trim().split("\n")).toHaveLength(1);
+    expect(r.out).toBe("");
+  });
+});
+
+describe("coldsoak climate usage and input errors", () => {
+  it("exit code 2 for a file that is not a climate file", async () => {
+    const p = join(dir, "notes.txt");
+    writeFileSync(p, "hello\n");
+    const r = await run(["climate", p, "--no-cache"]);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/notes\.txt:1: not a climate file/);
+  });
+
+  it("exit code 2 for bad options", async () => {
+    expect((await run(["climate", dir, "--units", "metric"])).code).toBe(2);
+    const r = await run(["climate", dir, "--gap-hours", "two"]);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/--gap-hours: "two" is not a whole number/);
+    expect((await run(["climate"])).code).toBe(2);
+  });
+});
