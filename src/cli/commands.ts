@@ -2,10 +2,12 @@ import type { Command } from "commander";
 import { registerClimate } from "./climate.js";
 import { registerPrecharge } from "./precharge.js";
 import { registerPdf } from "./pdf.js";
+import { registerInit } from "./init.js";
 
 /** Adds every sub-command to the program. Each command lives in its own file of this folder. */
 export function registerCommands(program: Command): void {
   registerClimate(program);
   registerPrecharge(program);
   registerPdf(program);
+  registerInit(program);
 }
