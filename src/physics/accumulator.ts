@@ -312,17 +312,18 @@ export function trappedState(
       stop = -1;
       break;
     }
-    if (g > 0) lo = rho;
-    else hi = rho;
     const dg = -amountMol / (rho * rho) - b * slopeOut[1]!;
     let next = rho - g / dg;
+    if (Math.abs(g) <= 1e-14 * vTotal || Math.abs(next - rho) <= 1e-13 * rho) {
+      if (next >= rhoAtV0 && next <= rhoAtVmin) rho = next;
+      break;
+    }
+    if (g > 0) lo = rho;
+    else hi = rho;
     if (!(next > lo && next < hi)) {
+      // Leaving the bracket: try the stop itself once, then bisect.
       if (next >= hi) next = hi === rhoAtVmin && rho !== hi ? hi : 0.5 * (lo + hi);
       else next = lo === rhoAtV0 && rho !== lo ? lo : 0.5 * (lo + hi);
-    }
-    if (Math.abs(next - rho) <= 1e-13 * rho || Math.abs(g) <= 1e-14 * vTotal) {
-      rho = next;
-      break;
     }
     rho = next;
   }
@@ -516,10 +517,29 @@ export function recharge(
   if (pStart >= systemAbsPa) {
     return { timeS: 0, reachedSystem: true, gasVolumeM3: vStart, gasPressureAbsPa: pStart, fluidAddedM3: 0 };
   }
-  const vSystem = amountMol / model.densityMolM3(systemAbsPa, tempK);
+  // The pump delivers nothing above its table's last pressure: the fill can then only approach that.
+  const capAbsPa = pump.curve[pump.curve.length - 1]!.gaugePa + pump.atmPa;
+  const reachable = systemAbsPa <= capAbsPa;
+  const targetAbsPa = reachable ? systemAbsPa : capAbsPa;
+  if (!reachable && pStart >= targetAbsPa) {
+    return {
+      timeS: pump.timerS,
+      reachedSystem: false,
+      gasVolumeM3: vStart,
+      gasPressureAbsPa: pStart,
+      fluidAddedM3: 0,
+    };
+  }
+  const vSystem = amountMol / model.densityMolM3(targetAbsPa, tempK);
   const vEnd = Math.max(vSystem, geometry.vminM3);
   if (vEnd >= vStart) {
-    return { timeS: 0, reachedSystem: true, gasVolumeM3: vStart, gasPressureAbsPa: pStart, fluidAddedM3: 0 };
+    return {
+      timeS: 0,
+      reachedSystem: reachable,
+      gasVolumeM3: vStart,
+      gasPressureAbsPa: pStart,
+      fluidAddedM3: 0,
+    };
   }
   const h = (vStart - vEnd) / RECHARGE_STEPS;
   let t = 0;
@@ -528,9 +548,9 @@ export function recharge(
   for (let i = 1; i <= RECHARGE_STEPS; i++) {
     const vNext = i === RECHARGE_STEPS ? vEnd : vStart - i * h;
     const pNext =
-      i === RECHARGE_STEPS && vEnd === vSystem ? systemAbsPa : model.pressurePa(amountMol / vNext, tempK);
+      i === RECHARGE_STEPS && vEnd === vSystem ? targetAbsPa : model.pressurePa(amountMol / vNext, tempK);
     // Just below the system pressure the pump still delivers; the last node uses the flow there.
-    const q1 = pumpFlowM3S(pump, Math.min(pNext, systemAbsPa * (1 - 1e-12))) / count;
+    const q1 = pumpFlowM3S(pump, Math.min(pNext, targetAbsPa * (1 - 1e-12))) / count;
     const step = v - vNext;
     const dt = stepTime(step, q0, q1);
     if (t + dt > pump.timerS) {
@@ -549,10 +569,10 @@ export function recharge(
     q0 = q1;
   }
   return {
-    timeS: t,
-    reachedSystem: true,
+    timeS: reachable ? t : pump.timerS,
+    reachedSystem: reachable,
     gasVolumeM3: vEnd,
-    gasPressureAbsPa: vEnd === vSystem ? systemAbsPa : model.pressurePa(amountMol / vEnd, tempK),
+    gasPressureAbsPa: vEnd === vSystem ? targetAbsPa : model.pressurePa(amountMol / vEnd, tempK),
     fluidAddedM3: count * (vStart - vEnd),
   };
 }

@@ -79,7 +79,9 @@ export interface CascadeResult {
  * accumulator and hose form one receiver of volume V_acc + V_hose at one pressure; the receiver's target
  * is targetMol·(V_acc + V_hose)/V_acc. Cylinders are used in order of increasing pressure; each gives
  * the gas x that reaches the target or brings it down to P_receiver + differential,
- * P_cyl((n_c − x)/V_c) = P_rec((n_r + x)/V_r) + ΔP, solved by bisection (monotonic in x). At disconnect the
+ * P_cyl((n_c − x)/V_c) = P_rec((n_r + x)/V_r) + ΔP, solved by bisection (monotonic in x). The first
+ * cylinder is connected only if it can also fill the hose to the accumulator's pressure and still exceed
+ * it by the differential (else the accumulator is not touched). At disconnect the
  * hose's gas, V_hose × ρ(final pressure), is vented. Cylinders give addedMol + ventedMol in total.
  */
 export function cascadeFill(
@@ -102,9 +104,13 @@ export function cascadeFill(
   const recTarget = (targetMol * vRec) / accumulatorVolumeM3;
   let nRec = fromMol;
   const pRec = (n: number): number => (n > 0 ? model.pressurePa(n / vRec, tempK) : 0);
+  /** Receiver amount at the accumulator's pressure before connection (hose filled at that pressure). */
+  const pAccMolAtReceiver = (n: number): number =>
+    n > 0 ? model.densityMolM3(model.pressurePa(n / accumulatorVolumeM3, tempK), tempK) * vRec : 0;
   const order = out
     .map((c, i) => ({ i, p: cylinderPressureAbsPa(model, c, tempK) }))
     .sort((a, b) => a.p - b.p || a.i - b.i);
+  let connected = false;
   for (const { i } of order) {
     if (nRec >= recTarget) break;
     const cyl = out[i]!;
@@ -116,15 +122,20 @@ export function cascadeFill(
       ) -
       pRec(nRec + x) -
       spec.transferDifferentialPa;
-    if (!(excess(0) > 0)) continue;
+    // Before the first connection the hose is empty: a cylinder is used only if it can fill the hose and
+    // still push, i.e. bring the receiver to the accumulator's own pressure with the differential to spare.
+    const base = connected ? 0 : Math.max(0, pAccMolAtReceiver(nRec) - nRec);
+    if (base >= cyl.amountMol || !(excess(base) > 0)) continue;
+    connected = true;
     const need = recTarget - nRec;
+    const most = Math.min(need, cyl.amountMol);
     let x: number;
-    if (excess(Math.min(need, cyl.amountMol)) >= 0 && need <= cyl.amountMol) {
-      x = need;
+    if (excess(most) >= 0) {
+      x = most;
     } else {
-      let lo = 0;
-      let hi = Math.min(need, cyl.amountMol);
-      for (let k = 0; k < 200 && hi - lo > 1e-13 * (hi + 1e-30); k++) {
+      let lo = base;
+      let hi = most;
+      for (let k = 0; k < 200 && hi - lo > 1e-13 * hi; k++) {
         const mid = 0.5 * (lo + hi);
         if (excess(mid) > 0) lo = mid;
         else hi = mid;
@@ -134,7 +145,6 @@ export function cascadeFill(
     cyl.amountMol -= x;
     nRec += x;
   }
-  const connected = nRec > fromMol;
   const accMol = connected ? (nRec * accumulatorVolumeM3) / vRec : fromMol;
   const ventedMol = connected ? nRec - accMol : 0;
   return {

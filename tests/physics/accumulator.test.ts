@@ -1,0 +1,473 @@
+import { describe, expect, it } from "vitest";
+import { InputError } from "../../src/errors.js";
+import {
+  type AccumulatorGeometry,
+  type BandInputs,
+  chargedState,
+  gasAmountMol,
+  gasVolumeM3,
+  handPumpStrokes,
+  interpolateClamped,
+  lagTempK,
+  prechargeLinesAbsPa,
+  prechargePressureAbsPa,
+  pumpFlowM3S,
+  readingBand,
+  readingPct,
+  recharge,
+  startDischarge,
+  trappedState,
+} from "../../src/physics/accumulator.js";
+import { tabulatedGas } from "../../src/physics/gasTable.js";
+import { type GasModel, idealGas, isentropicToVolume, realGas } from "../../src/physics/nitrogen.js";
+import { barToPa, cToK, fToK, PA_PER_PSI, paToPsi, psiToPa } from "../../src/physics/units.js";
+
+// Gauge pressures in these tests are at sea-level atmospheric pressure (issue 3).
+const ATM = 101325;
+const psigToAbs = (psig: number) => psiToPa(psig) + ATM;
+const absToPsig = (abs: number) => paToPsi(abs - ATM);
+const RIGID = { alphaPerK: 0, bulkModulusPa: Number.POSITIVE_INFINITY, lineVolumeM3: 0 };
+
+describe("precharge line", () => {
+  const cases: [GasModel, number, number, number, number, number][] = [
+    // [model, ref psig, ref °F, at °F, expected psig, tolerance]
+    // 1450 psig at 70 °F reads about 1390 psig at 50 °F (common practice, no source); exactly: ideal
+    // 1394.7 ± 0.1 (ideal gas law on absolute pressures), real 1381.8 ± 0.3 (computed independently from
+    // the equation of state, issue 3).
+    [idealGas, 1450, 70, 50, 1394.7, 0.1],
+    [realGas, 1450, 70, 50, 1381.8, 0.3],
+    // 100 psig at 70 °F at −40 °F: ideal 76.2 ± 0.1, real 75.7 ± 0.1 (same origin).
+    [idealGas, 100, 70, -40, 76.2, 0.1],
+    [realGas, 100, 70, -40, 75.7, 0.1],
+  ];
+  for (const [model, ref, refF, atF, expected, tol] of cases) {
+    it(`${model.kind}: ${ref} psig at ${refF} °F reads ${expected} psig at ${atF} °F`, () => {
+      const v0 = 5e-3;
+      const n = gasAmountMol(model, psigToAbs(ref), fToK(refF), v0);
+      const p = absToPsig(prechargePressureAbsPa(model, n, fToK(atF), v0));
+      expect(Math.abs(p - expected)).toBeLessThanOrEqual(tol);
+    });
+  }
+
+  it("a gauge/absolute mix-up would give 79.2 psig, which the model does not", () => {
+    // 100 × (−40 °F)/(70 °F) in kelvin = 79.2 (issue 3): scaling gauge pressure is the classic error.
+    const n = gasAmountMol(idealGas, psigToAbs(100), fToK(70), 1e-3);
+    const p = absToPsig(prechargePressureAbsPa(idealGas, n, fToK(-40), 1e-3));
+    expect(Math.abs(p - 79.2)).toBeGreaterThan(2.5);
+  });
+
+  it("100 bar gauge at 20 °C gives 78.62 ± 0.03 bar gauge at −30 °C, real gas", () => {
+    // Computed independently from the equation of state (issue 3).
+    const n = gasAmountMol(realGas, barToPa(100) + ATM, cToK(20), 1e-3);
+    const p = (prechargePressureAbsPa(realGas, n, cToK(-30), 1e-3) - ATM) / 1e5;
+    expect(Math.abs(p - 78.62)).toBeLessThanOrEqual(0.03);
+  });
+
+  it("tolerance lines run through P_ref ± tol at T_ref and bracket the nominal line", () => {
+    // Definition of the tolerance lines (product brief, section 3).
+    const band: BandInputs = {
+      refGaugePa: psiToPa(1450),
+      refTempK: fToK(70),
+      tolerancePa: psiToPa(50),
+      systemLowGaugePa: psiToPa(2850),
+      systemNominalGaugePa: psiToPa(3000),
+      systemHighGaugePa: psiToPa(3150),
+      atmPa: ATM,
+    };
+    const atRef = prechargeLinesAbsPa(realGas, band, fToK(70));
+    expect(absToPsig(atRef.nominalAbsPa)).toBeCloseTo(1450, 6);
+    expect(absToPsig(atRef.lowAbsPa)).toBeCloseTo(1400, 6);
+    expect(absToPsig(atRef.highAbsPa)).toBeCloseTo(1500, 6);
+    const cold = prechargeLinesAbsPa(realGas, band, fToK(-40));
+    expect(cold.lowAbsPa).toBeLessThan(cold.nominalAbsPa);
+    expect(cold.nominalAbsPa).toBeLessThan(cold.highAbsPa);
+  });
+});
+
+describe("reading and band", () => {
+  // V0 = 5 L, Vmin = 1.5 L, precharged to 1450 psig at 70 °F, charged to 3000 psig: readings (real / ideal)
+  // 88.74 / 87.86 % at −40 °F, 72.89 / 76.07 % at 50 °F, 69.52 / 73.45 % at 70 °F, ± 0.05 (computed
+  // independently from the equation of state, issue 3).
+  const geometry: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
+  const expected: [number, number, number][] = [
+    [-40, 88.74, 87.86],
+    [50, 72.89, 76.07],
+    [70, 69.52, 73.45],
+  ];
+  for (const [f, real, ideal] of expected) {
+    it(`reads ${real} % (real) and ${ideal} % (ideal) at ${f} °F`, () => {
+      for (const [model, want] of [
+        [realGas, real],
+        [idealGas, ideal],
+      ] as const) {
+        const n = gasAmountMol(model, psigToAbs(1450), fToK(70), geometry.v0M3);
+        const v = gasVolumeM3(model, n, fToK(f), psigToAbs(3000));
+        expect(Math.abs(readingPct(geometry, v) - want)).toBeLessThanOrEqual(0.05);
+      }
+    });
+  }
+
+  it("band: nominal as above; largest amount at lowest system pressure reads lowest", () => {
+    // Band definition (product brief, section 3); nominal value from the issue-3 figure above.
+    const band: BandInputs = {
+      refGaugePa: psiToPa(1450),
+      refTempK: fToK(70),
+      tolerancePa: psiToPa(50),
+      systemLowGaugePa: psiToPa(2850),
+      systemNominalGaugePa: psiToPa(3000),
+      systemHighGaugePa: psiToPa(3150),
+      atmPa: ATM,
+    };
+    const b = readingBand(realGas, geometry, band, fToK(70));
+    expect(Math.abs(b.nominalPct - 69.52)).toBeLessThanOrEqual(0.05);
+    expect(b.lowPct).toBeLessThan(b.nominalPct);
+    expect(b.highPct).toBeGreaterThan(b.nominalPct);
+    // Hand check with the ideal gas law: lowest = (5 − 5·1514.696/2864.696)/3.5 (product brief, section 3)
+    const ib = readingBand(idealGas, geometry, band, fToK(70));
+    expect(ib.lowPct).toBeCloseTo(((5 - (5 * (1500 + 14.696)) / (2850 + 14.696)) / 3.5) * 100, 1);
+  });
+
+  it("reading is clamped to 0–100 %", () => {
+    // Definition (product brief, section 3)
+    expect(readingPct(geometry, 6e-3)).toBe(0);
+    expect(readingPct(geometry, 1e-3)).toBe(100);
+    expect(readingPct(geometry, 3.25e-3)).toBeCloseTo(50, 12);
+  });
+});
+
+describe("start discharge", () => {
+  const geometry: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
+  const starter = { minUsefulAbsPa: psigToAbs(1000), returnAbsPa: ATM };
+  const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), geometry.v0M3);
+  const v1 = gasVolumeM3(realGas, n, fToK(70), psigToAbs(3000));
+
+  it("from 3000 psig at 70 °F to 1000 psig: 25.62 kJ gas work, 25.40 kJ hydraulic, 2.178 L", () => {
+    // Computed independently from the equation of state, ± 0.3 % (issue 3); same 5 L unit as above.
+    const d = startDischarge(realGas, geometry, 1, n, fToK(70), v1, starter);
+    expect(Math.abs(d.gasWorkJ / 25620 - 1)).toBeLessThan(0.003);
+    expect(Math.abs(d.hydraulicEnergyJ / 25400 - 1)).toBeLessThan(0.003);
+    expect(Math.abs(d.fluidDeliveredM3 / 2.178e-3 - 1)).toBeLessThan(0.003);
+    expect(absToPsig(d.end.gasPressureAbsPa)).toBeCloseTo(1000, 6);
+    expect(d.end.tempK).toBeLessThan(fToK(70));
+    // Two units in parallel: twice the energy and fluid, same end state (product brief, section 3)
+    const d2 = startDischarge(realGas, geometry, 2, n, fToK(70), v1, starter);
+    expect(d2.gasWorkJ / d.gasWorkJ).toBeCloseTo(2, 12);
+    expect(d2.fluidDeliveredM3 / d.fluidDeliveredM3).toBeCloseTo(2, 12);
+    expect(d2.end.gasVolumeM3).toBe(d.end.gasVolumeM3);
+  });
+
+  it("first law: gas work ∫P dV (Simpson quadrature along the isentrope) equals the internal-energy drop to 0.1 %", () => {
+    // First law for a reversible adiabatic closed system (textbook thermodynamics).
+    const d = startDischarge(realGas, geometry, 1, n, fToK(70), v1, starter);
+    const v2 = d.end.gasVolumeM3;
+    const steps = 64;
+    const h = (v2 - v1) / steps;
+    let sum = 0;
+    for (let i = 0; i <= steps; i++) {
+      const v = v1 + i * h;
+      const p = i === 0 ? psigToAbs(3000) : isentropicToVolume(realGas, n, fToK(70), v1, v).pressurePa;
+      sum += (i === 0 || i === steps ? 1 : i % 2 === 1 ? 4 : 2) * p;
+    }
+    const integral = (sum * h) / 3;
+    expect(Math.abs(integral / d.gasWorkJ - 1)).toBeLessThan(0.001);
+  });
+
+  it("stops on the 0 % stop (V0) when the pressure there is still above the starter's minimum", () => {
+    // Brief, section 3: expansion ends at V0 or at the minimum useful pressure, whichever first.
+    const d = startDischarge(realGas, geometry, 1, n, fToK(70), v1, {
+      minUsefulAbsPa: psigToAbs(300),
+      returnAbsPa: ATM,
+    });
+    expect(d.end.gasVolumeM3).toBe(geometry.v0M3);
+    expect(d.fluidDeliveredM3).toBeCloseTo(geometry.v0M3 - v1, 15);
+    // Nothing to give when already below the minimum
+    const none = startDischarge(realGas, geometry, 1, n, fToK(70), geometry.v0M3, starter);
+    expect(none.hydraulicEnergyJ).toBe(0);
+  });
+
+  it("ideal mode, isothermal: energy P1·V1·ln(V2/V1) within 0.1 %", () => {
+    // Isothermal expansion work of an ideal gas (textbook thermodynamics).
+    const big: AccumulatorGeometry = { v0M3: 20e-3, vminM3: 1e-3 };
+    const vi = 2e-3;
+    const ni = gasAmountMol(idealGas, psigToAbs(3000), fToK(70), vi);
+    const d = startDischarge(idealGas, big, 1, ni, fToK(70), vi, { ...starter, isothermal: true });
+    const p1 = psigToAbs(3000);
+    const v2 = (p1 * vi) / psigToAbs(1000);
+    expect(d.end.gasVolumeM3 / v2).toBeCloseTo(1, 9);
+    expect(Math.abs(d.gasWorkJ / (p1 * vi * Math.log(v2 / vi)) - 1)).toBeLessThan(0.001);
+  });
+
+  it("ideal mode, adiabatic: (P1·V1 − P2·V2)/(γ − 1) with γ = 1.4 within 0.3 %", () => {
+    // Reversible adiabatic expansion of an ideal diatomic gas (textbook thermodynamics; γ = 1.4 for N2, from memory).
+    const big: AccumulatorGeometry = { v0M3: 20e-3, vminM3: 1e-3 };
+    const ni = gasAmountMol(idealGas, psigToAbs(3000), fToK(70), 2e-3);
+    const d = startDischarge(idealGas, big, 1, ni, fToK(70), 2e-3, starter);
+    const p1 = psigToAbs(3000);
+    const p2 = psigToAbs(1000);
+    const v2 = 2e-3 * (p1 / p2) ** (1 / 1.4);
+    expect(Math.abs(d.fluidDeliveredM3 / (v2 - 2e-3) - 1)).toBeLessThan(0.003);
+    expect(Math.abs(d.gasWorkJ / ((p1 * 2e-3 - p2 * v2) / 0.4) - 1)).toBeLessThan(0.003);
+  });
+
+  it("ideal mode: isothermal accumulator sizing ΔV = V0·P0·(1/P1 − 1/P2), absolute pressures, within 0.1 %", () => {
+    // Fluid-power sizing relation (from memory).
+    const p0 = psigToAbs(1450);
+    const p1 = psigToAbs(1800);
+    const p2 = psigToAbs(3000);
+    const ni = gasAmountMol(idealGas, p0, fToK(70), geometry.v0M3);
+    const vAtP2 = gasVolumeM3(idealGas, ni, fToK(70), p2);
+    const d = startDischarge(idealGas, geometry, 1, ni, fToK(70), vAtP2, {
+      minUsefulAbsPa: p1,
+      returnAbsPa: ATM,
+      isothermal: true,
+    });
+    const dv = geometry.v0M3 * p0 * (1 / p1 - 1 / p2);
+    expect(Math.abs(d.fluidDeliveredM3 / dv - 1)).toBeLessThan(0.001);
+  });
+});
+
+describe("trapped charge", () => {
+  it("3000 psig at 10 °C cooled to −20 °C, rigid fluid: 2531.0 psig real, 2680.6 psig ideal", () => {
+    // Computed independently from the equation of state and the brief's fluid model, ± 1 psi (issue 3).
+    const geometry: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
+    for (const [model, want] of [
+      [realGas, 2531.0],
+      [idealGas, 2680.6],
+    ] as const) {
+      const n = gasAmountMol(model, psigToAbs(1450), cToK(10), geometry.v0M3);
+      const c = chargedState(model, geometry, RIGID, n, cToK(10), psigToAbs(3000));
+      const s = trappedState(model, geometry, RIGID, c, cToK(-20), n);
+      expect(Math.abs(absToPsig(s.gasPressureAbsPa) - want)).toBeLessThanOrEqual(1);
+      expect(s.gasVolumeM3).toBeCloseTo(c.gasVolumeM3, 15);
+      expect(s.fluidPressureAbsPa).toBe(s.gasPressureAbsPa);
+    }
+  });
+
+  it("1 L unit, 1450 psig at 70 °F, charged to 3000 psig at 20 °C, cooled to −20 °C: 2412.1 / 2311.6 psig", () => {
+    // Computed independently from the equation of state and the brief's fluid model, ± 1 psi (issue 3):
+    // rigid fluid and no line volume 2412.1 psig; α = 8e-4 /K, K = 1.5 GPa, 0.2 L of line fluid 2311.6 psig.
+    const geometry: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.1e-3 };
+    const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), geometry.v0M3);
+    const rigidC = chargedState(realGas, geometry, RIGID, n, cToK(20), psigToAbs(3000));
+    const rigid = trappedState(realGas, geometry, RIGID, rigidC, cToK(-20), n);
+    expect(Math.abs(absToPsig(rigid.gasPressureAbsPa) - 2412.1)).toBeLessThanOrEqual(1);
+    const fluid = { alphaPerK: 8e-4, bulkModulusPa: 1.5e9, lineVolumeM3: 0.2e-3 };
+    const c = chargedState(realGas, geometry, fluid, n, cToK(20), psigToAbs(3000));
+    for (const model of [realGas, tabulatedGas(realGas)]) {
+      const s = trappedState(model, geometry, fluid, c, cToK(-20), n);
+      expect(Math.abs(absToPsig(s.gasPressureAbsPa) - 2311.6)).toBeLessThanOrEqual(1);
+      // the solution satisfies the brief's volume balance (definition, product brief section 3)
+      const vf = c.fluidVolumeM3 * (1 + 8e-4 * -40 - (s.gasPressureAbsPa - c.fluidPressureAbsPa) / 1.5e9);
+      expect((s.gasVolumeM3 + vf) / (c.gasVolumeM3 + c.fluidVolumeM3)).toBeCloseTo(1, 9);
+    }
+  });
+
+  it("no temperature change and no gas loss returns the charged state", () => {
+    // Identity (definition).
+    const geometry: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.1e-3 };
+    const fluid = { alphaPerK: 8e-4, bulkModulusPa: 1.5e9, lineVolumeM3: 0.2e-3 };
+    const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), geometry.v0M3);
+    const c = chargedState(realGas, geometry, fluid, n, cToK(20), psigToAbs(3000));
+    const s = trappedState(realGas, geometry, fluid, c, cToK(20), n);
+    expect(s.gasPressureAbsPa / psigToAbs(3000)).toBeCloseTo(1, 9);
+  });
+
+  it("piston stops: warm fluid expansion pins the piston on Vmin; cooling a nearly empty unit puts it on V0", () => {
+    // Stop behaviour of the brief, section 3: at 100 % the fluid rises above the gas; at 0 % gas stays at V0.
+    const geometry: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.5e-3 };
+    const fluid = { alphaPerK: 8e-4, bulkModulusPa: 1.5e9, lineVolumeM3: 0.5e-3 };
+    const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), geometry.v0M3);
+    const c = chargedState(realGas, geometry, fluid, n, cToK(20), psigToAbs(3000));
+    const hot = trappedState(realGas, geometry, fluid, c, cToK(60), n);
+    expect(hot.gasVolumeM3).toBe(geometry.vminM3);
+    expect(hot.fluidPressureAbsPa).toBeGreaterThan(hot.gasPressureAbsPa);
+    // Charged barely above the precharge, then cooled: the fluid contracts more than the gas can follow.
+    const nearEmpty = chargedState(realGas, geometry, fluid, n, fToK(70), psigToAbs(1460));
+    const cold = trappedState(realGas, geometry, fluid, nearEmpty, cToK(-40), n);
+    expect(cold.gasVolumeM3).toBe(geometry.v0M3);
+    expect(cold.fluidPressureAbsPa).toBeLessThanOrEqual(cold.gasPressureAbsPa);
+  });
+});
+
+describe("lagged temperature", () => {
+  it("exact first-order update; τ = 0 follows ambient; one τ reaches 1 − e⁻¹ of a step", () => {
+    // Brief, section 3: T ← Ta + (T − Ta)·exp(−Δt/τ); first-order step response (textbook).
+    expect(lagTempK(250, 280, 3600, 0)).toBe(280);
+    expect((lagTempK(270, 280, 7200, 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
+    // Exactness: two half steps equal one whole step.
+    const half = lagTempK(lagTempK(300, 260, 1800, 5000), 260, 1800, 5000);
+    expect(half).toBeCloseTo(lagTempK(300, 260, 3600, 5000), 12);
+    expect(() => lagTempK(300, 260, 3600, -1)).toThrow(/tauS: -1/);
+  });
+});
+
+describe("recharge", () => {
+  const geometry: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
+  const t = fToK(70);
+  const ni = gasAmountMol(idealGas, psigToAbs(1450), t, geometry.v0M3);
+  const vStart = gasVolumeM3(idealGas, ni, t, psigToAbs(1500));
+
+  it("constant flow: time = count × ΔV / Q (ideal gas, Boyle's law volumes)", () => {
+    // Boyle's law V = V0·P0/P (textbook) and t = ΔV/Q.
+    const q = 1e-4; // m³/s
+    const pump = {
+      curve: [
+        { gaugePa: 0, flowM3S: q },
+        { gaugePa: psiToPa(3500), flowM3S: q },
+      ],
+      timerS: 600,
+      atmPa: ATM,
+    };
+    const r = recharge(idealGas, geometry, 2, ni, t, vStart, psigToAbs(3000), pump);
+    const dv = geometry.v0M3 * psigToAbs(1450) * (1 / psigToAbs(1500) - 1 / psigToAbs(3000));
+    expect(r.reachedSystem).toBe(true);
+    expect(r.fluidAddedM3 / (2 * dv)).toBeCloseTo(1, 9);
+    expect(r.timeS / ((2 * dv) / q)).toBeCloseTo(1, 9);
+    expect(absToPsig(r.gasPressureAbsPa)).toBeCloseTo(3000, 6);
+  });
+
+  it("falling flow curve: time matches ∫ nRT/(P²·Q(P)) dP by fine quadrature within 0.1 %", () => {
+    // Isothermal ideal gas dV = −nRT/P² dP (textbook); reference integral by 20 000-step midpoint rule.
+    const pump = {
+      curve: [
+        { gaugePa: 0, flowM3S: 2e-4 },
+        { gaugePa: psiToPa(3200), flowM3S: 0.5e-4 },
+      ],
+      timerS: 1000,
+      atmPa: ATM,
+    };
+    const r = recharge(idealGas, geometry, 1, ni, t, vStart, psigToAbs(3000), pump);
+    const nrt = ni * 8.31451 * t;
+    const pA = psigToAbs(1500);
+    const pB = psigToAbs(3000);
+    const steps = 20000;
+    let ref = 0;
+    for (let i = 0; i < steps; i++) {
+      const p = pA + ((i + 0.5) * (pB - pA)) / steps;
+      ref += (nrt / (p * p) / pumpFlowM3S(pump, p)) * ((pB - pA) / steps);
+    }
+    expect(Math.abs(r.timeS / ref - 1)).toBeLessThan(0.001);
+    // Timer ends first: the fill stops part-way, with the pumped volume of that time.
+    const short = recharge(idealGas, geometry, 1, ni, t, vStart, pB, { ...pump, timerS: ref / 2 });
+    expect(short.reachedSystem).toBe(false);
+    expect(short.timeS).toBe(ref / 2);
+    expect(short.gasPressureAbsPa).toBeGreaterThan(pA);
+    expect(short.gasPressureAbsPa).toBeLessThan(pB);
+    // the pressure reached is the one whose fill time is the timer (same quadrature)
+    let tt = 0;
+    for (let i = 0; i < steps; i++) {
+      const p = pA + ((i + 0.5) * (short.gasPressureAbsPa - pA)) / steps;
+      tt += (nrt / (p * p) / pumpFlowM3S(pump, p)) * ((short.gasPressureAbsPa - pA) / steps);
+    }
+    expect(Math.abs(tt / (ref / 2) - 1)).toBeLessThan(0.002);
+  });
+
+  it("a pump that cannot reach system pressure runs out its timer", () => {
+    // Pump table semantics: no flow above the last pressure (documented behaviour, no source).
+    const pump = {
+      curve: [
+        { gaugePa: 0, flowM3S: 2e-4 },
+        { gaugePa: psiToPa(2500), flowM3S: 0 },
+      ],
+      timerS: 120,
+      atmPa: ATM,
+    };
+    const r = recharge(realGas, geometry, 1, ni, t, vStart, psigToAbs(3000), pump);
+    expect(r.reachedSystem).toBe(false);
+    expect(absToPsig(r.gasPressureAbsPa)).toBeLessThan(2500);
+  });
+
+  it("hand pump strokes = fluid / (displacement × volumetric efficiency)", () => {
+    // Brief, section 3.
+    expect(handPumpStrokes(1e-3, 10e-6, 0.8)).toBeCloseTo(125, 9);
+    expect(() => handPumpStrokes(1e-3, 10e-6, 1.2)).toThrow(/volumetricEfficiency/);
+  });
+});
+
+describe("interpolateClamped", () => {
+  it("linear inside, held constant beyond the ends", () => {
+    // Brief, section 3 (requirement table semantics).
+    const table = [
+      { x: -40, y: 30 },
+      { x: 0, y: 20 },
+      { x: 40, y: 18 },
+    ];
+    expect(interpolateClamped(table, -60)).toBe(30);
+    expect(interpolateClamped(table, -20)).toBe(25);
+    expect(interpolateClamped(table, 20)).toBe(19);
+    expect(interpolateClamped(table, 50)).toBe(18);
+    expect(() =>
+      interpolateClamped(
+        [
+          { x: 1, y: 1 },
+          { x: 1, y: 2 },
+        ],
+        0,
+      ),
+    ).toThrow(/table\[1\]\.x/);
+  });
+});
+
+describe("bad parameters", () => {
+  const good: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
+  it("reject non-physical input with an error naming the parameter", () => {
+    // Documented errors (issue 3).
+    const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), good.v0M3);
+    expect(() => chargedState(realGas, { v0M3: 1e-3, vminM3: 1e-3 }, RIGID, n, 294, psigToAbs(3000))).toThrow(
+      /vminM3/,
+    );
+    expect(() => readingBand(realGas, { v0M3: 1e-3, vminM3: 2e-3 }, {} as BandInputs, 294)).toThrow(/vminM3/);
+    expect(() => gasAmountMol(realGas, psigToAbs(1450), 294, -1e-3)).toThrow(/volumeM3: -0.001/);
+    expect(() => chargedState(realGas, { v0M3: -1, vminM3: 1e-3 }, RIGID, n, 294, 1e7)).toThrow(/v0M3: -1/);
+    expect(() => chargedState(realGas, good, RIGID, n, fToK(70), psigToAbs(1000))).toThrow(
+      /precharge above system pressure/,
+    );
+    expect(() =>
+      readingBand(
+        realGas,
+        good,
+        {
+          refGaugePa: psiToPa(1450),
+          refTempK: 294,
+          tolerancePa: psiToPa(50),
+          systemLowGaugePa: psiToPa(1400),
+          systemNominalGaugePa: psiToPa(3000),
+          systemHighGaugePa: psiToPa(3100),
+          atmPa: ATM,
+        },
+        294,
+      ),
+    ).toThrow(/refGaugePa: precharge/);
+    expect(() => chargedState(realGas, good, { ...RIGID, lineVolumeM3: -1 }, n, 294, 2e7)).toThrow(
+      /lineVolumeM3/,
+    );
+    expect(() =>
+      startDischarge(realGas, good, 0, n, 294, 2.5e-3, { minUsefulAbsPa: 7e6, returnAbsPa: ATM }),
+    ).toThrow(/count: 0/);
+    expect(() =>
+      startDischarge(realGas, good, 1, n, 294, 2.5e-3, { minUsefulAbsPa: 7e6, returnAbsPa: 8e6 }),
+    ).toThrow(/returnAbsPa/);
+    expect(() =>
+      recharge(realGas, good, 1, n, 294, 4e-3, 2e7, {
+        curve: [
+          { gaugePa: 1, flowM3S: 1 },
+          { gaugePa: 0, flowM3S: 1 },
+        ],
+        timerS: 60,
+        atmPa: ATM,
+      }),
+    ).toThrow(/curve\[1\]\.gaugePa/);
+    expect(() =>
+      recharge(realGas, good, 1, n, 294, 4e-3, 2e7, {
+        curve: [{ gaugePa: 0, flowM3S: -1 }],
+        timerS: 60,
+        atmPa: ATM,
+      }),
+    ).toThrow(/curve\[0\]\.flowM3S/);
+    expect(() =>
+      trappedState(realGas, good, RIGID, chargedState(realGas, good, RIGID, n, 294, 2e7), 294, -1),
+    ).toThrow(/amountMol/);
+    expect(() => gasAmountMol(realGas, psigToAbs(1450), 294, -1e-3)).toThrow(InputError);
+    expect(PA_PER_PSI).toBeGreaterThan(0);
+  });
+});
