@@ -1,0 +1,135 @@
+/**
+ * `coldsoak band <plan.yaml> [--profile NAME] [--from T --to T --step T] [--json]`: the precharge line
+ * with its tolerance lines and the low/nominal/high readings at system pressure against temperature,
+ * real gas and ideal (product brief §3). Temperatures in the plan's unit (°F for us, °C for si);
+ * gauge pressures relative to the standard sea-level atmosphere (101.325 kPa).
+ */
+import type { Command } from "commander";
+import { InputError } from "../errors.js";
+import { STANDARD_ATMOSPHERE_PA } from "../physics/units.js";
+import { bandCurves } from "../plan/bandCurves.js";
+import { loadPlan } from "../plan/planFile.js";
+import { PSI_PA, tempFromK, tempToK } from "../plan/quantities.js";
+import { formatNumber } from "../plan/tables.js";
+
+export interface BandCliOptions {
+  profile?: string;
+  from?: string;
+  to?: string;
+  step?: string;
+  json?: boolean;
+}
+
+function num(text: string | undefined, option: string, fallback: number): number {
+  if (text === undefined) return fallback;
+  const v = Number(text);
+  if (text.trim() === "" || !Number.isFinite(v))
+    throw new InputError(`${option}: "${text}" is not a number; expected e.g. ${option} -40`);
+  return v;
+}
+
+/** The band table as the command prints it (`--json` shape of issue 4). */
+export async function bandCommand(
+  planFile: string,
+  opts: BandCliOptions,
+): Promise<{ text: string; json: object }> {
+  const plan = await loadPlan(planFile);
+  const profile =
+    opts.profile === undefined ? plan.profiles[0]! : plan.profiles.find((p) => p.name === opts.profile);
+  if (profile === undefined) {
+    throw new InputError(
+      `--profile: unknown profile "${opts.profile}"; the plan has ${plan.profiles.map((p) => `"${p.name}"`).join(", ")}`,
+    );
+  }
+  const us = plan.units === "us";
+  const from = num(opts.from, "--from", us ? -60 : -50);
+  const to = num(opts.to, "--to", us ? 140 : 60);
+  const step = num(opts.step, "--step", 10);
+  if (!(step > 0)) throw new InputError(`--step: "${opts.step}"; expected a step above zero`);
+  if (!(to >= from)) throw new InputError(`--to: ${to} is below --from ${from}; expected --from ≤ --to`);
+  const count = Math.floor((to - from) / step + 1e-9) + 1;
+  if (count > 10_000) throw new InputError(`--step: ${count} rows; expected at most 10000`);
+  const temps: number[] = [];
+  for (let i = 0; i < count; i++) temps.push(from + i * step);
+  const lowK = tempToK(from, plan.units);
+  if (lowK < 150 || tempToK(to, plan.units) > 450) {
+    throw new InputError(
+      `--from/--to: expected temperatures between ${formatNumber(tempFromK(150, plan.units))} and ${formatNumber(tempFromK(450, plan.units))} ${us ? "°F" : "°C"}`,
+    );
+  }
+  const rows = bandCurves(
+    profile,
+    temps.map((t) => tempToK(t, plan.units)),
+    STANDARD_ATMOSPHERE_PA,
+  );
+  const json = {
+    profile: profile.name,
+    rows: rows.map((r) => ({
+      tempC: Number(formatNumber(r.tempC)),
+      prechargeKPaGauge: Number(formatNumber(r.prechargeKPaGauge)),
+      prechargeLowKPaGauge: Number(formatNumber(r.prechargeLowKPaGauge)),
+      prechargeHighKPaGauge: Number(formatNumber(r.prechargeHighKPaGauge)),
+      readingLowPct: Number(formatNumber(r.readingLowPct)),
+      readingNominalPct: Number(formatNumber(r.readingNominalPct)),
+      readingHighPct: Number(formatNumber(r.readingHighPct)),
+      idealReadingNominalPct: Number(formatNumber(r.idealReadingNominalPct)),
+    })),
+  };
+  const p = (kPa: number) => (us ? ((kPa * 1000) / PSI_PA).toFixed(0) : (kPa / 100).toFixed(2));
+  const pu = us ? "psig" : "bar";
+  const tu = us ? "°F" : "°C";
+  const header = [
+    `temp ${tu}`,
+    `precharge ${pu}`,
+    `low ${pu}`,
+    `high ${pu}`,
+    "read low %",
+    "nominal %",
+    "high %",
+    "ideal nom %",
+  ];
+  const body = rows.map((r, i) => [
+    formatNumber(temps[i]!),
+    p(r.prechargeKPaGauge),
+    p(r.prechargeLowKPaGauge),
+    p(r.prechargeHighKPaGauge),
+    r.readingLowPct.toFixed(1),
+    r.readingNominalPct.toFixed(1),
+    r.readingHighPct.toFixed(1),
+    r.idealReadingNominalPct.toFixed(1),
+  ]);
+  const widths = header.map((h, c) => Math.max(h.length, ...body.map((b) => b[c]!.length)));
+  const line = (cells: string[]) => cells.map((x, c) => x.padStart(widths[c]!)).join("  ");
+  const text = [
+    `Profile "${profile.name}": precharge line (tolerance lines) and readings at system pressure, real gas (ideal for comparison); gauge at 101.325 kPa`,
+    line(header),
+    ...body.map(line),
+  ].join("\n");
+  return { text, json };
+}
+
+export function registerBand(program: Command): void {
+  program
+    .command("band")
+    .description("Print the precharge line, its tolerance lines and the reading band against temperature")
+    .argument("<plan.yaml>", "plan file whose profile to use")
+    .option("--profile <name>", "profile name (default: the plan's first profile)")
+    .option("--from <T>", "lowest temperature in the plan's unit (default −60 °F or −50 °C)")
+    .option("--to <T>", "highest temperature (default 140 °F or 60 °C)")
+    .option("--step <T>", "temperature step (default 10)")
+    .option("--json", 'print { "profile", "rows": [ { "tempC", "prechargeKPaGauge", ... } ] } on stdout')
+    .addHelpText(
+      "after",
+      `
+Examples:
+  coldsoak band plan.yaml
+  coldsoak band plan.yaml --profile standard --from -40 --to 100 --step 5
+  coldsoak band plan.yaml --json
+
+Planning estimates, not maintenance data: service from the approved maintenance data.`,
+    )
+    .action(async (planFile: string, opts: BandCliOptions) => {
+      const { text, json } = await bandCommand(planFile, opts);
+      process.stdout.write(opts.json ? `${JSON.stringify(json, null, 2)}\n` : `${text}\n`);
+    });
+}

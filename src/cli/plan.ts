@@ -1,0 +1,206 @@
+/**
+ * `coldsoak plan <plan.yaml> [--schedule file] [--out dir] [--json]`: runs the planning engine and
+ * writes `out/<plan name>/` (results.json, one CSV per table, report.html), built in a temporary
+ * sibling folder and renamed into place only after every file is written (product brief §6).
+ */
+import { randomBytes } from "node:crypto";
+import { existsSync } from "node:fs";
+import { mkdir, rename, rm, writeFile } from "node:fs/promises";
+import { join, resolve } from "node:path";
+import { SingleBar } from "cli-progress";
+import type { Command } from "commander";
+import { inputError } from "../errors.js";
+import { runPlan } from "../plan/engine.js";
+import { loadPlan, type Plan } from "../plan/planFile.js";
+import { formatTemp } from "../plan/quantities.js";
+import type { Results } from "../plan/results.js";
+import { loadPlanClimate } from "../plan/run.js";
+import { loadSchedule } from "../plan/schedule.js";
+import { resultsJson, resultTables, toCsv } from "../plan/tables.js";
+import { renderReport } from "../report/index.js";
+
+export interface PlanCliOptions {
+  schedule?: string;
+  out: string;
+  json?: boolean;
+  cache: boolean;
+  cacheDir?: string;
+}
+
+const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+
+/** Writes every output file into a temporary sibling folder, then renames it into place. */
+export async function writeOutputFolder(
+  outRoot: string,
+  name: string,
+  files: Map<string, string>,
+): Promise<string> {
+  await mkdir(outRoot, { recursive: true });
+  const final = join(outRoot, name);
+  const tmp = join(outRoot, `.${name}.tmp-${randomBytes(4).toString("hex")}`);
+  const old = join(outRoot, `.${name}.old-${randomBytes(4).toString("hex")}`);
+  try {
+    await mkdir(tmp);
+    for (const [f, text] of files) await writeFile(join(tmp, f), text);
+    const hadOld = existsSync(final);
+    if (hadOld) await rename(final, old);
+    try {
+      await rename(tmp, final);
+    } catch (err) {
+      if (hadOld) await rename(old, final);
+      throw err;
+    }
+    if (hadOld) await rm(old, { recursive: true, force: true });
+  } catch (err) {
+    await rm(tmp, { recursive: true, force: true });
+    throw err;
+  }
+  return final;
+}
+
+/** Short terminal summary: the bases and months that need action. */
+export function summaryText(r: Results): string {
+  const lines: string[] = [
+    `Plan "${r.plan}": ${r.bases.length} base(s), climate years ${r.climateYears.join(", ") || "none"}`,
+  ];
+  const u = r.units;
+  for (const b of r.bases) {
+    const items: string[] = [];
+    for (const m of b.months) {
+      if (m.preflights === 0) continue;
+      const oob = (m.belowBandPct ?? 0) + (m.aboveBandPct ?? 0);
+      const advice = b.advice.find((a) => a.month === m.month);
+      const parts: string[] = [];
+      if (oob > 0) parts.push(`${oob.toFixed(1)} % of preflights out of band`);
+      if (advice?.fitColdStartOption) {
+        parts.push(
+          `${advice.shortPctOne!.toFixed(1)} % of starts short → fit the cold-start option (${advice.shortPctTwo!.toFixed(1)} % with it)`,
+        );
+      }
+      if (parts.length > 0) items.push(`    ${MONTHS[m.month - 1]}: ${parts.join("; ")}`);
+    }
+    const cold = b.coldestMorningC === null ? "—" : formatTemp(b.coldestMorningC + 273.15, u);
+    const cold10 = b.coldest1in10C === null ? "—" : formatTemp(b.coldest1in10C + 273.15, u);
+    const n2 = b.nitrogen;
+    lines.push(
+      `  ${b.name}: coldest preflight ${cold} (1-in-10-year ${cold10}); nitrogen P95 ${n2.kgP95.toFixed(2)} kg, ${n2.cylindersP95} cylinder(s), ${n2.cartsP95} cart(s)`,
+    );
+    lines.push(...(items.length > 0 ? items : ["    no month needs action"]));
+  }
+  return lines.join("\n");
+}
+
+function progressBar(label: string): { update: (done: number, total: number) => void; stop: () => void } {
+  let bar: SingleBar | null = null;
+  return {
+    update(done, total) {
+      if (!process.stderr.isTTY) return;
+      if (bar === null) {
+        bar = new SingleBar({
+          stream: process.stderr,
+          format: `${label} [{bar}] {value}/{total}`,
+          hideCursor: true,
+        });
+        bar.start(total, 0);
+      }
+      bar.update(done);
+    },
+    stop() {
+      (bar as SingleBar | null)?.stop();
+      bar = null;
+    },
+  };
+}
+
+/** Runs a plan file end to end; returns the output folder and the results. */
+export async function runPlanCommand(
+  planFile: string,
+  opts: PlanCliOptions,
+): Promise<{ folder: string; results: Results }> {
+  const plan: Plan = await loadPlan(planFile);
+  const scheduleFile =
+    opts.schedule !== undefined
+      ? opts.schedule
+      : plan.schedule !== undefined
+        ? resolve(plan.dir, plan.schedule)
+        : undefined;
+  if (scheduleFile === undefined) {
+    throw inputError(
+      planFile,
+      1,
+      "schedule",
+      "no schedule; expected a `schedule:` key in the plan or the --schedule option",
+    );
+  }
+  const stays = await loadSchedule(
+    scheduleFile,
+    plan.bases.map((b) => b.name),
+    plan.profiles.map((p) => p.name),
+  );
+  const files = progressBar("climate files");
+  const climate = await loadPlanClimate(plan, {
+    ...(opts.cache ? (opts.cacheDir !== undefined ? { cacheDir: opts.cacheDir } : {}) : { cacheDir: null }),
+    onProgress: files.update,
+  });
+  files.stop();
+  const sims = progressBar("stay-years");
+  const { results } = runPlan(plan, stays, climate, { onProgress: sims.update });
+  sims.stop();
+  const out = new Map<string, string>();
+  out.set("results.json", resultsJson(results));
+  for (const t of resultTables(results)) out.set(`${t.name}.csv`, toCsv(t));
+  out.set("report.html", await renderReport(results));
+  const folder = await writeOutputFolder(resolve(opts.out), plan.name, out);
+  return { folder, results };
+}
+
+export function registerPlan(program: Command): void {
+  program
+    .command("plan")
+    .description(
+      "Simulate every stay of a deployment schedule over every year of climate record and write the planning report",
+    )
+    .argument(
+      "<plan.yaml>",
+      "plan file (YAML): bases, accumulator profiles, operations, nitrogen, thresholds",
+    )
+    .option("--schedule <file>", "deployment schedule CSV (overrides the plan's `schedule:` key)")
+    .option("--out <dir>", "output root folder; results go to <dir>/<plan name>/", "out")
+    .option("--json", "print results.json on stdout instead of the summary")
+    .option("--no-cache", "read the climate files again instead of using the climate cache")
+    .option(
+      "--cache-dir <dir>",
+      "climate cache folder (default: the plan's climate.cacheDir or out/cache/climate)",
+    )
+    .addHelpText(
+      "after",
+      `
+Output (in <out>/<plan name>/, replaced only after a successful run):
+  results.json   everything the report shows (°C, kPa gauge, kg, %; no wall-clock time)
+  *.csv          one table each: bases, months, advice, out_of_band_by_hour, coldest_mornings,
+                 climate_months, daily_range_histogram, nitrogen_stays, traces, stations,
+                 precharge_line, band, stays, assumptions
+  report.html    the self-contained planning report
+
+Schedule CSV: aircraft,base,arrive,depart[,cold_start_option][,profile]
+  a stay covers arrive up to, not including, depart (YYYY-MM-DD)
+
+Examples:
+  coldsoak plan sample-data/demo-plan.yaml
+  coldsoak plan plan.yaml --schedule winter.csv --out results
+  coldsoak plan plan.yaml --json > results.json
+
+Planning estimates, not maintenance data: service from the approved maintenance data and the
+manufacturer's instructions, follow local rules, and take high-pressure gas precautions.`,
+    )
+    .action(async (planFile: string, opts: PlanCliOptions) => {
+      const { folder, results } = await runPlanCommand(planFile, opts);
+      for (const w of results.warnings) process.stderr.write(`warning: ${w}\n`);
+      if (opts.json) {
+        process.stdout.write(resultsJson(results));
+      } else {
+        process.stdout.write(`${summaryText(results)}\n`);
+        process.stdout.write(`${join(folder, "report.html")}\n`);
+      }
+    });
+}

@@ -1,0 +1,82 @@
+/**
+ * From files to results: reads the plan's climate files (through the climate cache), assembles each
+ * base's stations in priority order, and runs the engine.
+ */
+import { existsSync } from "node:fs";
+import { resolve } from "node:path";
+import { climateOptions, loadClimate, mergeByPriority, type StationClimate } from "../climate/index.js";
+import { inputError } from "../errors.js";
+import { standardAtmospherePa } from "../physics/units.js";
+import type { BaseClimate } from "./engine.js";
+import type { Plan } from "./planFile.js";
+
+export interface ClimateLoadOptions {
+  /** Cache folder; null disables; undefined: the plan's `climate.cacheDir` or the climate default. */
+  cacheDir?: string | null;
+  onProgress?: (done: number, total: number) => void;
+}
+
+/** Local atmospheric pressure of a station: its mean reported station pressure, else ISO 2533 at its elevation. */
+export function stationAtmospherePa(s: StationClimate): number {
+  if (s.meanStationPressureHpa !== null && s.meanStationPressureHpa > 300)
+    return s.meanStationPressureHpa * 100;
+  return standardAtmospherePa(Number.isFinite(s.meta.elevationM) ? s.meta.elevationM : 0);
+}
+
+/** Loads the climate of every base of the plan. Errors name the plan file line of the missing item. */
+export async function loadPlanClimate(
+  plan: Plan,
+  opts: ClimateLoadOptions = {},
+): Promise<Map<string, BaseClimate>> {
+  const paths = plan.climate.paths.map((p, i) => {
+    const full = resolve(plan.dir, p);
+    if (!existsSync(full)) {
+      throw inputError(
+        plan.file,
+        plan.lineOf(["climate", "paths", i]),
+        `climate.paths[${i}]`,
+        `"${p}" does not exist (relative to the plan file); expected a climate file or folder`,
+      );
+    }
+    return full;
+  });
+  const cacheDir =
+    opts.cacheDir !== undefined
+      ? opts.cacheDir
+      : plan.climate.cacheDir !== undefined
+        ? resolve(plan.dir, plan.climate.cacheDir)
+        : undefined;
+  const stations = await loadClimate(
+    paths,
+    climateOptions({
+      gapHours: plan.climate.gapHours,
+      ...(cacheDir !== undefined ? { cacheDir } : {}),
+      ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
+    }),
+  );
+  const byId = new Map(stations.map((s) => [s.meta.id, s]));
+  const out = new Map<string, BaseClimate>();
+  plan.bases.forEach((base, bi) => {
+    const list = base.stations.map((id, si) => {
+      const s = byId.get(id);
+      if (s === undefined) {
+        const found = [...byId.keys()].slice(0, 8).join(", ");
+        throw inputError(
+          plan.file,
+          plan.lineOf(["bases", bi, "stations", si]),
+          `bases[${bi}].stations[${si}]`,
+          `station "${id}" is not in the climate data (found: ${found || "none"}${byId.size > 8 ? ", …" : ""})`,
+        );
+      }
+      return s;
+    });
+    const primary = list[0]!;
+    out.set(base.name, {
+      stations: list,
+      series: mergeByPriority(list),
+      timeZone: primary.meta.timeZone,
+      atmPa: stationAtmospherePa(primary),
+    });
+  });
+  return out;
+}
