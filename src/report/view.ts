@@ -553,27 +553,27 @@ async function buildBase(
             height: 200,
             lines: [
               {
-                name: "Below band at first preflight",
+                name: "Below band",
                 color: PALETTE.blue,
                 shape: "circle",
                 points: months.map((m) => ({ x: monthName(m.month), y: m.belowBandPct })),
               },
               {
-                name: "Above band at first preflight",
+                name: "Above band",
                 color: PALETTE.orange,
                 dash: [4, 2],
                 shape: "diamond",
                 points: months.map((m) => ({ x: monthName(m.month), y: m.aboveBandPct })),
               },
               {
-                name: "Starts short, one accumulator",
+                name: "Short, one accumulator",
                 color: PALETTE.vermillion,
                 dash: [6, 3],
                 shape: "square",
                 points: months.map((m) => ({ x: monthName(m.month), y: m.shortPctOne })),
               },
               {
-                name: "Starts short, two accumulators",
+                name: "Short, two accumulators",
                 color: PALETTE.purple,
                 dash: [2, 2],
                 shape: "triangle-up",
@@ -582,7 +582,7 @@ async function buildBase(
             ],
             rules: [{ y: shortPct, label: `threshold ${pct(shortPct)} %`, color: PALETTE.vermillion }],
           }),
-          `Share of first preflights out of band and of starts short of energy, by local month, at ${base.name}. The dotted line is the plan's short-start threshold.`,
+          `Share of first preflights reading below or above the band, and share of starts short of energy with one and with two accumulators, by local month, at ${base.name}. The dotted line is the plan's short-start threshold.`,
         )
       : null;
 

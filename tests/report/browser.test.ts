@@ -1,0 +1,169 @@
+import { mkdirSync, readFileSync, statSync, writeFileSync } from "node:fs";
+import { fileURLToPath, pathToFileURL } from "node:url";
+import type { Page } from "puppeteer-core";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { main } from "../../src/cli/main.js";
+import {
+  chromiumAvailable,
+  chromiumPath,
+  type LaunchedBrowser,
+  launchChromium,
+} from "../../src/report/browser.js";
+import { renderReport } from "../../src/report/index.js";
+import { writePdf } from "../../src/report/pdf.js";
+import { makeResults } from "../fixtures/report/results.js";
+
+// Opens the report in the system Chromium (headless, no network). Where no browser exists this
+// skips, saying why; in CI (env CI set) it runs regardless, so a missing browser fails the suite.
+const HAVE_BROWSER = chromiumAvailable();
+const IN_CI = Boolean(process.env["CI"]);
+const SKIP = !HAVE_BROWSER && !IN_CI;
+if (SKIP)
+  console.warn(`report browser tests skipped: no Chromium at ${chromiumPath()} (set COLDSOAK_CHROMIUM)`);
+
+const OUT = fileURLToPath(new URL("../../out/report/", import.meta.url));
+
+interface Visit {
+  page: Page;
+  consoleErrors: string[];
+  blocked: string[];
+  dialogs: string[];
+}
+
+/** Opens a file with every request but the file itself blocked and recorded. */
+async function visit(launched: LaunchedBrowser, file: string): Promise<Visit> {
+  const page = await launched.browser.newPage();
+  const url = pathToFileURL(file).href;
+  const v: Visit = { page, consoleErrors: [], blocked: [], dialogs: [] };
+  page.on("console", (msg) => {
+    if (msg.type() === "error") v.consoleErrors.push(msg.text());
+  });
+  page.on("pageerror", (err) => v.consoleErrors.push(String(err)));
+  page.on("dialog", (d) => {
+    v.dialogs.push(d.message());
+    void d.dismiss();
+  });
+  await page.setRequestInterception(true);
+  page.on("request", (req) => {
+    if (req.url() === url) void req.continue();
+    else {
+      v.blocked.push(req.url());
+      void req.abort();
+    }
+  });
+  await page.setViewport({ width: 1100, height: 900 });
+  await page.goto(url, { waitUntil: "load" });
+  return v;
+}
+
+describe.skipIf(SKIP)("report in a real browser", () => {
+  let launched: LaunchedBrowser;
+  let htmlUs: string;
+  let htmlHostile: string;
+
+  beforeAll(async () => {
+    expect(HAVE_BROWSER, `CI needs Chromium at ${chromiumPath()}`).toBe(true);
+    vi.stubEnv("SOURCE_DATE_EPOCH", "1700000000");
+    mkdirSync(OUT, { recursive: true });
+    htmlUs = `${OUT}report-us.html`;
+    htmlHostile = `${OUT}report-hostile.html`;
+    writeFileSync(htmlUs, await renderReport(makeResults({ units: "us" })));
+    writeFileSync(htmlHostile, await renderReport(makeResults({ units: "si", hostile: true })));
+    launched = await launchChromium();
+  });
+  afterAll(async () => {
+    vi.unstubAllEnvs();
+    await launched?.close();
+  });
+
+  it("opens without console errors or network requests, draws every chart, and saves a screenshot", async () => {
+    const v = await visit(launched, htmlUs);
+    expect(v.consoleErrors).toEqual([]);
+    expect(v.blocked).toEqual([]);
+    const sizes = (await v.page.evaluate(
+      `[...document.querySelectorAll("figure.chart svg")].map((e) => { const r = e.getBoundingClientRect(); return [r.width, r.height]; })`,
+    )) as [number, number][];
+    expect(sizes.length).toBe(16); // 8 charts per base in the fixture (see structure test)
+    for (const [w, h] of sizes) {
+      expect(w).toBeGreaterThan(100);
+      expect(h).toBeGreaterThan(50);
+    }
+    await v.page.screenshot({ path: `${OUT}report-us.png`, fullPage: true });
+    expect(statSync(`${OUT}report-us.png`).size).toBeGreaterThan(50_000);
+    // In print layout every chart still has a size (no chart collapses on paper).
+    await v.page.emulateMediaType("print");
+    const printSizes = (await v.page.evaluate(
+      `[...document.querySelectorAll("figure.chart svg")].map((e) => e.getBoundingClientRect().width)`,
+    )) as number[];
+    for (const w of printSizes) expect(w).toBeGreaterThan(100);
+    await v.page.close();
+  });
+
+  it("parses the hostile report into no script or img element and fires no dialog", async () => {
+    const v = await visit(launched, htmlHostile);
+    const counts = (await v.page.evaluate(
+      `[document.querySelectorAll("script").length, document.querySelectorAll("img").length, [...document.querySelectorAll("*")].filter((e) => [...e.attributes].some((a) => a.name.startsWith("on"))).length]`,
+    )) as number[];
+    expect(counts).toEqual([0, 0, 0]);
+    expect(v.dialogs).toEqual([]);
+    expect(v.blocked).toEqual([]);
+    expect(v.consoleErrors).toEqual([]);
+    const heading = (await v.page.evaluate(`document.querySelector("#base-1 h2").textContent`)) as string;
+    expect(heading).toBe('Base North <script>alert(1)</script> "><img src=x onerror=alert(1)>');
+    await v.page.close();
+  });
+
+  it("prints a non-empty PDF on A4, and on Letter through the pdf command", async () => {
+    const a4 = `${OUT}report-us.pdf`;
+    const r = await writePdf(htmlUs, a4);
+    expect(r.ok, r.message).toBe(true);
+    const bytes = readFileSync(a4);
+    expect(bytes.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    expect(bytes.length).toBeGreaterThan(20_000);
+    const letter = `${OUT}report-us-letter.pdf`;
+    const write = vi.spyOn(process.stdout, "write").mockImplementation(() => true);
+    try {
+      expect(await main(["pdf", htmlUs, "--out", letter, "--paper", "letter"])).toBe(0);
+    } finally {
+      write.mockRestore();
+    }
+    const lb = readFileSync(letter);
+    expect(lb.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    // Page boxes in PDF points: A4 is 595 × 842 pt and Letter 612 × 792 pt (ISO 216; ANSI/ASME Y14.1).
+    const box = (b: Buffer) =>
+      /\/MediaBox\s*\[\s*0\s+0\s+([\d.]+)\s+([\d.]+)\s*\]/.exec(b.toString("latin1"));
+    const a4Box = box(bytes);
+    const lBox = box(lb);
+    // Chromium rounds the page to whole CSS pixels, so allow 1.5 pt.
+    if (a4Box && lBox) {
+      expect(Math.abs(Number(a4Box[1]) - 595.3)).toBeLessThanOrEqual(1.5);
+      expect(Math.abs(Number(a4Box[2]) - 841.9)).toBeLessThanOrEqual(1.5);
+      expect(Math.abs(Number(lBox[1]) - 612)).toBeLessThanOrEqual(1.5);
+      expect(Math.abs(Number(lBox[2]) - 792)).toBeLessThanOrEqual(1.5);
+    }
+  });
+});
+
+describe("PDF without a browser, and pdf command errors", () => {
+  it("returns ok: false with one line when no Chromium exists, writing nothing", async () => {
+    vi.stubEnv("COLDSOAK_CHROMIUM", "/nonexistent/chromium");
+    try {
+      const r = await writePdf("out/report/none.html", "out/report/none.pdf");
+      expect(r.ok).toBe(false);
+      expect(r.message).toMatch(/no Chromium at \/nonexistent\/chromium/);
+      expect(r.message).not.toContain("\n");
+    } finally {
+      vi.unstubAllEnvs();
+    }
+  });
+
+  it("exits 2 for a missing report file or an unknown paper size", async () => {
+    const err = vi.spyOn(process.stderr, "write").mockImplementation(() => true);
+    try {
+      expect(await main(["pdf", "out/report/does-not-exist.html"])).toBe(2);
+      expect(await main(["pdf", fileURLToPath(import.meta.url), "--paper", "tabloid"])).toBe(2);
+    } finally {
+      err.mockRestore();
+    }
+  });
+});

@@ -1,0 +1,189 @@
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Results } from "../../src/plan/results.js";
+import { renderReport } from "../../src/report/index.js";
+import {
+  formatNumber,
+  N2_KG_PER_NORMAL_M3,
+  N2_KG_PER_STD_M3_70F,
+  SI_UNITS,
+  US_UNITS,
+} from "../../src/report/units.js";
+import { makeResults } from "../fixtures/report/results.js";
+import { type Element, elements, inner, parseShown, type Token, textOf, tokenize } from "./html.js";
+
+describe("unit conversions", () => {
+  it("matches NIST SP 811 for pressure, temperature, volume, mass and length", () => {
+    // NIST SP 811 (2008), appendix B.8: 1 psi = 6.894757 kPa.
+    expect(US_UNITS.pressure.convert(6.894757)).toBeCloseTo(1, 6);
+    // Definition of the Celsius and Fahrenheit scales: −40 °C = −40 °F, 100 °C = 212 °F.
+    expect(US_UNITS.temp.convert(-40)).toBeCloseTo(-40, 12);
+    expect(US_UNITS.temp.convert(100)).toBeCloseTo(212, 12);
+    // A difference of 10 °C is 18 °F (9/5 scale, no offset).
+    expect(US_UNITS.tempDelta.convert(10)).toBeCloseTo(18, 12);
+    // NIST SP 811, appendix B.8: 1 L = 61.02374 in³.
+    expect(US_UNITS.volume.convert(1)).toBeCloseTo(61.02374, 4);
+    // NIST SP 811, appendix B.8: 1 kg = 2.204623 lb.
+    expect(US_UNITS.mass.convert(1)).toBeCloseTo(2.204623, 6);
+    // NIST SP 811: 1 m = 3.280840 ft.
+    expect(US_UNITS.length.convert(1)).toBeCloseTo(3.28084, 5);
+    // SI brochure: 1 bar = 100 kPa exactly.
+    expect(SI_UNITS.pressure.convert(250)).toBe(2.5);
+  });
+
+  it("uses nitrogen densities at standard conditions consistent with the gas law and common tables", () => {
+    // Ideal-gas density p·M/(R·T): R = 8.314462618 J/(mol·K) (CODATA 2018), M = 28.0134 g/mol (IUPAC).
+    const ideal = (pPa: number, tK: number) => (pPa * 0.0280134) / (8.314462618 * tK);
+    // Nitrogen is within 0.1 % of ideal near 1 atm and room temperature (second virial coefficient
+    // about −10 cm³/mol at 273 K: Dymond and Smith, "The Virial Coefficients of Pure Gases", from memory).
+    expect(Math.abs(N2_KG_PER_NORMAL_M3 / ideal(101325, 273.15) - 1)).toBeLessThan(1e-3);
+    expect(Math.abs(N2_KG_PER_STD_M3_70F / ideal(101325, 294.2611) - 1)).toBeLessThan(1e-3);
+    // Industrial gas conversion tables: 1 lb of nitrogen = 13.80 scf at 70 °F, 1 atm (from memory).
+    expect(US_UNITS.gasVolume.convert(0.45359237)).toBeCloseTo(13.8, 1);
+    // Same tables: 1 kg of nitrogen = 0.800 normal m³ at 0 °C, 1 atm (from memory).
+    expect(SI_UNITS.gasVolume.convert(1)).toBeCloseTo(0.8, 2);
+  });
+
+  it("formats numbers with grouping, a true minus sign and a dash for missing values", () => {
+    // Display convention of this report (common practice, no source).
+    expect(formatNumber(12345.678, 1)).toBe("12,345.7");
+    expect(formatNumber(-1234, 0)).toBe("\u22121,234");
+    expect(formatNumber(-0.01, 1)).toBe("0.0");
+    expect(formatNumber(null, 1)).toBe("–");
+    expect(formatNumber(Number.NaN, 1)).toBe("–");
+  });
+});
+
+interface Rendered {
+  results: Results;
+  tokens: Token[];
+  els: Element[];
+}
+
+async function render(units: "us" | "si"): Promise<Rendered> {
+  const results = makeResults({ units });
+  const tokens = tokenize(await renderReport(results));
+  return { results, tokens, els: elements(tokens) };
+}
+
+function text(r: Rendered, el: Element): string {
+  return textOf(inner(r.tokens, el)).replace(/\s+/g, " ").trim();
+}
+
+/** Cells of the first table in base 1 whose caption starts with `caption`: rows of cell texts. */
+function table(r: Rendered, caption: string): string[][] {
+  const sec = r.els.find((e) => e.attrs["id"] === "base-1")!;
+  const t = elements(inner(r.tokens, sec)).find(
+    (e) =>
+      e.name === "table" &&
+      text(r, elements(inner(r.tokens, e)).find((c) => c.name === "caption")!).startsWith(caption),
+  )!;
+  return elements(inner(r.tokens, t))
+    .filter((e) => e.name === "tr")
+    .map((tr) =>
+      elements(inner(r.tokens, tr))
+        .filter((c) => c.name === "td" || c.name === "th")
+        .map((c) => text(r, c)),
+    );
+}
+
+function axisTitles(r: Rendered): string[] {
+  return r.els.filter((e) => e.attrs["class"]?.includes("role-axis-title")).map((e) => text(r, e));
+}
+
+describe("report units: the same results in US and SI", () => {
+  let us: Rendered;
+  let si: Rendered;
+  beforeAll(async () => {
+    us = await render("us");
+    si = await render("si");
+  });
+
+  it("labels every temperature and pressure axis in the plan's units", () => {
+    const usAxes = axisTitles(us);
+    const siAxes = axisTitles(si);
+    expect(usAxes.length).toBe(siAxes.length);
+    expect(usAxes.some((t) => t.includes("(°F)"))).toBe(true);
+    expect(usAxes.some((t) => t.includes("(psig)"))).toBe(true);
+    expect(usAxes.join("|")).not.toMatch(/°C|\(bar\)/);
+    expect(siAxes.some((t) => t.includes("(°C)"))).toBe(true);
+    expect(siAxes.some((t) => t.includes("(bar)"))).toBe(true);
+    expect(siAxes.join("|")).not.toMatch(/°F|psig/);
+    for (const t of [...usAxes, ...siAxes]) {
+      if (/temperature|swing/i.test(t)) expect(t).toMatch(/\((°F|°C)\)$/);
+      if (/pressure|precharge/i.test(t)) expect(t).toMatch(/\((psig|bar)\)$/);
+    }
+  });
+
+  it("labels table headers in the plan's units", () => {
+    const usHeads = us.els
+      .filter((e) => e.name === "th" && e.attrs["scope"] === "col")
+      .map((e) => text(us, e));
+    const siHeads = si.els
+      .filter((e) => e.name === "th" && e.attrs["scope"] === "col")
+      .map((e) => text(si, e));
+    expect(usHeads.length).toBe(siHeads.length);
+    expect(usHeads.join("|")).not.toMatch(/°C|\(bar\)|\(kg\)|normal m³/);
+    expect(siHeads.join("|")).not.toMatch(/°F|psig|\(lb\)|scf/);
+    expect(usHeads.filter((h) => h.includes("(°F)")).length).toBe(
+      siHeads.filter((h) => h.includes("(°C)")).length,
+    );
+  });
+
+  it("converts temperatures consistently: °F = °C × 9/5 + 32 within display rounding", () => {
+    const f = table(us, "Monthly air temperature").slice(1);
+    const c = table(si, "Monthly air temperature").slice(1);
+    expect(f).toHaveLength(12);
+    for (const [i, row] of f.entries()) {
+      for (const col of [1, 2, 3]) {
+        const fv = parseShown(row[col]!);
+        const cv = parseShown(c[i]![col]!);
+        expect(Math.abs((fv - 32) * (5 / 9) - cv)).toBeLessThanOrEqual(0.05 * (5 / 9) + 0.05 + 1e-9);
+      }
+      // Daily swing is a difference: °F = °C × 9/5.
+      expect(Math.abs(parseShown(row[4]!) * (5 / 9) - parseShown(c[i]![4]!))).toBeLessThanOrEqual(0.09);
+    }
+  });
+
+  it("converts pressures consistently: psig × 6.894757 = kPa = bar × 100 within display rounding", () => {
+    const p = table(us, "Fill readings").slice(1);
+    const b = table(si, "Fill readings").slice(1);
+    let compared = 0;
+    for (const [i, row] of p.entries()) {
+      const psig = row[4]!.split(" / ");
+      const bar = b[i]![4]!.split(" / ");
+      for (const k of [0, 1, 2]) {
+        if (psig[k] === "–") {
+          expect(bar[k]).toBe("–");
+          continue;
+        }
+        // Rounding: psig to 0.5 psi (3.45 kPa), bar to 0.05 bar (5 kPa).
+        expect(Math.abs(parseShown(psig[k]!) * 6.894757 - parseShown(bar[k]!) * 100)).toBeLessThanOrEqual(
+          8.5,
+        );
+        compared++;
+      }
+    }
+    expect(compared).toBeGreaterThan(20);
+  });
+
+  it("converts nitrogen consistently: lb ↔ kg and scf ↔ normal m³ through the same mass", () => {
+    const usRows = table(us, "Nitrogen to ship").slice(1);
+    const siRows = table(si, "Nitrogen to ship").slice(1);
+    expect(usRows[0]![1]).toBe("lb");
+    expect(siRows[0]![1]).toBe("kg");
+    expect(usRows[1]![1]).toBe("scf");
+    expect(siRows[1]![1]).toBe("normal m³");
+    for (const col of [2, 3, 4]) {
+      const lb = parseShown(usRows[0]![col]!);
+      const kg = parseShown(siRows[0]![col]!);
+      // NIST SP 811: 1 lb = 0.45359237 kg; rounding 0.005 lb and 0.005 kg.
+      expect(Math.abs(lb * 0.45359237 - kg)).toBeLessThanOrEqual(0.0075);
+      const scf = parseShown(usRows[1]![col]!);
+      const nm3 = parseShown(siRows[1]![col]!);
+      // Both are the same mass: scf × 0.028316846592 m³ × 1.1604 kg/m³ = normal m³ × 1.2504 kg/m³.
+      expect(Math.abs(scf * 0.028316846592 * 1.1604 - nm3 * 1.2504)).toBeLessThanOrEqual(
+        0.5 * 0.0328 + 0.005 * 1.2504,
+      );
+    }
+  });
+});
