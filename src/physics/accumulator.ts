@@ -346,6 +346,8 @@ export function trappedState(
   return res;
 }
 
+const startProps = new Float64Array(6);
+
 /** The starter's needs from the accumulator. */
 export interface StarterSpec {
   /** Below this gas pressure the starter no longer turns usefully, Pa absolute. */
@@ -398,7 +400,9 @@ export function startDischarge(
   }
   const v1 = Math.min(Math.max(gasVolumeM3, geometry.vminM3), geometry.v0M3);
   const rho1 = amountMol / v1;
-  const p1 = model.pressurePa(rho1, tempK);
+  model.stateProperties(rho1, tempK, startProps);
+  const p1 = startProps[0]!;
+  const u1 = startProps[4]!;
   const start = { gasPressureAbsPa: p1, tempK, gasVolumeM3: v1 };
   if (p1 <= starter.minUsefulAbsPa || v1 >= geometry.v0M3) {
     return { hydraulicEnergyJ: 0, gasWorkJ: 0, fluidDeliveredM3: 0, end: start };
@@ -425,9 +429,7 @@ export function startDischarge(
     v2 = amountMol / end.densityMolM3;
     t2 = end.tempK;
     p2 = end.pressurePa;
-    workPerUnit =
-      amountMol *
-      (model.internalEnergyJMol(rho1, tempK) - model.internalEnergyJMol(end.densityMolM3, end.tempK));
+    workPerUnit = amountMol * (u1 - model.internalEnergyJMol(end.densityMolM3, end.tempK));
   }
   const dv = v2 - v1;
   return {

@@ -141,6 +141,7 @@ function buildTable(base: GasModel, grid: GasTableGrid): GasModel {
       if (lookupP(rho, tempK, scratch)) rho -= (scratch[0]! - pressurePa) / scratch[1]!;
       return rho;
     },
+    stateProperties: (rho, t, out) => base.stateProperties(rho, t, out),
     compressibility: (rho, t) => base.compressibility(rho, t),
     internalEnergyJMol: (rho, t) => base.internalEnergyJMol(rho, t),
     entropyJMolK: (rho, t) => base.entropyJMolK(rho, t),

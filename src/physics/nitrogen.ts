@@ -88,12 +88,30 @@ const tauA1 = new Float64Array(N_TERMS); // τ·∂/∂τ of the above
 const tauA2 = new Float64Array(N_TERMS); // τ²·∂²/∂τ² of the above
 let cachedTau = Number.NaN;
 
+/** Every exponent t is a multiple of 1/8 (≤ 16): τ^t = τ^⌊t⌋ · τ^(k/8), from square roots and products. */
+const T_INT = Int32Array.from(RES_T, (t) => Math.floor(t));
+const T_EIGHTHS = Int32Array.from(RES_T, (t) => Math.round((t - Math.floor(t)) * 8));
+const tauInt = new Float64Array(17);
+const tauFrac = new Float64Array(8);
+
 function prepareTau(tau: number): void {
   if (tau === cachedTau) return;
-  const lnTau = Math.log(tau);
+  tauInt[0] = 1;
+  for (let k = 1; k <= 16; k++) tauInt[k] = tauInt[k - 1]! * tau;
+  const r2 = Math.sqrt(tau);
+  const r4 = Math.sqrt(r2);
+  const r8 = Math.sqrt(r4);
+  tauFrac[0] = 1;
+  tauFrac[1] = r8;
+  tauFrac[2] = r4;
+  tauFrac[3] = r4 * r8;
+  tauFrac[4] = r2;
+  tauFrac[5] = r2 * r8;
+  tauFrac[6] = r2 * r4;
+  tauFrac[7] = r2 * r4 * r8;
   for (let i = 0; i < N_POLY + N_EXP; i++) {
     const t = RES_T[i]!;
-    const a = RES_N[i]! * Math.exp(t * lnTau);
+    const a = RES_N[i]! * tauInt[T_INT[i]!]! * tauFrac[T_EIGHTHS[i]!]!;
     tauA[i] = a;
     tauA1[i] = t * a;
     tauA2[i] = t * (t - 1) * a;
@@ -103,7 +121,7 @@ function prepareTau(tau: number): void {
     const t = RES_T[i]!;
     const beta = GAUSS_BETA[k]!;
     const dTau = tau - GAUSS_GAMMA[k]!;
-    const a = RES_N[i]! * Math.exp(t * lnTau - beta * dTau * dTau);
+    const a = RES_N[i]! * tauInt[T_INT[i]!]! * tauFrac[T_EIGHTHS[i]!]! * Math.exp(-beta * dTau * dTau);
     const g = t - 2 * beta * tau * dTau; // τ·(ln A)_τ
     tauA[i] = a;
     tauA1[i] = g * a;
@@ -277,6 +295,11 @@ export interface GasModel {
   pressureAndSlope(densityMolM3: number, tempK: number, out: Float64Array): void;
   /** Density from pressure by Newton iteration in a safe bracket; below Tc the stable phase is returned. */
   densityMolM3(pressurePa: number, tempK: number, options?: DensityOptions): number;
+  /**
+   * Several properties from one evaluation of the equation, written into `out` (length ≥ 6):
+   * [P (Pa), ∂P/∂ρ at constant T, ∂P/∂T at constant ρ (Pa/K), s (J/(mol·K)), u (J/mol), cv (J/(mol·K))].
+   */
+  stateProperties(densityMolM3: number, tempK: number, out: Float64Array): void;
   compressibility(densityMolM3: number, tempK: number): number;
   internalEnergyJMol(densityMolM3: number, tempK: number): number;
   entropyJMolK(densityMolM3: number, tempK: number): number;
@@ -322,6 +345,21 @@ function makeHelmholtzModel(kind: "real" | "ideal"): GasModel {
     pressurePa,
     pressureAndSlope,
     densityMolM3,
+    stateProperties(rho, tempK, out) {
+      checkDensity(rho);
+      checkTemp(tempK);
+      if (!(rho > 0)) throw new InputError(`densityMolM3: ${rho} mol/m³ must be above 0 for an entropy`);
+      evalResidual(withResidual, rho, tempK);
+      const tau = TC / tempK;
+      const rt = R * tempK;
+      const i1 = ideal1(tau);
+      out[0] = rho * rt * (1 + RES[1]!);
+      out[1] = rt * (1 + 2 * RES[1]! + RES[2]!);
+      out[2] = rho * R * (1 + RES[1]! - RES[5]!);
+      out[3] = R * (i1 + RES[3]! - Math.log(rho / RHOC) - ideal0(tau) - RES[0]!);
+      out[4] = rt * (i1 + RES[3]!);
+      out[5] = -R * (ideal2(tau) + RES[4]!);
+    },
     compressibility(rho, tempK) {
       checkDensity(rho);
       checkTemp(tempK);
@@ -478,6 +516,66 @@ export interface GasState {
   densityMolM3: number;
 }
 
+const ST = new Float64Array(6);
+
+/**
+ * Temperature on the isentrope s = s₁ at a fixed density: Newton iteration on T with (∂s/∂T)_ρ = cv/T.
+ * Leaves the state's properties in ST.
+ */
+function isentropeAtDensity(model: GasModel, s1: number, rho: number, tGuess: number): number {
+  let t = Math.min(Math.max(tGuess, N2_MIN_TEMP_K), N2_MAX_TEMP_K);
+  for (let iter = 0; iter < 50; iter++) {
+    model.stateProperties(rho, t, ST);
+    const next = Math.min(Math.max(t - ((ST[3]! - s1) * t) / ST[5]!, N2_MIN_TEMP_K), N2_MAX_TEMP_K);
+    if (Math.abs(next - t) < 1e-10 * t) {
+      model.stateProperties(rho, next, ST);
+      return next;
+    }
+    t = next;
+  }
+  throw new Error(`isentrope: no convergence at ${rho} mol/m³`);
+}
+
+/**
+ * State (ρ, T) on the isentrope s = s₁ at a given pressure: Newton iteration in two unknowns on
+ * P(ρ, T) = P and s(ρ, T) = s₁, with (∂s/∂ρ)_T = −(∂P/∂T)_ρ/ρ² (Maxwell relation) and (∂s/∂T)_ρ = cv/T.
+ * Leaves the state's properties in ST.
+ */
+function isentropeAtPressure(
+  model: GasModel,
+  s1: number,
+  p: number,
+  rhoGuess: number,
+  tGuess: number,
+): GasState {
+  let rho = rhoGuess;
+  let t = Math.min(Math.max(tGuess, N2_MIN_TEMP_K), N2_MAX_TEMP_K);
+  for (let iter = 0; iter < 60; iter++) {
+    model.stateProperties(rho, t, ST);
+    const f1 = ST[0]! - p;
+    const f2 = ST[3]! - s1;
+    const pRho = ST[1]!;
+    const pT = ST[2]!;
+    const sRho = -pT / (rho * rho);
+    const sT = ST[5]! / t;
+    const det = pRho * sT - pT * sRho;
+    let dRho = (f1 * sT - pT * f2) / det;
+    let dT = (pRho * f2 - sRho * f1) / det;
+    // Damping: keep the density positive and the temperature inside the equation's range.
+    if (dRho > 0.5 * rho) dRho = 0.5 * rho;
+    if (dRho < -0.5 * rho) dRho = -0.5 * rho;
+    if (t - dT < N2_MIN_TEMP_K) dT = t - N2_MIN_TEMP_K;
+    if (t - dT > N2_MAX_TEMP_K) dT = t - N2_MAX_TEMP_K;
+    rho -= dRho;
+    t -= dT;
+    if (Math.abs(dRho) < 1e-11 * rho && Math.abs(dT) < 1e-11 * t) {
+      model.stateProperties(rho, t, ST);
+      return { tempK: t, pressurePa: p, densityMolM3: rho };
+    }
+  }
+  throw new Error(`isentrope: no convergence at ${p} Pa`);
+}
+
 /**
  * Reversible adiabatic (isentropic) change of a closed amount of gas to a new volume: solves
  * s(n/V₂, T₂) = s(n/V₁, T₁) for T₂ by Newton iteration, with (∂s/∂T)_ρ = cv/T.
@@ -494,28 +592,16 @@ export function isentropicToVolume(
   if (!(newVolumeM3 > 0)) throw new InputError(`newVolumeM3: ${newVolumeM3} m³ must be above 0`);
   const rho1 = amountMol / volumeM3;
   const rho2 = amountMol / newVolumeM3;
-  const s1 = model.entropyJMolK(rho1, tempK);
+  model.stateProperties(rho1, tempK, ST);
+  const s1 = ST[3]!;
   // Ideal-gas first guess with the local cv.
-  const cv1 = model.cvJMolK(rho1, tempK);
-  let t = tempK * (rho2 / rho1) ** (R / cv1);
-  t = Math.min(Math.max(t, N2_MIN_TEMP_K), N2_MAX_TEMP_K);
-  for (let iter = 0; iter < 50; iter++) {
-    const f = model.entropyJMolK(rho2, t) - s1;
-    const dsdT = model.cvJMolK(rho2, t) / t;
-    let next = t - f / dsdT;
-    next = Math.min(Math.max(next, N2_MIN_TEMP_K), N2_MAX_TEMP_K);
-    if (Math.abs(next - t) < 1e-11 * t) {
-      t = next;
-      break;
-    }
-    t = next;
-  }
-  return { tempK: t, pressurePa: model.pressurePa(rho2, t), densityMolM3: rho2 };
+  const t = isentropeAtDensity(model, s1, rho2, tempK * (rho2 / rho1) ** (R / ST[5]!));
+  return { tempK: t, pressurePa: ST[0]!, densityMolM3: rho2 };
 }
 
 /**
- * State on the isentrope through (ρ₁, T₁) at a given pressure: solves s(ρ(P, T), T) = s₁ for T by Newton
- * iteration with (∂s/∂T)_P = cp/T.
+ * State on the isentrope through (ρ₁, T₁) at a given pressure (Newton iteration in ρ and T on
+ * P(ρ, T) = P and s(ρ, T) = s₁).
  */
 export function isentropicToPressure(
   model: GasModel,
@@ -523,23 +609,12 @@ export function isentropicToPressure(
   tempK: number,
   newPressurePa: number,
 ): GasState {
-  const s1 = model.entropyJMolK(densityMolM3, tempK);
-  const p1 = model.pressurePa(densityMolM3, tempK);
-  const cp1 = model.cpJMolK(densityMolM3, tempK);
-  let t = tempK * (newPressurePa / p1) ** (R / cp1);
-  t = Math.min(Math.max(t, N2_MIN_TEMP_K), N2_MAX_TEMP_K);
-  let rho = model.densityMolM3(newPressurePa, t);
-  for (let iter = 0; iter < 50; iter++) {
-    const f = model.entropyJMolK(rho, t) - s1;
-    const dsdT = model.cpJMolK(rho, t) / t;
-    let next = t - f / dsdT;
-    next = Math.min(Math.max(next, N2_MIN_TEMP_K), N2_MAX_TEMP_K);
-    rho = model.densityMolM3(newPressurePa, next);
-    if (Math.abs(next - t) < 1e-11 * t) {
-      t = next;
-      break;
-    }
-    t = next;
-  }
-  return { tempK: t, pressurePa: newPressurePa, densityMolM3: rho };
+  checkPressure(newPressurePa);
+  model.stateProperties(densityMolM3, tempK, ST);
+  const p1 = ST[0]!;
+  const s1 = ST[3]!;
+  const cp1 = ST[5]! + R; // ideal-gas estimate of cp for the first guess only
+  const tGuess = tempK * (newPressurePa / p1) ** (R / cp1);
+  const rhoGuess = densityMolM3 * (newPressurePa / p1) ** (ST[5]! / cp1);
+  return isentropeAtPressure(model, s1, newPressurePa, rhoGuess, tGuess);
 }
