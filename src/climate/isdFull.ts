@@ -87,6 +87,7 @@ export interface IsdLineState {
   lastCall: Uint8Array; // 5 bytes
   lastCallText: string | null;
   lineEnd: number; // end of the line being read
+  callRun: number; // lines since the call letters or station last changed
 }
 
 export function createIsdLineState(file: ParsedFile): IsdLineState {
@@ -100,7 +101,17 @@ export function createIsdLineState(file: ParsedFile): IsdLineState {
     lastCall: new Uint8Array(5),
     lastCallText: null,
     lineEnd: 0,
+    callRun: 0,
   };
+}
+
+/** Adds the current run of call letters to the station's counts (call at the end of a file too). */
+export function flushCalls(st: IsdLineState): void {
+  if (st.callRun > 0 && st.lastStation >= 0 && st.lastCallText !== null) {
+    const calls = st.file.callLetters[st.lastStation]!;
+    calls.set(st.lastCallText, (calls.get(st.lastCallText) ?? 0) + st.callRun);
+  }
+  st.callRun = 0;
 }
 
 function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, field: string, why: string) {
@@ -141,10 +152,6 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
       "length",
       `line has ${len} characters, positions 1-4 announce ${ISD_FIXED_LENGTH + varChars}`,
     );
-    return;
-  }
-  if (!printable(b, s, ISD_FIXED_LENGTH)) {
-    malformed(st, b, s, lineNo, "characters", "non-printable bytes in the fixed part");
     return;
   }
   if (digits(b, s + 10, 5) < 0) {
@@ -192,9 +199,15 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
     malformed(st, b, s, lineNo, "DEW/SLP", "expected dew point and sea-level pressure digits (POS 94-104)");
     return;
   }
+  // Text fields become strings only when they differ from the line before; they must be printable.
+  if (!printable(b, s + 4, 6) || !printable(b, s + 41, 5) || !printable(b, s + 51, 5)) {
+    malformed(st, b, s, lineNo, "characters", "non-printable bytes in the station, type or call letters");
+    return;
+  }
   // Station: USAF (POS 5-10) + WBAN (POS 11-15), created only once a line of it reads well.
   let station = st.lastStation;
   if (station < 0 || !sameBytes(st.lastId, b, s + 4, 11)) {
+    flushCalls(st);
     station = stationIndex(st.file, `${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
     st.lastId.set(b.subarray(s + 4, s + 15));
     st.lastStation = station;
@@ -207,13 +220,13 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
     st.lastKind = kindOfReportType(type);
     st.lastType.set(b.subarray(s + 41, s + 46));
   }
-  // Call letters (POS 52-56), counted per station to find the usual ones.
+  // Call letters (POS 52-56), counted per station (by runs) to find the usual ones.
   if (st.lastCallText === null || !sameBytes(st.lastCall, b, s + 51, 5)) {
+    flushCalls(st);
     st.lastCall.set(b.subarray(s + 51, s + 56));
     st.lastCallText = ascii(b, s + 51, 5).trim();
   }
-  const calls = st.file.callLetters[station]!;
-  calls.set(st.lastCallText, (calls.get(st.lastCallText) ?? 0) + 1);
+  st.callRun++;
 
   const c = st.file.records;
   const i = nextSlot(c);

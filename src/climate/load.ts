@@ -10,7 +10,7 @@ import { cacheKey, fileHash, readCache, writeCache } from "./cache.js";
 import { fillGaps, hourlyFromObservations } from "./hourly.js";
 import { timeZoneFor } from "./localTime.js";
 import { readFilesInWorkers, workersAvailable } from "./pool.js";
-import { qualityControl, type StationPart } from "./qc.js";
+import { partsOfFile, qualityControl, type StationPart } from "./qc.js";
 import { MISSING_ELEV, type ParsedFile } from "./records.js";
 import { type ReadOptions, readClimateFile } from "./source.js";
 import { type HistoryEntry, readStationHistory } from "./stationHistory.js";
@@ -79,11 +79,12 @@ export function buildStations(
   };
   const parts = new Map<string, StationPart[]>();
   for (const file of files)
-    file.stations.forEach((id, station) => {
+    for (const part of partsOfFile(file)) {
+      const id = file.stations[part.station]!;
       const list = parts.get(id) ?? [];
-      list.push({ file, station });
+      list.push(part);
       parts.set(id, list);
-    });
+    }
   const ids = [...parts.keys()].sort();
   return ids.map((id) => {
     const stationParts = parts.get(id)!;

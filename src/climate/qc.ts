@@ -24,13 +24,34 @@ export const SITE_RADIUS_M = 5000;
 export const SITE_ELEVATION_M = 30;
 
 /** Quality codes dropped (ISD format document, POS 93): suspect 2 and 6, erroneous 3 and 7. */
-const Q_SUSPECT = new Set([50, 54]); // "2", "6"
-const Q_ERRONEOUS = new Set([51, 55]); // "3", "7"
+const Q_SUSPECT_A = 50; // "2"
+const Q_SUSPECT_B = 54; // "6"
+const Q_ERRONEOUS_A = 51; // "3"
+const Q_ERRONEOUS_B = 55; // "7"
 
-/** The part of a parsed file that belongs to one station. */
+/** The part of a parsed file that belongs to one station: the indices of its records, in file order. */
 export interface StationPart {
   file: ParsedFile;
   station: number; // index in file.stations
+  indices: Uint32Array;
+}
+
+/** Splits a file's records by station (one pass). */
+export function partsOfFile(file: ParsedFile): StationPart[] {
+  const c = file.records;
+  const counts = new Uint32Array(file.stations.length);
+  for (let i = 0; i < c.count; i++) counts[c.station[i]!]!++;
+  const parts = file.stations.map((_, station) => ({
+    file,
+    station,
+    indices: new Uint32Array(counts[station]!),
+  }));
+  const fill = new Uint32Array(file.stations.length);
+  for (let i = 0; i < c.count; i++) {
+    const st = c.station[i]!;
+    parts[st]!.indices[fill[st]!++] = i;
+  }
+  return parts;
 }
 
 /** What quality control keeps of one station. */
@@ -114,6 +135,10 @@ function modeOf(counts: Map<number, number>): number | null {
   return best;
 }
 
+function add(map: Map<number, number>, key: number, n: number): void {
+  map.set(key, (map.get(key) ?? 0) + n);
+}
+
 function isoMinute(min: number): string {
   return new Date(min * 60_000).toISOString().replace(".000Z", "Z");
 }
@@ -125,54 +150,72 @@ function isoMinute(min: number): string {
 export function qualityControl(parts: StationPart[], typeCode: (type: string) => number): QcResult {
   const qc = emptyQc();
   const yearOf = yearCache();
-  // Pass 1: count positions per station-year among records that are observations.
+  // Pass 1: count positions per station-year among records that are observations. Positions come
+  // in long runs, so a run is counted once when it ends.
   const positionsByYear = new Map<number, Map<number, number>>();
   const allPositions = new Map<number, number>();
+  let runKey = -1;
+  let runYear = 0;
+  let runN = 0;
+  const flush = () => {
+    if (runN === 0) return;
+    let m = positionsByYear.get(runYear);
+    if (m === undefined) {
+      m = new Map();
+      positionsByYear.set(runYear, m);
+    }
+    add(m, runKey, runN);
+    add(allPositions, runKey, runN);
+    runN = 0;
+  };
   let total = 0;
-  for (const { file, station } of parts) {
+  for (const { file, indices } of parts) {
     const c = file.records;
-    for (let i = 0; i < c.count; i++) {
-      if (c.station[i] !== station) continue;
-      total++;
+    total += indices.length;
+    for (const i of indices) {
       const kind = c.kind[i]!;
       if (kind === KIND_MALFORMED || kind === KIND_SUMMARY) continue;
       const lat = c.latMilli[i]!;
       const lon = c.lonMilli[i]!;
       if (lat === MISSING_LAT || lon === MISSING_LON) continue;
       const y = yearOf(c.timeMin[i]!);
-      let m = positionsByYear.get(y);
-      if (m === undefined) {
-        m = new Map();
-        positionsByYear.set(y, m);
-      }
       const key = positionKey(lat, lon, c.elevM[i]!);
-      m.set(key, (m.get(key) ?? 0) + 1);
-      allPositions.set(key, (allPositions.get(key) ?? 0) + 1);
+      if (key !== runKey || y !== runYear) {
+        flush();
+        runKey = key;
+        runYear = y;
+      }
+      runN++;
     }
   }
+  flush();
   const siteByYear = new Map<number, { latMilli: number; lonMilli: number; elevM: number }>();
   for (const [y, m] of positionsByYear) siteByYear.set(y, keyToPosition(modeOf(m)!));
 
-  // Pass 2: classify every record.
-  const keptTime = new Int32Array(total);
-  const keptTemp = new Int16Array(total);
-  const keptSpecial = new Uint8Array(total);
-  let nKept = 0;
-  const seen = new Set<number>();
-  let presSum = 0;
-  let presN = 0;
+  // Pass 2: classify every record up to (not including) duplicates; passing records are gathered.
+  const pTime = new Int32Array(total);
+  const pTemp = new Int16Array(total);
+  const pSpecial = new Uint8Array(total);
+  const pType = new Uint8Array(total);
+  const pPres = new Int32Array(total);
+  let nPass = 0;
   const calls = new Map<string, number>();
   let name: string | null = null;
   const examples: string[] = [];
-  for (const { file, station } of parts) {
+  // Site verdict of the previous record's position and year (positions come in long runs).
+  let lastLat = Number.NaN;
+  let lastLon = Number.NaN;
+  let lastElev = Number.NaN;
+  let lastYear = Number.NaN;
+  let lastFar = false;
+  for (const { file, station, indices } of parts) {
     const c = file.records;
     const types = file.reportTypes.map(typeCode);
     for (const [k, n] of file.callLetters[station]!) calls.set(k, (calls.get(k) ?? 0) + n);
     name ??= file.stationNames[station] ?? null;
     for (const ex of file.malformedExamples) if (examples.length < 5) examples.push(ex);
-    for (let i = 0; i < c.count; i++) {
-      if (c.station[i] !== station) continue;
-      qc.read++;
+    qc.read += indices.length;
+    for (const i of indices) {
       const kind = c.kind[i]!;
       if (kind === KIND_MALFORMED) {
         qc.dropped.malformed++;
@@ -187,13 +230,20 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
       const lon = c.lonMilli[i]!;
       const elev = c.elevM[i]!;
       if (lat !== MISSING_LAT && lon !== MISSING_LON) {
-        const site = siteByYear.get(yearOf(t))!;
-        const far = distanceM(site.latMilli, site.lonMilli, lat, lon) > SITE_RADIUS_M;
-        const higher =
-          elev !== MISSING_ELEV &&
-          site.elevM !== MISSING_ELEV &&
-          Math.abs(elev - site.elevM) > SITE_ELEVATION_M;
-        if (far || higher) {
+        const y = yearOf(t);
+        if (lat !== lastLat || lon !== lastLon || elev !== lastElev || y !== lastYear) {
+          const site = siteByYear.get(y)!;
+          lastFar =
+            distanceM(site.latMilli, site.lonMilli, lat, lon) > SITE_RADIUS_M ||
+            (elev !== MISSING_ELEV &&
+              site.elevM !== MISSING_ELEV &&
+              Math.abs(elev - site.elevM) > SITE_ELEVATION_M);
+          lastLat = lat;
+          lastLon = lon;
+          lastElev = elev;
+          lastYear = y;
+        }
+        if (lastFar) {
           qc.dropped.otherSite++;
           continue;
         }
@@ -202,39 +252,53 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
       const q = c.tempQ[i]!;
       if (temp === MISSING_TEMP) qc.dropped.missing++;
       else if (temp < TEMP_MIN_TENTHS || temp > TEMP_MAX_TENTHS) qc.dropped.range++;
-      else if (Q_ERRONEOUS.has(q)) qc.dropped.erroneous++;
-      else if (Q_SUSPECT.has(q)) qc.dropped.suspect++;
+      else if (q === Q_ERRONEOUS_A || q === Q_ERRONEOUS_B) qc.dropped.erroneous++;
+      else if (q === Q_SUSPECT_A || q === Q_SUSPECT_B) qc.dropped.suspect++;
       else {
-        // Equal records (same time, report type and value), e.g. from overlapping files.
-        const key = ((t + 2 ** 30) * 2048 + (temp + 1024)) * 256 + types[c.type[i]!]!;
-        if (seen.has(key)) {
-          qc.dropped.duplicate++;
-          continue;
-        }
-        seen.add(key);
-        qc.kept++;
-        keptTime[nKept] = t;
-        keptTemp[nKept] = temp;
-        keptSpecial[nKept] = kind === KIND_SPECIAL ? 1 : 0;
-        nKept++;
-        const p = c.stationPresTenths[i]!;
-        if (p !== MISSING_PRESSURE) {
-          presSum += p;
-          presN++;
-        }
+        pTime[nPass] = t;
+        pTemp[nPass] = temp;
+        pSpecial[nPass] = kind === KIND_SPECIAL ? 1 : 0;
+        pType[nPass] = types[c.type[i]!]!;
+        pPres[nPass] = c.stationPresTenths[i]!;
+        nPass++;
       }
     }
   }
-  const order = timeOrder(keptTime, nKept);
-  const outTime = new Int32Array(nKept);
-  const outTemp = new Int16Array(nKept);
-  const outSpecial = new Uint8Array(nKept);
-  for (let j = 0; j < nKept; j++) {
+
+  // Time order (reading order among equal times), then duplicates: equal time, report type and value.
+  const order = timeOrder(pTime, nPass);
+  const keptTime = new Int32Array(nPass);
+  const keptTemp = new Int16Array(nPass);
+  const keptSpecial = new Uint8Array(nPass);
+  const keptIndex = new Uint32Array(nPass);
+  let nKept = 0;
+  let groupStart = 0; // first kept index with the current time
+  let presSum = 0;
+  let presN = 0;
+  for (let j = 0; j < nPass; j++) {
     const k = order === null ? j : order[j]!;
-    outTime[j] = keptTime[k]!;
-    outTemp[j] = keptTemp[k]!;
-    outSpecial[j] = keptSpecial[k]!;
+    const t = pTime[k]!;
+    if (nKept === 0 || keptTime[nKept - 1] !== t) groupStart = nKept;
+    let dup = false;
+    for (let g = groupStart; g < nKept && !dup; g++) {
+      const kg = keptIndex[g]!;
+      dup = pTemp[kg] === pTemp[k] && pType[kg] === pType[k];
+    }
+    if (dup) {
+      qc.dropped.duplicate++;
+      continue;
+    }
+    keptIndex[nKept] = k;
+    keptTime[nKept] = t;
+    keptTemp[nKept] = pTemp[k]!;
+    keptSpecial[nKept] = pSpecial[k]!;
+    nKept++;
+    if (pPres[k] !== MISSING_PRESSURE) {
+      presSum += pPres[k]!;
+      presN++;
+    }
   }
+  qc.kept = nKept;
   const posKey = modeOf(allPositions);
   let callLetters: string | null = null;
   let callN = 0;
@@ -243,11 +307,13 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
       callLetters = k;
       callN = n;
     }
+  const outTime = keptTime.slice(0, nKept);
+  const outTemp = keptTemp.slice(0, nKept);
   return {
     qc,
     keptTimeMin: outTime,
     keptTempTenths: outTemp,
-    keptSpecial: outSpecial,
+    keptSpecial: keptSpecial.slice(0, nKept),
     extremes: extremesOf(outTime, outTemp),
     meanStationPressureHpa: presN > 0 ? presSum / presN / 10 : null,
     position: posKey === null ? null : keyToPosition(posKey),
@@ -257,7 +323,10 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
   };
 }
 
-/** Stable time order of the first n entries, or null when they are already in order. */
+/**
+ * Time order of the first n entries, stable (reading order among equal times), or null when they are
+ * already in order. Sorts one Float64Array of time × 2^22 + index natively where that fits exactly.
+ */
 function timeOrder(time: Int32Array, n: number): Uint32Array | null {
   let sorted = true;
   for (let i = 1; i < n; i++)
@@ -266,6 +335,18 @@ function timeOrder(time: Int32Array, n: number): Uint32Array | null {
       break;
     }
   if (sorted) return null;
+  const SHIFT = 2 ** 22;
+  if (n < SHIFT) {
+    const keys = new Float64Array(n);
+    for (let i = 0; i < n; i++) keys[i] = time[i]! * SHIFT + i;
+    keys.sort();
+    const out = new Uint32Array(n);
+    for (let i = 0; i < n; i++) {
+      const key = keys[i]!;
+      out[i] = key - Math.floor(key / SHIFT) * SHIFT;
+    }
+    return out;
+  }
   const idx = Array.from({ length: n }, (_, i) => i);
   idx.sort((a, b) => time[a]! - time[b]! || a - b);
   return Uint32Array.from(idx);

@@ -9,11 +9,11 @@ import { open } from "node:fs/promises";
 import { basename } from "node:path";
 import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
-import { createGunzip } from "node:zlib";
+import { createGunzip, type ZlibOptions } from "node:zlib";
 import { parse } from "csv-parse";
 import { inputError } from "../errors.js";
 import { type CsvColumns, csvColumns, readCsvRecord } from "./csvHourly.js";
-import { createIsdLineState, looksLikeIsdLine, parseIsdLine } from "./isdFull.js";
+import { createIsdLineState, flushCalls, looksLikeIsdLine, parseIsdLine } from "./isdFull.js";
 import { looksLikeLiteLine, parseLiteLine, stationIdFromFileName } from "./isdLite.js";
 import {
   emptyParsedFile,
@@ -27,6 +27,8 @@ import {
 
 /** Bytes per read and per decompressed chunk, the same for the reader and the decompress-only baseline. */
 export const CHUNK_BYTES = 256 * 1024;
+/** How far decompression may run ahead of the reader. */
+const READ_AHEAD_BYTES = 8 * CHUNK_BYTES;
 /** A "line" longer than this is garbage: ISD records are at most 105 + 9999 characters. */
 const MAX_LINE_BYTES = 16 * 1024;
 /** How much of the start of a file is looked at to detect its layout. */
@@ -51,7 +53,11 @@ export async function isGzipFile(path: string): Promise<boolean> {
 export async function* readChunks(path: string): AsyncGenerator<Buffer> {
   const gz = await isGzipFile(path);
   const raw = createReadStream(path, { highWaterMark: CHUNK_BYTES });
-  const stream: Readable = gz ? raw.pipe(createGunzip({ chunkSize: CHUNK_BYTES })) : raw;
+  // The gunzip side may run ahead by a few chunks, so that decompression (on libuv's thread pool)
+  // overlaps with parsing on the main thread.
+  const stream: Readable = gz
+    ? raw.pipe(createGunzip({ chunkSize: CHUNK_BYTES, highWaterMark: READ_AHEAD_BYTES } as ZlibOptions))
+    : raw;
   if (gz) raw.on("error", (err) => stream.destroy(err));
   try {
     for await (const chunk of stream) yield chunk as Buffer;
@@ -168,9 +174,11 @@ async function readLines(
   options: ReadOptions,
 ): Promise<void> {
   let handle: (b: Uint8Array, s: number, e: number, lineNo: number) => void;
+  let finish = () => {};
   if (format === "isd") {
     const st = createIsdLineState(file);
     handle = (b, s, e, n) => parseIsdLine(st, b, s, e, n);
+    finish = () => flushCalls(st);
   } else {
     const id = options.stationIdOverride ?? stationIdFromFileName(basename(file.path));
     if (id === null)
@@ -236,6 +244,7 @@ async function readLines(
     lineNo++;
     tooLong(file, lineNo);
   } else if (carry !== null) line(carry, 0, carry.length);
+  finish();
   file.lines = lineNo;
 }
 

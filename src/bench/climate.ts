@@ -1,0 +1,133 @@
+/**
+ * Benchmark of the climate reader (issue 2): the full pipeline (gunzip, parse, quality control, site rule,
+ * hourly grid, gap filling) on ≥ 50 MB of ISD text built from the real samples, against decompression
+ * alone of the same file through the same stream setup and chunk size; then several files on worker
+ * threads against the same single-stream decompression. Warm-up, then the median of 5 runs each.
+ *
+ * Run: npx tsc -p tsconfig.build.json && node -e "import('./dist/bench/climate.js').then(m=>m.benchClimate())"
+ * The samples are read from ../shared/isd-samples beside the checkout, or from $COLDSOAK_ISD_SAMPLES.
+ */
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { fileURLToPath } from "node:url";
+import { gunzipSync, gzipSync } from "node:zlib";
+import { buildStations } from "../climate/load.js";
+import { readFilesInWorkers, workersAvailable } from "../climate/pool.js";
+import { readChunks, readClimateFile } from "../climate/source.js";
+
+const TARGET_BYTES = 50 * 1024 * 1024;
+const RUNS = 5;
+const PARALLEL_FILES = 4;
+const THREADS = 2;
+
+function samplesDir(): string {
+  return (
+    process.env.COLDSOAK_ISD_SAMPLES ??
+    fileURLToPath(new URL("../../../shared/isd-samples/", import.meta.url))
+  );
+}
+
+/**
+ * ISD text from the real samples, repeated with the year (POS 16-19) moved back one year per copy so that
+ * every copy is a new station-year, until at least `target` bytes. Returns one text per copy.
+ */
+function buildCopies(target: number): string[] {
+  const dir = samplesDir();
+  if (!existsSync(dir)) throw new Error(`benchmark needs the ISD samples: ${dir} is absent`);
+  const texts = readdirSync(dir)
+    .filter((n) => n.endsWith(".gz"))
+    .sort()
+    .map((n) => gunzipSync(readFileSync(join(dir, n))).toString("latin1"));
+  const base = texts.map((t) => (t.endsWith("\n") ? t : `${t}\n`)).join("");
+  const copies: string[] = [];
+  let size = 0;
+  for (let k = 0; size < target; k++) {
+    const shifted = base.replace(
+      /^(.{15})(\d{4})/gm,
+      (_, head: string, year: string) => head + String(+year - k),
+    );
+    copies.push(shifted);
+    size += shifted.length;
+  }
+  return copies;
+}
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)]!;
+}
+
+async function timeIt(fn: () => Promise<unknown>): Promise<number> {
+  await fn(); // warm-up
+  const times: number[] = [];
+  for (let i = 0; i < RUNS; i++) {
+    const t0 = process.hrtime.bigint();
+    await fn();
+    times.push(Number(process.hrtime.bigint() - t0) / 1e9);
+  }
+  return median(times);
+}
+
+async function decompressOnly(path: string): Promise<number> {
+  let n = 0;
+  for await (const chunk of readChunks(path)) n += chunk.length;
+  return n;
+}
+
+export async function benchClimate(): Promise<Record<string, number>> {
+  const dir = mkdtempSync(join(tmpdir(), "coldsoak-bench-climate-"));
+  try {
+    const copies = buildCopies(TARGET_BYTES);
+    const all = copies.join("");
+    const textBytes = Buffer.byteLength(all, "latin1");
+    const single = join(dir, "one.isd.gz");
+    writeFileSync(single, gzipSync(Buffer.from(all, "latin1")));
+    const parts: string[] = [];
+    for (let p = 0; p < PARALLEL_FILES; p++) {
+      const text = copies.filter((_, k) => k % PARALLEL_FILES === p).join("");
+      const path = join(dir, `part-${p}.isd.gz`);
+      writeFileSync(path, gzipSync(Buffer.from(text, "latin1")));
+      parts.push(path);
+    }
+    const mb = textBytes / 1e6;
+    console.log(
+      `climate reader benchmark: ${mb.toFixed(1)} MB of ISD text (${copies.length} copies of the samples)`,
+    );
+
+    const tDecompress = await timeIt(() => decompressOnly(single));
+    const tReader = await timeIt(async () => {
+      const parsed = await readClimateFile(single);
+      return buildStations([parsed], 3);
+    });
+    const decompressMBps = mb / tDecompress;
+    const readerMBps = mb / tReader;
+    console.log(`  gunzip only          ${decompressMBps.toFixed(1)} MB/s (median of ${RUNS})`);
+    console.log(
+      `  reader, one file     ${readerMBps.toFixed(1)} MB/s (gunzip + parse + QC + site rule + hourly grid)`,
+    );
+    console.log(`  reader / gunzip      ${(readerMBps / decompressMBps).toFixed(2)} (target >= 0.7)`);
+
+    let parallelMBps = Number.NaN;
+    if (workersAvailable()) {
+      const tParallel = await timeIt(async () => {
+        const parsed = await readFilesInWorkers(parts, {}, THREADS);
+        return buildStations(parsed, 3);
+      });
+      parallelMBps = mb / tParallel;
+      console.log(
+        `  reader, ${PARALLEL_FILES} files on ${THREADS} worker threads ${parallelMBps.toFixed(1)} MB/s; / single gunzip ${(parallelMBps / decompressMBps).toFixed(2)} (target >= 1.0)`,
+      );
+    } else console.log("  parallel run skipped: the compiled worker (dist/climate/worker.js) is not present");
+    return {
+      textMB: mb,
+      readerMBps,
+      decompressMBps,
+      readerVsDecompress: readerMBps / decompressMBps,
+      parallelMBps,
+      parallelVsDecompress: parallelMBps / decompressMBps,
+    };
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
