@@ -323,7 +323,7 @@ export async function renderChart(
   } finally {
     view.finalize();
   }
-  svg = prefixIds(svg, id);
+  svg = prefixIds(roundCoordinates(svg), id);
   const titleId = `${id}-title`;
   svg = svg.replace(
     /^<svg\b([^>]*)>/,
@@ -331,6 +331,19 @@ export async function renderChart(
       `<svg${attrs} role="img" aria-labelledby="${titleId}" id="${id}"><title id="${titleId}">${escapeXml(title)}</title>`,
   );
   return { id, title, svg, axisTitles };
+}
+
+/**
+ * Rounds long decimals inside tags (path data, transforms, positions) to 0.01 px, which no screen or
+ * printer resolves; text content is left alone. Keeps the inline SVG small.
+ */
+function roundCoordinates(svg: string): string {
+  return svg.replace(/<[^>]+>/g, (tag) =>
+    tag.replace(/-?\d+\.\d{3,}/g, (n) => {
+      const r = Math.round(Number(n) * 100) / 100;
+      return String(Object.is(r, -0) ? 0 : r);
+    }),
+  );
 }
 
 /** Renames every `id="…"` in one SVG to `<prefix>-<n>` and rewrites its `url(#…)` and `href="#…"` uses. */

@@ -243,7 +243,7 @@ async function traceFigure(
   const pts = trace.points;
   const xTitle = "Hours after the evening recharge";
   const xDomain: [number, number] = [0, Math.max(36, ...pts.map((p) => p.hour))];
-  const title = `${baseName}: ${trace.label}, ${trace.year}, starting ${trace.startLocal}`;
+  const title = `${baseName}: ${trace.label}, ${trace.year}, starting ${localTimeText(trace.startLocal)}`;
   const chart = await stackedChart(`${anchor}-trace-${kind}`, title, [
     {
       id: "",
@@ -506,7 +506,7 @@ async function buildBase(
     }
     traces.push({
       label,
-      detail: `${t.label}; year ${t.year}; starting ${t.startLocal} local time.`,
+      detail: `${t.label}; year ${t.year}; starting ${localTimeText(t.startLocal)} local time.`,
       figure: await traceFigure(figs, u, base.name, anchor, kind, t),
     });
   }
@@ -711,6 +711,14 @@ async function buildBase(
     nitrogenTotals,
     nitrogenStays,
   };
+}
+
+/** "2018-12-01T15:00:00-06:00" → "2018-12-01 15:00 (UTC−06:00)"; anything else is shown as given. */
+export function localTimeText(iso: string): string {
+  const m = /^(\d{4}-\d{2}-\d{2})T(\d{2}:\d{2})(?::\d{2}(?:\.\d+)?)?(Z|[+-]\d{2}:\d{2})?$/.exec(iso);
+  if (!m) return iso;
+  const zone = m[3] === undefined ? "" : m[3] === "Z" ? " (UTC)" : ` (UTC${m[3].replace("-", "\u2212")})`;
+  return `${m[1]} ${m[2]}${zone}`;
 }
 
 /** "2015-01-01T00:00:00Z" → "2015-01-01 00:00" (the column header says UTC). */

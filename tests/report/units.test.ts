@@ -8,6 +8,7 @@ import {
   SI_UNITS,
   US_UNITS,
 } from "../../src/report/units.js";
+import { localTimeText } from "../../src/report/view.js";
 import { makeResults } from "../fixtures/report/results.js";
 import { type Element, elements, inner, parseShown, type Token, textOf, tokenize } from "./html.js";
 
@@ -185,5 +186,15 @@ describe("report units: the same results in US and SI", () => {
         0.5 * 0.0328 + 0.005 * 1.2504,
       );
     }
+  });
+});
+
+describe("local time text", () => {
+  it("shows an ISO local time with its UTC offset, and leaves other text alone", () => {
+    // ISO 8601 / RFC 3339 offsets (common practice, no source).
+    expect(localTimeText("2018-12-01T15:00:00-06:00")).toBe("2018-12-01 15:00 (UTC\u221206:00)");
+    expect(localTimeText("2018-12-01T15:00:00+05:30")).toBe("2018-12-01 15:00 (UTC+05:30)");
+    expect(localTimeText("2018-12-01T15:00Z")).toBe("2018-12-01 15:00 (UTC)");
+    expect(localTimeText("not a time")).toBe("not a time");
   });
 });
