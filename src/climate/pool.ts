@@ -19,6 +19,30 @@ export function workersAvailable(): boolean {
 type Reply = { id: number; file?: ParsedFile; error?: { message: string; input: boolean } };
 
 /**
+ * Workers are kept between calls (started once, then reused): a worker costs tens of milliseconds to
+ * start. They are unreferenced between calls so that they never keep the process alive.
+ */
+const idle: Worker[] = [];
+
+function takeWorkers(n: number): Worker[] {
+  const out = idle.splice(0, n);
+  while (out.length < n) out.push(new Worker(WORKER_URL));
+  for (const w of out) w.ref();
+  return out;
+}
+
+function returnWorkers(workers: Worker[], healthy: boolean): void {
+  for (const w of workers) {
+    w.removeAllListeners("message");
+    w.removeAllListeners("error");
+    if (healthy) {
+      w.unref();
+      idle.push(w);
+    } else void w.terminate();
+  }
+}
+
+/**
  * Parses `paths` on up to `threads` workers; results come back in the order of `paths`. The first
  * failing file rejects the whole call (an InputError stays an InputError).
  */
@@ -29,10 +53,11 @@ export async function readFilesInWorkers(
   onDone?: (done: number) => void,
 ): Promise<ParsedFile[]> {
   const n = Math.max(1, Math.min(threads, paths.length));
-  const workers = Array.from({ length: n }, () => new Worker(WORKER_URL));
+  const workers = takeWorkers(n);
   const results: ParsedFile[] = new Array(paths.length);
   let next = 0;
   let done = 0;
+  let healthy = false;
   try {
     await Promise.all(
       workers.map(
@@ -57,8 +82,10 @@ export async function readFilesInWorkers(
           }),
       ),
     );
+    healthy = true;
   } finally {
-    await Promise.all(workers.map((w) => w.terminate()));
+    // After a failure other workers may still be busy: do not reuse them.
+    returnWorkers(workers, healthy);
   }
   return results;
 }
