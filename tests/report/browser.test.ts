@@ -145,6 +145,10 @@ describe.skipIf(SKIP)("report in a real browser", () => {
 });
 
 describe("PDF without a browser, and pdf command errors", () => {
+  it.runIf(IN_CI)("finds Chromium in CI (the browser tests must run there)", () => {
+    expect(HAVE_BROWSER, `no Chromium at ${chromiumPath()}`).toBe(true);
+  });
+
   it("returns ok: false with one line when no Chromium exists, writing nothing", async () => {
     vi.stubEnv("COLDSOAK_CHROMIUM", "/nonexistent/chromium");
     try {
