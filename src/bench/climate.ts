@@ -58,15 +58,20 @@ function median(xs: number[]): number {
   return s[Math.floor(s.length / 2)]!;
 }
 
-async function timeIt(fn: () => Promise<unknown>): Promise<number> {
-  await fn(); // warm-up
-  const times: number[] = [];
-  for (let i = 0; i < RUNS; i++) {
-    const t0 = process.hrtime.bigint();
-    await fn();
-    times.push(Number(process.hrtime.bigint() - t0) / 1e9);
-  }
-  return median(times);
+/**
+ * Runs each job once to warm up, then RUNS rounds in which every job runs once (interleaved, so that a
+ * change in machine load touches all of them alike); returns each job's median seconds.
+ */
+async function timeInterleaved(jobs: (() => Promise<unknown>)[]): Promise<number[]> {
+  for (const job of jobs) await job();
+  const times: number[][] = jobs.map(() => []);
+  for (let r = 0; r < RUNS; r++)
+    for (let j = 0; j < jobs.length; j++) {
+      const t0 = process.hrtime.bigint();
+      await jobs[j]!();
+      times[j]!.push(Number(process.hrtime.bigint() - t0) / 1e9);
+    }
+  return times.map(median);
 }
 
 async function decompressOnly(path: string): Promise<number> {
@@ -95,30 +100,26 @@ export async function benchClimate(): Promise<Record<string, number>> {
       `climate reader benchmark: ${mb.toFixed(1)} MB of ISD text (${copies.length} copies of the samples)`,
     );
 
-    const tDecompress = await timeIt(() => decompressOnly(single));
-    const tReader = await timeIt(async () => {
-      const parsed = await readClimateFile(single);
-      return buildStations([parsed], 3);
-    });
-    const decompressMBps = mb / tDecompress;
-    const readerMBps = mb / tReader;
+    const parallel = workersAvailable();
+    const jobs: (() => Promise<unknown>)[] = [
+      () => decompressOnly(single),
+      async () => buildStations([await readClimateFile(single)], 3),
+    ];
+    if (parallel) jobs.push(async () => buildStations(await readFilesInWorkers(parts, {}, THREADS), 3));
+    const [tDecompress, tReader, tParallel] = await timeInterleaved(jobs);
+    const decompressMBps = mb / tDecompress!;
+    const readerMBps = mb / tReader!;
     console.log(`  gunzip only          ${decompressMBps.toFixed(1)} MB/s (median of ${RUNS})`);
     console.log(
       `  reader, one file     ${readerMBps.toFixed(1)} MB/s (gunzip + parse + QC + site rule + hourly grid)`,
     );
     console.log(`  reader / gunzip      ${(readerMBps / decompressMBps).toFixed(2)} (target >= 0.7)`);
-
-    let parallelMBps = Number.NaN;
-    if (workersAvailable()) {
-      const tParallel = await timeIt(async () => {
-        const parsed = await readFilesInWorkers(parts, {}, THREADS);
-        return buildStations(parsed, 3);
-      });
-      parallelMBps = mb / tParallel;
+    const parallelMBps = parallel ? mb / tParallel! : Number.NaN;
+    if (parallel)
       console.log(
         `  reader, ${PARALLEL_FILES} files on ${THREADS} worker threads ${parallelMBps.toFixed(1)} MB/s; / single gunzip ${(parallelMBps / decompressMBps).toFixed(2)} (target >= 1.0)`,
       );
-    } else console.log("  parallel run skipped: the compiled worker (dist/climate/worker.js) is not present");
+    else console.log("  parallel run skipped: the compiled worker (dist/climate/worker.js) is not present");
     return {
       textMB: mb,
       readerMBps,
