@@ -39,6 +39,15 @@ import {
 const CLIMATE_DIR = new URL("../../sample-data/climate/", import.meta.url);
 const YEARS = DEMO_LAST_YEAR - DEMO_FIRST_YEAR + 1;
 
+/** Every station-year as the generator writes it today (computed once, shared by the tests). */
+let generatedOnce: StationYearFile[] | null = null;
+function generatedFiles(): StationYearFile[] {
+  generatedOnce ??= DEMO_STATIONS.flatMap((st) =>
+    generateStationYears(st, DEMO_SEED, DEMO_FIRST_YEAR, DEMO_LAST_YEAR),
+  );
+  return generatedOnce;
+}
+
 describe("small functions of the weather model", () => {
   it("solves mid-month anchors whose piecewise-linear curve averages to each month's target", () => {
     // Target values invented (demo); the property is exact algebra, checked by numeric integration.
@@ -137,9 +146,7 @@ describe("committed demo climate files", () => {
   const files = readdirSync(CLIMATE_DIR).filter((f) => f.endsWith(".gz"));
   let generated: StationYearFile[];
   beforeAll(() => {
-    generated = DEMO_STATIONS.flatMap((st) =>
-      generateStationYears(st, DEMO_SEED, DEMO_FIRST_YEAR, DEMO_LAST_YEAR),
-    );
+    generated = generatedFiles();
   });
 
   it("holds one file per station and year, named USAF-WBAN-YEAR.gz", () => {
@@ -188,9 +195,7 @@ describe("the project's climate reader on the demo files", () => {
   let generated: StationYearFile[];
   beforeAll(async () => {
     stations = await loadClimate([CLIMATE_DIR.pathname], { gapHours: 3, cacheDir: null });
-    generated = DEMO_STATIONS.flatMap((st) =>
-      generateStationYears(st, DEMO_SEED, DEMO_FIRST_YEAR, DEMO_LAST_YEAR),
-    );
+    generated = generatedFiles();
   });
 
   it("finds the four invented stations with their positions and sensible time zones", () => {
