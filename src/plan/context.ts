@@ -14,6 +14,7 @@ import {
   type StarterSpec,
 } from "../physics/accumulator.js";
 import type { GasModel } from "../physics/nitrogen.js";
+import { type DischargeGrid, dischargeGrid } from "./dischargeGrid.js";
 import type { PointPressure, ProfileInput } from "./planFile.js";
 
 export function absPa(p: PointPressure, atmPa: number): number {
@@ -57,6 +58,8 @@ export interface ProfileContext {
   tauS: number;
   /** Nominal gas loss per unit, mol/s (the profile's pressure rate at the reference temperature and V0). */
   gasLossMolS: number;
+  /** Interpolated start discharges (null: exact physics at every start). */
+  dischargeGrid: DischargeGrid | null;
 }
 
 const BAND_MIN_K = 203.15;
@@ -104,6 +107,7 @@ export function profileContext(
   atmPa: number,
   coldStartOption: boolean,
   bandTableCache?: Map<string, BandTable>,
+  options: { exactDischarge?: boolean; gridCache?: Map<string, DischargeGrid> } = {},
 ): ProfileContext {
   const geometry = { v0M3: profile.accumulator.gasVolumeEmpty, vminM3: profile.accumulator.gasVolumeFull };
   const ref = profile.precharge.reference;
@@ -134,6 +138,17 @@ export function profileContext(
     bandTableCache?.set(bandKey, bandTable);
   }
   const count = coldStartOption ? profile.coldStartOption.count : 1;
+  const starter = {
+    minUsefulAbsPa: absPa(profile.starter.minUsefulPressure, atmPa),
+    returnAbsPa: absPa(profile.starter.returnPressure, atmPa),
+    isothermal: profile.starter.expansion === "isothermal",
+  };
+  let grid: DischargeGrid | null = null;
+  if (!options.exactDischarge) {
+    const gridKey = `${bandKey}|grid`;
+    grid = options.gridCache?.get(gridKey) ?? dischargeGrid(model, geometry, starter, nominalMol);
+    options.gridCache?.set(gridKey, grid);
+  }
   return {
     name: profile.name,
     model,
@@ -151,11 +166,7 @@ export function profileContext(
     systemNominalAbsPa: absPa(profile.system.nominal, atmPa),
     band,
     bandTable,
-    starter: {
-      minUsefulAbsPa: absPa(profile.starter.minUsefulPressure, atmPa),
-      returnAbsPa: absPa(profile.starter.returnPressure, atmPa),
-      isothermal: profile.starter.expansion === "isothermal",
-    },
+    starter,
     energyTable: profile.startEnergy.map((r) => ({ x: r.ambient, y: r.energy })),
     count,
     optionCount: profile.coldStartOption.count,
@@ -167,5 +178,6 @@ export function profileContext(
     handPump: { displacementM3: profile.handPump.displacement, efficiency: profile.handPump.efficiency },
     tauS: profile.thermalTimeConstant,
     gasLossMolS: profile.gasLoss.rate * molPerPa,
+    dischargeGrid: grid,
   };
 }

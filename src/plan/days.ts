@@ -25,6 +25,8 @@ export interface DayPlan {
   startHours: number[];
   /** Hangar intervals [from, to) in UTC ms. */
   hangar: [number, number][];
+  /** Local hour of each grid hour from the day's first, only on days that are not 24 hours long. */
+  localHours: number[] | null;
 }
 
 export interface DayOptions {
@@ -71,10 +73,10 @@ function instantOn(
 
 /** Local hour of day of a UTC instant inside the day. */
 export function localHourOf(day: DayPlan, utcMs: number, zone: string): number {
-  if (day.nextMidnightUtcMs - day.midnightUtcMs === 24 * HOUR_MS) {
-    return Math.floor((utcMs - day.midnightUtcMs) / HOUR_MS);
-  }
-  return DateTime.fromMillis(utcMs, { zone }).hour;
+  if (day.localHours === null) return Math.floor((utcMs - day.midnightUtcMs) / HOUR_MS);
+  const first = Math.ceil(day.midnightUtcMs / HOUR_MS) * HOUR_MS;
+  const h = day.localHours[(utcMs - first) / HOUR_MS];
+  return h ?? DateTime.fromMillis(utcMs, { zone }).hour;
 }
 
 /** The days of a stay (real dates) on climate year `climateYear` (the year its arrival maps onto). */
@@ -99,7 +101,15 @@ export function buildDays(realDays: CivilDate[], climateYear: number, opts: DayO
         hangar.push([inMs, outMs]);
       }
     }
+    let localHours: number[] | null = null;
+    if (len !== 24 * HOUR_MS) {
+      localHours = [];
+      for (let g = Math.ceil(midnight / HOUR_MS) * HOUR_MS; g < next; g += HOUR_MS) {
+        localHours.push(DateTime.fromMillis(g, { zone: opts.timeZone }).hour);
+      }
+    }
     return {
+      localHours,
       realIso: civilIso(real),
       climateIso: civilIso(c),
       climateYear: c.year,

@@ -8,7 +8,8 @@
  * above zero each aircraft has its own rate, so only stays of one aircraft with equal windows share.
  */
 import { DateTime } from "luxon";
-import { dailyRanges, monthlyClimate, stationSummary } from "../climate/index.js";
+import { filledHours, presentHours } from "../climate/index.js";
+import { localDays, MIN_HOURS_FOR_DAILY_RANGE } from "../climate/localTime.js";
 import type { HourlySeries, StationClimate } from "../climate/types.js";
 import { tabulatedGas } from "../physics/gasTable.js";
 import { N2_MOLAR_MASS_KG_MOL, realGas } from "../physics/nitrogen.js";
@@ -19,12 +20,14 @@ import { bandCurves } from "./bandCurves.js";
 import { type CivilDate, isoWeekday, stayDays } from "./calendar.js";
 import { absPa, type BandTable, type ProfileContext, profileContext } from "./context.js";
 import { buildDays, type DayPlan, HOUR_MS } from "./days.js";
+import type { DischargeGrid } from "./dischargeGrid.js";
 import { METHODS } from "./methods.js";
 import type { Plan } from "./planFile.js";
 import { drawWeekdays, gasLossFactor } from "./random.js";
 import type {
   AdviceRow,
   BaseResult,
+  ClimateMonthRow,
   HourRow,
   MonthRow,
   NitrogenBase,
@@ -55,6 +58,8 @@ export interface RunOptions {
 export interface RunStats {
   accumulatorHours: number;
   stayYearsSimulated: number;
+  /** Seconds spent in the hour-by-hour loop (simulateStayYear) alone. */
+  simulationS: number;
 }
 
 export const TRACE_HOURS = 36;
@@ -108,22 +113,65 @@ function dataYears(series: HourlySeries): [number, number] | null {
   ];
 }
 
+function isoUtc(ms: number): string {
+  return new Date(ms).toISOString().replace(".000Z", "Z");
+}
+
 function stationResult(s: StationClimate): StationResult {
-  const sum = stationSummary(s);
+  const n = s.series.tempC.length;
+  const hours = presentHours(s.series);
   return {
-    id: sum.id,
-    name: sum.name,
-    lat: sum.lat,
-    lon: sum.lon,
-    elevationM: sum.elevationM,
-    timeZone: sum.timeZone,
-    firstUtc: sum.firstUtc ?? "",
-    lastUtc: sum.lastUtc ?? "",
-    hours: sum.hours,
-    filledHours: sum.filledHours,
-    completeness: sum.completeness,
-    qc: sum.qc,
+    id: s.meta.id,
+    name: s.meta.name,
+    lat: s.meta.lat,
+    lon: s.meta.lon,
+    elevationM: s.meta.elevationM,
+    timeZone: s.meta.timeZone,
+    firstUtc: n > 0 ? isoUtc(s.series.startUtcMs) : "",
+    lastUtc: n > 0 ? isoUtc(s.series.startUtcMs + (n - 1) * HOUR_MS) : "",
+    hours,
+    filledHours: filledHours(s.series),
+    completeness: n > 0 ? hours / n : 0,
+    qc: s.qc,
   };
+}
+
+/**
+ * Local-time climatology of the merged series in one pass (the climate module's rules, brief §4):
+ * per local month the min, mean and max of the hourly values, and the daily ranges (local-day max −
+ * min for days with at least 20 hours present), each range tagged with its local year and month.
+ */
+function localClimatology(series: HourlySeries, timeZone: string) {
+  const { day, month } = localDays(series, timeZone);
+  const lo = new Array<number>(13).fill(Number.POSITIVE_INFINITY);
+  const hi = new Array<number>(13).fill(Number.NEGATIVE_INFINITY);
+  const sum = new Array<number>(13).fill(0);
+  const cnt = new Array<number>(13).fill(0);
+  const ranges: { year: number; month: number; rangeC: number }[] = [];
+  const n = series.tempC.length;
+  let i = 0;
+  while (i < n) {
+    const d = day[i]!;
+    const m = month[i]!;
+    let dlo = Number.POSITIVE_INFINITY;
+    let dhi = Number.NEGATIVE_INFINITY;
+    let count = 0;
+    for (; i < n && day[i] === d; i++) {
+      const v = series.tempC[i]!;
+      if (Number.isNaN(v)) continue;
+      count++;
+      if (v < dlo) dlo = v;
+      if (v > dhi) dhi = v;
+      if (v < lo[m]!) lo[m] = v;
+      if (v > hi[m]!) hi[m] = v;
+      sum[m]! += v;
+      cnt[m]!++;
+    }
+    if (count >= MIN_HOURS_FOR_DAILY_RANGE) {
+      ranges.push({ year: new Date(d * 86_400_000).getUTCFullYear(), month: m, rangeC: dhi - dlo });
+    }
+  }
+  return { lo, hi, sum, cnt, ranges };
 }
 
 /** Runs the whole plan on loaded climate data. Pure: the same inputs give the same Results. */
@@ -138,8 +186,9 @@ export function runPlan(
   const weekdaySet = new Set(weekdays);
   const allFlown = weekdays.length === 7;
   const warnings: string[] = [];
-  const stats: RunStats = { accumulatorHours: 0, stayYearsSimulated: 0 };
+  const stats: RunStats = { accumulatorHours: 0, stayYearsSimulated: 0, simulationS: 0 };
   const bandCache = new Map<string, BandTable>();
+  const gridCache = new Map<string, DischargeGrid>();
   const factorOf = new Map<string, number>();
   for (const s of stays) {
     const profile = plan.profiles.find((p) => p.name === s.profile)!;
@@ -235,7 +284,7 @@ export function runPlan(
     const k = `${pi}|${option}|${atmPa}`;
     let c = contexts.get(k);
     if (c === undefined) {
-      c = profileContext(plan.profiles[pi]!, model, atmPa, option, bandCache);
+      c = profileContext(plan.profiles[pi]!, model, atmPa, option, bandCache, { gridCache });
       contexts.set(k, c);
     }
     return c;
@@ -259,7 +308,10 @@ export function runPlan(
     };
     for (let gi = 0; gi < p.groups.length; gi++) {
       for (const y of p.years) {
-        const o = simulateStayYear(simInputs(gi, y));
+        const inputs = simInputs(gi, y);
+        const t0 = performance.now();
+        const o = simulateStayYear(inputs);
+        stats.simulationS += (performance.now() - t0) / 1000;
         outcomes.set(`${gi}|${y}`, o);
         stats.accumulatorHours += o.accumulatorHours;
         stats.stayYearsSimulated++;
@@ -416,14 +468,29 @@ function aggregateBase(
     );
   }
 
-  // Daily range (climatology) over the years used, by local month.
+  // Daily range (climatology) over the years used, by local month; monthly climate over all data.
   const usedYears = new Set(p.years);
+  const clim = localClimatology(p.clim.series, tz);
   const rangeByMonth = Array.from({ length: 13 }, () => [] as number[]);
+  const rangeByMonthAll = Array.from({ length: 13 }, () => [] as number[]);
   const allRanges: number[] = [];
-  for (const r of dailyRanges(p.clim.series, tz)) {
-    if (!usedYears.has(Number(r.localDate.slice(0, 4)))) continue;
-    rangeByMonth[Number(r.localDate.slice(5, 7))]!.push(r.rangeC);
+  for (const r of clim.ranges) {
+    rangeByMonthAll[r.month]!.push(r.rangeC);
+    if (!usedYears.has(r.year)) continue;
+    rangeByMonth[r.month]!.push(r.rangeC);
     allRanges.push(r.rangeC);
+  }
+  const climateMonths: ClimateMonthRow[] = [];
+  for (let month = 1; month <= 12; month++) {
+    const has = clim.cnt[month]! > 0;
+    climateMonths.push({
+      month,
+      minC: has ? clim.lo[month]! : null,
+      meanC: has ? clim.sum[month]! / clim.cnt[month]! : null,
+      maxC: has ? clim.hi[month]! : null,
+      meanDailyRangeC: mean(rangeByMonthAll[month]!),
+      p90DailyRangeC: quantile(rangeByMonthAll[month]!, 0.9),
+    });
   }
   const histogram: { lowC: number; highC: number; days: number }[] = [];
   if (allRanges.length > 0) {
@@ -538,7 +605,7 @@ function aggregateBase(
     timeZone: tz,
     yearsUsed: p.years,
     yearsSkipped: p.skipped,
-    climateMonths: monthlyClimate(p.clim.series, tz),
+    climateMonths,
     dailyRangeHistogram: histogram,
     months,
     outOfBandByHour,

@@ -17,6 +17,8 @@
  *   minYearShare: 0.8            # default 0.8: share of a window's hours present for a year to count
  *   minYears: 5                  # default 5: fewer usable years at a base gives a warning
  *   cacheDir: cache              # optional, relative to the plan file; default out/cache/climate
+ *   stationHistory: isd-history.csv   # optional station list (USAF,WBAN,STATION NAME,CTRY,STATE,ICAO,
+ *                                # LAT,LON,ELEV(M),BEGIN,END) for ISD-Lite files, which carry no position
  * bases:
  *   - name: North Field
  *     stations: ["725300-94846"] # ISD ids "USAF-WBAN", in priority order
@@ -274,6 +276,7 @@ export const planSchema = z
       minYearShare: z.number().min(0).max(1).default(0.8),
       minYears: z.number().int().min(1).default(5),
       cacheDir: z.string().min(1).optional(),
+      stationHistory: z.string().min(1).optional(),
     }),
     bases: z.array(baseSchema).min(1),
     profiles: z.array(profileSchema).min(1),

@@ -51,6 +51,9 @@ export async function loadPlanClimate(
     climateOptions({
       gapHours: plan.climate.gapHours,
       ...(cacheDir !== undefined ? { cacheDir } : {}),
+      ...(plan.climate.stationHistory !== undefined
+        ? { stationHistoryCsv: resolve(plan.dir, plan.climate.stationHistory) }
+        : {}),
       ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
     }),
   );

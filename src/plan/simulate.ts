@@ -167,6 +167,8 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
   const days = inp.days;
   if (days.length === 0) return out;
   const lossMolS = ctx.gasLossMolS * inp.gasLossFactor;
+  const grid = ctx.dischargeGrid;
+  const dischargeOut = new Float64Array(2);
   const tau = ctx.tauS;
   const decayHour = tau > 0 ? Math.exp(-HOUR_MS / 1000 / tau) : 0;
 
@@ -327,13 +329,23 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
         }
       }
       // Start discharge of one unit; n identical units deliver n times as much.
-      const d = startDischarge(model, geometry, 1, amountMol, accK, st.gasVolumeM3, ctx.starter);
+      let energyJ: number;
+      let endVolumeM3: number;
+      if (grid !== null) {
+        grid.lookup(amountMol, accK, st.gasVolumeM3, dischargeOut);
+        energyJ = dischargeOut[0]!;
+        endVolumeM3 = dischargeOut[1]!;
+      } else {
+        const d = startDischarge(model, geometry, 1, amountMol, accK, st.gasVolumeM3, ctx.starter);
+        energyJ = d.hydraulicEnergyJ;
+        endVolumeM3 = d.end.gasVolumeM3;
+      }
       if (counted) {
         out.starts.push({
           month: day.month,
           ambientC: ambK - K0,
-          energyOneJ: d.hydraulicEnergyJ,
-          energyTwoJ: d.hydraulicEnergyJ * ctx.optionCount,
+          energyOneJ: energyJ,
+          energyTwoJ: energyJ * ctx.optionCount,
           requiredJ: interpolateClamped(ctx.energyTable, ambK),
         });
       }
@@ -344,7 +356,7 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
         ctx.count,
         amountMol,
         accK,
-        d.end.gasVolumeM3,
+        endVolumeM3,
         ctx.systemNominalAbsPa,
         ctx.pump,
       );
