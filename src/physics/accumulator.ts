@@ -7,7 +7,7 @@
  * and fluid volumes only.
  */
 import { InputError } from "../errors.js";
-import { type GasModel, isentropicToPressure, isentropicToVolume } from "./nitrogen.js";
+import { type GasModel, isentropicExpansionEnd } from "./nitrogen.js";
 
 export interface AccumulatorGeometry {
   /** Gas volume with the piston on the fluid-side stop (0 % fill), m³. */
@@ -421,15 +421,12 @@ export function startDischarge(
     p2 = v2 === geometry.v0M3 ? pAtV0 : starter.minUsefulAbsPa;
     workPerUnit = amountMol * (model.helmholtzJMol(rho1, tempK) - model.helmholtzJMol(amountMol / v2, tempK));
   } else {
-    const atV0 = isentropicToVolume(model, amountMol, tempK, v1, geometry.v0M3);
-    const end =
-      atV0.pressurePa >= starter.minUsefulAbsPa
-        ? atV0
-        : isentropicToPressure(model, rho1, tempK, starter.minUsefulAbsPa);
-    v2 = amountMol / end.densityMolM3;
+    const end = isentropicExpansionEnd(model, rho1, tempK, amountMol / geometry.v0M3, starter.minUsefulAbsPa);
+    // On the V0 stop the volume is exactly V0 (the density end was solved at n/V0).
+    v2 = end.pressurePa > starter.minUsefulAbsPa ? geometry.v0M3 : amountMol / end.densityMolM3;
     t2 = end.tempK;
     p2 = end.pressurePa;
-    workPerUnit = amountMol * (u1 - model.internalEnergyJMol(end.densityMolM3, end.tempK));
+    workPerUnit = amountMol * (u1 - end.internalEnergyJMol);
   }
   const dv = v2 - v1;
   return {

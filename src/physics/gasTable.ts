@@ -9,7 +9,7 @@
  * 0…40 MPa; outside it, and for every other property, the underlying model answers.
  */
 import { InputError } from "../errors.js";
-import { type DensityOptions, type GasModel, N2_GAS_CONSTANT_J_MOLK } from "./nitrogen.js";
+import { type DensityOptions, type GasModel, idealGas, N2_GAS_CONSTANT_J_MOLK } from "./nitrogen.js";
 
 const R = N2_GAS_CONSTANT_J_MOLK;
 
@@ -25,7 +25,7 @@ export interface GasTableGrid {
 
 /** Default grid: errors below 0.005 % against the full equation (tests/physics/gasTable.test.ts). */
 export const DEFAULT_GAS_TABLE_GRID: GasTableGrid = {
-  minTempK: 203.15,
+  minTempK: 143.15,
   maxTempK: 373.15,
   tempStepK: 2,
   maxDensityMolM3: 24000,
@@ -37,8 +37,9 @@ export const DEFAULT_GAS_TABLE_GRID: GasTableGrid = {
 const cache = new Map<GasModel, GasModel>();
 
 /**
- * Interpolation-table version of `model` (same interface, kind "table"). Fast for pressurePa,
- * pressureAndSlope and densityMolM3 inside the grid; all other properties come from `model` itself.
+ * Interpolation-table version of `model` (same interface, kind "table"). Inside the grid pressure,
+ * density, Z, entropy, internal energy, cv and stateProperties come from the tables; cp, speed of
+ * sound and Helmholtz energy (and everything outside the grid) come from `model` itself.
  * Tables for the default grid are built once per model and shared.
  */
 export function tabulatedGas(model: GasModel, grid: GasTableGrid = DEFAULT_GAS_TABLE_GRID): GasModel {
@@ -61,12 +62,36 @@ function buildTable(base: GasModel, grid: GasTableGrid): GasModel {
   const rhoMax = (nRho - 1) * hRho;
   const pMax = (nP - 1) * hP;
 
-  // zRho[i*nRho + j] = Z(T_i, ρ_j); zP[i*nP + k] = Z(T_i, P_k)
+  // zRho[i*nRho + j] = Z(T_i, ρ_j); zP[i*nP + k] = Z(T_i, P_k). For the isentropic start discharge also
+  // (∂P/∂T)_ρ/(ρR) and the residual (real minus ideal-gas) entropy, internal energy and cv on the (T, ρ)
+  // grid; the ideal-gas parts are evaluated exactly (they hold the ln ρ singularity).
   const zRho = new Float64Array(nT * nRho);
+  const zT = new Float64Array(nT * nRho);
+  const sRes = new Float64Array(nT * nRho);
+  const uRes = new Float64Array(nT * nRho);
+  const cvRes = new Float64Array(nT * nRho);
   const zP = new Float64Array(nT * nP);
+  const real6 = new Float64Array(6);
+  const ideal6 = new Float64Array(6);
   for (let i = 0; i < nT; i++) {
     const t = t0 + i * hT;
-    for (let j = 0; j < nRho; j++) zRho[i * nRho + j] = base.compressibility(j * hRho, t);
+    for (let j = 0; j < nRho; j++) {
+      const at = i * nRho + j;
+      if (j === 0) {
+        // zero density: the residual part vanishes
+        zRho[at] = 1;
+        zT[at] = 1;
+        continue;
+      }
+      const rho = j * hRho;
+      base.stateProperties(rho, t, real6);
+      idealGas.stateProperties(rho, t, ideal6);
+      zRho[at] = real6[0]! / (rho * R * t);
+      zT[at] = real6[2]! / (rho * R);
+      sRes[at] = real6[3]! - ideal6[3]!;
+      uRes[at] = real6[4]! - ideal6[4]!;
+      cvRes[at] = real6[5]! - ideal6[5]!;
+    }
     zP[i * nP] = base.compressibility(0, t);
     for (let k = 1; k < nP; k++) {
       const p = k * hP;
@@ -102,6 +127,35 @@ function buildTable(base: GasModel, grid: GasTableGrid): GasModel {
     out[1] = rt * (z + rho * dz);
     return true;
   }
+
+  /**
+   * All six stateProperties slots from the tables (bilinear) plus the exact ideal-gas parts; false
+   * outside the grid or at zero density.
+   */
+  function lookupState(rho: number, tempK: number, out: Float64Array): boolean {
+    if (!(rho > 0 && lookupP(rho, tempK, out))) return false;
+    const x = (tempK - t0) * invHT;
+    let i = Math.floor(x);
+    if (i >= nT - 1) i = nT - 2;
+    const fx = x - i;
+    const y = rho * invHRho;
+    let j = Math.floor(y);
+    if (j >= nRho - 1) j = nRho - 2;
+    const fy = y - j;
+    const a = i * nRho + j;
+    const b = a + nRho;
+    const w00 = (1 - fx) * (1 - fy);
+    const w01 = (1 - fx) * fy;
+    const w10 = fx * (1 - fy);
+    const w11 = fx * fy;
+    idealGas.stateProperties(rho, tempK, ideal6);
+    out[2] = rho * R * (w00 * zT[a]! + w01 * zT[a + 1]! + w10 * zT[b]! + w11 * zT[b + 1]!);
+    out[3] = ideal6[3]! + (w00 * sRes[a]! + w01 * sRes[a + 1]! + w10 * sRes[b]! + w11 * sRes[b + 1]!);
+    out[4] = ideal6[4]! + (w00 * uRes[a]! + w01 * uRes[a + 1]! + w10 * uRes[b]! + w11 * uRes[b + 1]!);
+    out[5] = ideal6[5]! + (w00 * cvRes[a]! + w01 * cvRes[a + 1]! + w10 * cvRes[b]! + w11 * cvRes[b + 1]!);
+    return true;
+  }
+  const state6 = new Float64Array(6);
 
   function checkArgs(rho: number, tempK: number): void {
     if (!(rho >= 0 && Number.isFinite(rho)))
@@ -141,12 +195,31 @@ function buildTable(base: GasModel, grid: GasTableGrid): GasModel {
       if (lookupP(rho, tempK, scratch)) rho -= (scratch[0]! - pressurePa) / scratch[1]!;
       return rho;
     },
-    stateProperties: (rho, t, out) => base.stateProperties(rho, t, out),
-    compressibility: (rho, t) => base.compressibility(rho, t),
-    internalEnergyJMol: (rho, t) => base.internalEnergyJMol(rho, t),
-    entropyJMolK: (rho, t) => base.entropyJMolK(rho, t),
+    stateProperties(rho, t, out) {
+      checkArgs(rho, t);
+      if (!lookupState(rho, t, out)) base.stateProperties(rho, t, out);
+    },
+    compressibility(rho, t) {
+      checkArgs(rho, t);
+      return lookupP(rho, t, scratch)
+        ? rho > 0
+          ? scratch[0]! / (rho * R * t)
+          : 1
+        : base.compressibility(rho, t);
+    },
+    internalEnergyJMol(rho, t) {
+      checkArgs(rho, t);
+      return lookupState(rho, t, state6) ? state6[4]! : base.internalEnergyJMol(rho, t);
+    },
+    entropyJMolK(rho, t) {
+      checkArgs(rho, t);
+      return lookupState(rho, t, state6) ? state6[3]! : base.entropyJMolK(rho, t);
+    },
     helmholtzJMol: (rho, t) => base.helmholtzJMol(rho, t),
-    cvJMolK: (rho, t) => base.cvJMolK(rho, t),
+    cvJMolK(rho, t) {
+      checkArgs(rho, t);
+      return lookupState(rho, t, state6) ? state6[5]! : base.cvJMolK(rho, t);
+    },
     cpJMolK: (rho, t) => base.cpJMolK(rho, t),
     speedOfSoundMS: (rho, t) => base.speedOfSoundMS(rho, t),
   };

@@ -38,9 +38,14 @@ const TC = N2_CRITICAL_TEMP_K;
 const RHOC = N2_CRITICAL_DENSITY_MOL_M3;
 
 /** Ideal-gas part: α⁰ = ln δ + a1·ln τ + a2 + a3·τ + a4/τ + a5/τ² + a6/τ³ + a7·ln(1 − exp(−a8·τ)). */
-const A0 = [
-  2.5, -12.76952708, -0.00784163, -0.0001934819, -1.247742e-5, 6.678326e-8, 1.012941, 26.65788,
-] as const;
+const A1 = 2.5;
+const A2 = -12.76952708;
+const A3 = -0.00784163;
+const A4 = -0.0001934819;
+const A5 = -1.247742e-5;
+const A6 = 6.678326e-8;
+const A7 = 1.012941;
+const A8 = 26.65788;
 
 /**
  * Residual part, 36 terms: 6 polynomial n·δ^d·τ^t, 26 exponential n·δ^d·τ^t·exp(−δ^c) and 4 Gaussian
@@ -210,40 +215,37 @@ function residual(delta: number, tau: number): void {
 
 /** Ideal-gas part without the ln δ term: α⁰ − ln δ. */
 function ideal0(tau: number): number {
-  const [a1, a2, a3, a4, a5, a6, a7, a8] = A0;
   return (
-    a1 * Math.log(tau) +
-    a2 +
-    a3 * tau +
-    a4 / tau +
-    a5 / (tau * tau) +
-    a6 / (tau * tau * tau) +
-    a7 * Math.log(1 - Math.exp(-a8 * tau))
+    A1 * Math.log(tau) +
+    A2 +
+    A3 * tau +
+    A4 / tau +
+    A5 / (tau * tau) +
+    A6 / (tau * tau * tau) +
+    A7 * Math.log(1 - Math.exp(-A8 * tau))
   );
 }
 /** τ·α⁰_τ. */
 function ideal1(tau: number): number {
-  const [a1, , a3, a4, a5, a6, a7, a8] = A0;
   return (
-    a1 +
-    a3 * tau -
-    a4 / tau -
-    (2 * a5) / (tau * tau) -
-    (3 * a6) / (tau * tau * tau) +
-    (a7 * a8 * tau) / Math.expm1(a8 * tau)
+    A1 +
+    A3 * tau -
+    A4 / tau -
+    (2 * A5) / (tau * tau) -
+    (3 * A6) / (tau * tau * tau) +
+    (A7 * A8 * tau) / Math.expm1(A8 * tau)
   );
 }
 /** τ²·α⁰_ττ. */
 function ideal2(tau: number): number {
-  const [a1, , , a4, a5, a6, a7, a8] = A0;
-  const x = a8 * tau;
+  const x = A8 * tau;
   const em = Math.expm1(x);
   return (
-    -a1 +
-    (2 * a4) / tau +
-    (6 * a5) / (tau * tau) +
-    (12 * a6) / (tau * tau * tau) -
-    (a7 * x * x * (em + 1)) / (em * em)
+    -A1 +
+    (2 * A4) / tau +
+    (6 * A5) / (tau * tau) +
+    (12 * A6) / (tau * tau * tau) -
+    (A7 * x * x * (em + 1)) / (em * em)
   );
 }
 
@@ -447,8 +449,12 @@ function bracketedNewton(target: number, tempK: number, start: number, hiStart: 
     else hi = Math.min(hi, rho);
     if (Math.abs(f) <= 1e-13 * target) return slope > 0 ? rho : Number.NaN;
     let next = slope > 0 ? rho - f / slope : Number.NaN;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - rho) <= 1e-14 * rho) return slope > 0 ? next : Number.NaN;
+    if (!(next > lo && next < hi)) {
+      // Bisect inside a known bracket; without an upper bound yet, step outward.
+      next = Number.isFinite(hi) ? 0.5 * (lo + hi) : Math.max(2 * rho, 1000);
+      if (next > 2e5) return Number.NaN;
+    }
+    if (Math.abs(next - rho) <= 1e-13 * rho) return slope > 0 ? next : Number.NaN;
     rho = next;
   }
   return slopeScratch > 0 ? rho : Number.NaN;
@@ -461,20 +467,26 @@ function reducedGibbsSansIdealT(rho: number, tempK: number): number {
 }
 
 function realDensity(pressurePa: number, tempK: number, guess?: number): number {
+  const idealGuess = pressurePa / (R * tempK);
+  if (tempK >= TC) {
+    // Above the critical temperature P(ρ) rises monotonically: one root, no upper bound needed up front.
+    const root = bracketedNewton(pressurePa, tempK, guess ?? idealGuess, Number.POSITIVE_INFINITY);
+    if (Number.isNaN(root)) {
+      throw new InputError(
+        `pressurePa: ${pressurePa} Pa at ${tempK} K is beyond the equation's density range`,
+      );
+    }
+    return root;
+  }
   // Upper bracket: a density where the equation's pressure exceeds the target.
   let hi = 40000;
   while (realPressureAndSlope(hi, tempK) <= pressurePa) {
     hi *= 1.25;
-    if (hi > 1e5)
+    if (hi > 1e5) {
       throw new InputError(
         `pressurePa: ${pressurePa} Pa at ${tempK} K is beyond the equation's density range`,
       );
-  }
-  const idealGuess = pressurePa / (R * tempK);
-  if (tempK >= TC) {
-    const root = bracketedNewton(pressurePa, tempK, guess ?? idealGuess, hi);
-    if (Number.isNaN(root)) throw new Error(`density search failed at ${pressurePa} Pa, ${tempK} K`);
-    return root;
+    }
   }
   // Below the critical temperature there can be a vapour-like and a liquid-like root: search from both
   // sides (and from the caller's guess) and keep the mechanically stable root of lowest Gibbs energy.
@@ -617,4 +629,45 @@ export function isentropicToPressure(
   const tGuess = tempK * (newPressurePa / p1) ** (R / cp1);
   const rhoGuess = densityMolM3 * (newPressurePa / p1) ** (ST[5]! / cp1);
   return isentropeAtPressure(model, s1, newPressurePa, rhoGuess, tGuess);
+}
+
+export interface ExpansionEnd extends GasState {
+  internalEnergyJMol: number;
+}
+
+/**
+ * End of an isentropic expansion from (ρ₁, T₁) that stops at whichever comes first: the density
+ * minDensityMolM3 (a volume stop) or the pressure minPressurePa. Solves the pressure end first
+ * (the common case for a starter) and the density end only if the pressure end lies beyond the stop.
+ * Returns the start state unchanged if it is already at or below minPressurePa.
+ */
+export function isentropicExpansionEnd(
+  model: GasModel,
+  densityMolM3: number,
+  tempK: number,
+  minDensityMolM3: number,
+  minPressurePa: number,
+): ExpansionEnd {
+  model.stateProperties(densityMolM3, tempK, ST);
+  const p1 = ST[0]!;
+  const s1 = ST[3]!;
+  const u1 = ST[4]!;
+  const cv1 = ST[5]!;
+  if (p1 <= minPressurePa || densityMolM3 <= minDensityMolM3) {
+    return { tempK, pressurePa: p1, densityMolM3, internalEnergyJMol: u1 };
+  }
+  const cp1 = cv1 + R; // ideal-gas estimate for the first guess only
+  const tGuess = tempK * (minPressurePa / p1) ** (R / cp1);
+  const rhoGuess = densityMolM3 * (minPressurePa / p1) ** (cv1 / cp1);
+  if (rhoGuess > minDensityMolM3 * 0.8) {
+    const atP = isentropeAtPressure(model, s1, minPressurePa, rhoGuess, tGuess);
+    if (atP.densityMolM3 >= minDensityMolM3) return { ...atP, internalEnergyJMol: ST[4]! };
+  }
+  const t = isentropeAtDensity(
+    model,
+    s1,
+    minDensityMolM3,
+    tempK * (minDensityMolM3 / densityMolM3) ** (R / cv1),
+  );
+  return { tempK: t, pressurePa: ST[0]!, densityMolM3: minDensityMolM3, internalEnergyJMol: ST[4]! };
 }
