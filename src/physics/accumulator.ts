@@ -183,6 +183,31 @@ export function lagTempK(tempK: number, ambientK: number, dtS: number, tauS: num
   return ambientK + (tempK - ambientK) * Math.exp(-dtS / tauS);
 }
 
+/** Seconds in an average month (365.25 days / 12), the unit of the gas-loss rate. */
+export const SECONDS_PER_MONTH = (365.25 / 12) * 86400;
+
+/**
+ * Slow gas loss (product brief, section 3): a precharge pressure drop per month, stated at the reference
+ * temperature with the piston on the fluid-side stop, converted to an amount lost per second:
+ * [ρ(P_ref, T_ref) − ρ(P_ref − ΔP, T_ref)]·V0 / month.
+ */
+export function gasLossMolPerS(
+  model: GasModel,
+  refAbsPa: number,
+  refTempK: number,
+  v0M3: number,
+  lossPaPerMonth: number,
+): number {
+  requirePositive("v0M3", v0M3, "m³");
+  requireNonNegative("lossPaPerMonth", lossPaPerMonth, "Pa");
+  if (!(lossPaPerMonth < refAbsPa))
+    fail("lossPaPerMonth", `${lossPaPerMonth} Pa must be below the reference ${refAbsPa} Pa`);
+  if (lossPaPerMonth === 0) return 0;
+  const lost =
+    (model.densityMolM3(refAbsPa, refTempK) - model.densityMolM3(refAbsPa - lossPaPerMonth, refTempK)) * v0M3;
+  return lost / SECONDS_PER_MONTH;
+}
+
 /** Hydraulic fluid properties for the trapped-charge model. */
 export interface FluidProps {
   /** Volumetric thermal expansion coefficient α, 1/K. */

@@ -5,6 +5,7 @@ import {
   type BandInputs,
   chargedState,
   gasAmountMol,
+  gasLossMolPerS,
   gasVolumeM3,
   handPumpStrokes,
   interpolateClamped,
@@ -286,6 +287,17 @@ describe("trapped charge", () => {
     const cold = trappedState(realGas, geometry, fluid, nearEmpty, cToK(-40), n);
     expect(cold.gasVolumeM3).toBe(geometry.v0M3);
     expect(cold.fluidPressureAbsPa).toBeLessThanOrEqual(cold.gasPressureAbsPa);
+  });
+});
+
+describe("gas loss", () => {
+  it("a pressure drop per month at the reference temperature becomes ΔP·V0/(R·T_ref) per month (ideal mode)", () => {
+    // Ideal gas law (textbook); month = 365.25/12 days (common practice, no source).
+    const rate = gasLossMolPerS(idealGas, psigToAbs(1450), fToK(70), 5e-3, psiToPa(10));
+    const expected = (psiToPa(10) * 5e-3) / (8.31451 * fToK(70)) / ((365.25 / 12) * 86400);
+    expect(rate / expected).toBeCloseTo(1, 9);
+    expect(gasLossMolPerS(realGas, psigToAbs(1450), fToK(70), 5e-3, 0)).toBe(0);
+    expect(() => gasLossMolPerS(realGas, psigToAbs(1450), fToK(70), 5e-3, -1)).toThrow(/lossPaPerMonth: -1/);
   });
 });
 
