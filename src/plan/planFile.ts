@@ -333,12 +333,15 @@ function nodeLine(doc: Document, lc: LineCounter, path: (string | number)[]): nu
   return 1;
 }
 
+const article = (noun: string) => (/^[aeiou]/.test(noun) ? `an ${noun}` : `a ${noun}`);
+
 function describeIssue(issue: z.core.$ZodIssue): string {
   switch (issue.code) {
     case "invalid_type":
-      if (issue.input === undefined)
-        return `missing; expected ${issue.expected === "nonoptional" ? "a value" : `a ${issue.expected}`}`;
-      return `expected a ${issue.expected}, found ${issue.input === null ? "nothing" : typeof issue.input}`;
+      if (issue.input === undefined) {
+        return `missing; expected ${issue.expected === "nonoptional" ? "a value" : article(issue.expected)}`;
+      }
+      return `expected ${article(issue.expected)}, found ${issue.input === null ? "nothing" : Array.isArray(issue.input) ? "a list" : typeof issue.input}`;
     case "unrecognized_keys":
       return `unknown key${issue.keys.length > 1 ? "s" : ""} ${issue.keys.map((k) => `"${k}"`).join(", ")}`;
     case "invalid_value":

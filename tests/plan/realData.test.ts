@@ -19,17 +19,28 @@ function q7(values: number[], p: number): number {
 
 describe.skipIf(!existsSync(FILE))("real data: 725300-94846-2014 (NOAA ISD sample), January–April", () => {
   it("coldest preflight = coldest hourly value at the first start hour; monthly P90 daily range from the series", async () => {
-    const plan = fixturePlan((t) => {
-      t.climate.paths = [FILE];
-      t.climate.years = { from: 2014, to: 2014 };
-      t.bases[0].stations = ["725300-94846"];
-      delete t.bases[0].hangar;
-      t.operations.startTimes = ["06:00", "14:00"];
-      t.operations.weekdays = 7;
-    }, fileURLToPath(new URL("plan.yaml", SAMPLES)));
+    const plan = fixturePlan(
+      (t) => {
+        t.climate.paths = [FILE];
+        t.climate.years = { from: 2014, to: 2014 };
+        t.bases[0].stations = ["725300-94846"];
+        delete t.bases[0].hangar;
+        t.operations.startTimes = ["06:00", "14:00"];
+        t.operations.weekdays = 7;
+      },
+      fileURLToPath(new URL("plan.yaml", SAMPLES)),
+    );
     const climate = await loadPlanClimate(plan, { cacheDir: null });
     const stays = [
-      { aircraft: "A1", base: "North Field", arrive: "2027-01-01", depart: "2027-05-01", coldStartOption: false, profile: "standard", line: 2 },
+      {
+        aircraft: "A1",
+        base: "North Field",
+        arrive: "2027-01-01",
+        depart: "2027-05-01",
+        coldStartOption: false,
+        profile: "standard",
+        line: 2,
+      },
     ];
     const { results } = runPlan(plan, stays, climate);
     const base = results.bases[0]!;
@@ -39,7 +50,11 @@ describe.skipIf(!existsSync(FILE))("real data: 725300-94846-2014 (NOAA ISD sampl
     const { series, timeZone } = climate.get("North Field")!;
     let coldest = Number.POSITIVE_INFINITY;
     const present = [0, 0, 0, 0, 0];
-    for (let d = DateTime.fromObject({ year: 2014, month: 1, day: 1, hour: 6 }, { zone: timeZone }); d.month <= 4; d = d.plus({ days: 1 })) {
+    for (
+      let d = DateTime.fromObject({ year: 2014, month: 1, day: 1, hour: 6 }, { zone: timeZone });
+      d.month <= 4;
+      d = d.plus({ days: 1 })
+    ) {
       const v = series.tempC[(d.toMillis() - series.startUtcMs) / 3_600_000];
       if (v !== undefined && !Number.isNaN(v)) {
         coldest = Math.min(coldest, v);
