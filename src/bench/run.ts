@@ -7,7 +7,8 @@
  *
  * Own figures:
  *   climateLoadColdSeconds / climateLoadWarmSeconds: loading the demo's climate files with an empty
- *     cache folder, then again with the cache filled; climateWarmOverCold is their ratio.
+ *     cache folder, then again with the cache filled (medians of three rounds); climateWarmOverCold is
+ *     their ratio.
  *   demoColdSeconds / demoWarmSeconds: the whole demo (`coldsoak plan sample-data/demo-plan.yaml`, a
  *     child process of the built CLI) run in a fresh working folder (empty cache), then again there.
  */
@@ -74,19 +75,40 @@ async function timed(fn: () => Promise<unknown>): Promise<number> {
   return (performance.now() - t0) / 1000;
 }
 
-/** Loads the demo's climate files into an empty cache folder, then again from the filled cache. */
+/** Median of a few numbers. */
+function median(values: number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  const mid = Math.floor(s.length / 2);
+  return s.length % 2 === 1 ? s[mid]! : (s[mid - 1]! + s[mid]!) / 2;
+}
+
+/** Repetitions of each climate load; the medians are reported. */
+const CLIMATE_LOAD_REPEATS = 3;
+
+/**
+ * Loads the demo's climate files into an empty cache folder, then again from the filled cache; each
+ * `CLIMATE_LOAD_REPEATS` times (a fresh empty folder for every cold load), medians reported.
+ */
 export async function benchClimateCache(): Promise<Figures> {
-  const cacheDir = mkdtempSync(join(os.tmpdir(), "coldsoak-bench-cache-"));
-  try {
-    const options = { gapHours: 3, cacheDir };
-    const cold = await timed(() => loadClimate([DEMO_CLIMATE], options));
-    const warm = await timed(() => loadClimate([DEMO_CLIMATE], options));
-    line(`climate load, empty cache:  ${cold.toFixed(3)} s (40 demo station-years)`);
-    line(`climate load, filled cache: ${warm.toFixed(3)} s`);
-    return { climateLoadColdSeconds: cold, climateLoadWarmSeconds: warm, climateWarmOverCold: warm / cold };
-  } finally {
-    rmSync(cacheDir, { recursive: true, force: true });
+  const colds: number[] = [];
+  const warms: number[] = [];
+  for (let i = 0; i < CLIMATE_LOAD_REPEATS; i++) {
+    const cacheDir = mkdtempSync(join(os.tmpdir(), "coldsoak-bench-cache-"));
+    try {
+      const options = { gapHours: 3, cacheDir };
+      colds.push(await timed(() => loadClimate([DEMO_CLIMATE], options)));
+      warms.push(await timed(() => loadClimate([DEMO_CLIMATE], options)));
+    } finally {
+      rmSync(cacheDir, { recursive: true, force: true });
+    }
   }
+  const cold = median(colds);
+  const warm = median(warms);
+  line(
+    `climate load, empty cache:  ${cold.toFixed(3)} s (40 demo station-years; median of ${CLIMATE_LOAD_REPEATS})`,
+  );
+  line(`climate load, filled cache: ${warm.toFixed(3)} s (median of ${CLIMATE_LOAD_REPEATS})`);
+  return { climateLoadColdSeconds: cold, climateLoadWarmSeconds: warm, climateWarmOverCold: warm / cold };
 }
 
 /** Runs the whole demo through the built CLI twice in a fresh working folder: empty cache, then filled. */
@@ -119,7 +141,7 @@ export function machine(): Record<string, string | number> {
 }
 
 function formatFigure(v: number): string {
-  return Math.abs(v) >= 1000 ? Math.round(v).toLocaleString("en-US") : v.toPrecision(3);
+  return Math.abs(v) >= 1000 ? Math.round(v).toLocaleString("en-US") : v.toPrecision(4);
 }
 
 export async function runBench(): Promise<number> {
