@@ -130,12 +130,19 @@ export interface SimOutcome {
 
 const K0 = 273.15;
 
+function inHangarAt(day: DayPlan, utcMs: number): boolean {
+  for (const [a, b] of day.hangar) if (utcMs >= a && utcMs < b) return true;
+  return false;
+}
+
 /** Ambient temperature (K) at an instant: the series linearly between grid hours; hangar replaces it. */
 function ambientK(inp: SimInputs, day: DayPlan, utcMs: number): number {
-  if (inp.hangarTempK !== null) {
-    for (const [a, b] of day.hangar) if (utcMs >= a && utcMs < b) return inp.hangarTempK;
-  }
-  const s = inp.series;
+  if (inp.hangarTempK !== null && inHangarAt(day, utcMs)) return inp.hangarTempK;
+  return seriesK(inp.series, utcMs);
+}
+
+/** Outdoor temperature (K) at an instant, linear between grid hours; NaN where missing. */
+function seriesK(s: HourlySeries, utcMs: number): number {
   const x = (utcMs - s.startUtcMs) / HOUR_MS;
   const i = Math.floor(x);
   if (i < 0 || i >= s.tempC.length) return Number.NaN;
@@ -187,10 +194,18 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
   const traceFrom = inp.trace?.fromUtcMs ?? Number.POSITIVE_INFINITY;
   const traceTo = inp.trace ? traceFrom + inp.trace.hours * HOUR_MS : Number.NEGATIVE_INFINITY;
 
-  /** Advances lag and gas loss from `cur` to `t`, with the ambient at `t`. Returns that ambient (NaN if missing). */
+  /**
+   * Advances lag and gas loss from `cur` to `t` with the ambient at `t` (the hangar's when the step's
+   * midpoint is in the hangar; steps never straddle a hangar boundary). Returns the ambient a
+   * technician reads at `t` (NaN if missing).
+   */
   const advance = (day: DayPlan, t: number): number => {
     const amb = ambientK(inp, day, t);
-    if (Number.isFinite(amb)) lastAmbK = amb;
+    const mid = (cur + t) / 2;
+    const inHangar =
+      inp.hangarTempK !== null && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
+    const stepAmb = inHangar ? inp.hangarTempK! : seriesK(inp.series, t);
+    if (Number.isFinite(stepAmb)) lastAmbK = stepAmb;
     const dtS = (t - cur) / 1000;
     if (dtS > 0) {
       const decay = tau <= 0 ? 0 : dtS === 3600 ? decayHour : Math.exp(-dtS / tau);
@@ -233,15 +248,31 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
     charged = chargedState(model, geometry, fluid, amountMol, accK, ctx.systemNominalAbsPa);
   };
 
+  let prevDay: DayPlan | null = null;
   for (let di = 0; di < days.length; di++) {
     const day = days[di]!;
-    if (day.midnightUtcMs !== cur) cur = day.midnightUtcMs; // 29 Feb fold or a skipped leap day
+    prevDay = di > 0 ? days[di - 1]! : null;
+    // A 29 February fold or a skipped leap day breaks the calendar: the state carries over as it is.
+    if (prevDay !== null && prevDay.nextMidnightUtcMs !== day.midnightUtcMs) cur = day.midnightUtcMs;
     const monthIdx = (day.month - 1) * 24;
     let si = 0;
     let g = Math.ceil(day.midnightUtcMs / HOUR_MS) * HOUR_MS;
+    const breaks = day.hangar
+      .flat()
+      .filter((b) => b % HOUR_MS !== 0 && b > day.midnightUtcMs && b < day.nextMidnightUtcMs)
+      .sort((a, b) => a - b);
+    let hb = 0;
     for (;;) {
       const nextStart = si < day.startsUtcMs.length ? day.startsUtcMs[si]! : Number.POSITIVE_INFINITY;
       const nextGrid = g < day.nextMidnightUtcMs ? g : Number.POSITIVE_INFINITY;
+      // A hangar boundary between grid hours ends a step there (no reading is taken).
+      while (hb < breaks.length && breaks[hb]! <= cur) hb++;
+      const nextBreak = hb < breaks.length ? breaks[hb]! : Number.POSITIVE_INFINITY;
+      if (nextBreak < nextGrid && nextBreak < nextStart) {
+        advance(day, nextBreak);
+        hb++;
+        continue;
+      }
       if (nextStart === Number.POSITIVE_INFINITY && nextGrid === Number.POSITIVE_INFINITY) break;
       if (nextGrid <= nextStart) {
         // Grid hour: what-if reading of the trapped charge against the band at ambient.

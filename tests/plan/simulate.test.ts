@@ -113,3 +113,41 @@ describe("simulation physics identities", () => {
     expect(out.drops[0]!.tempC).toBeCloseTo(40, 9);
   });
 });
+
+describe("hangar hours and the accumulator lag", () => {
+  it("the accumulator leaves a 15 °C hangar at 06:00 and follows −20 °C by the exact first-order lag", () => {
+    // Exact solution of dT/dt = (Ta − T)/τ for a constant ambient: T = Ta + (T0 − Ta)·exp(−t/τ)
+    // (first-order linear ODE); τ = 2 h, one hour outside: −20 + 35·e^(−1/2) °C.
+    const plan = fixturePlan((t) => {
+      oneLitreUnit(t);
+      t.profiles[0].thermalTimeConstant = "2 h";
+      t.bases[0].hangar = { temperature: "15 C", in: "18:00", out: "06:00" };
+      t.operations.startTimes = ["07:00", "12:00"];
+    });
+    const climate = syntheticClimate(() => -20, Date.UTC(2014, 0, 1), Date.UTC(2014, 0, 5));
+    const ctx = profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM, false);
+    const days = buildDays(stayDays("2027-01-01", "2027-01-04"), 2014, {
+      timeZone: "UTC",
+      startMinutes: plan.operations.startTimes,
+      flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
+      hangar: { inMin: 18 * 60, outMin: 6 * 60 },
+    });
+    const out = simulateStayYear({
+      ctx,
+      series: climate.series,
+      timeZone: "UTC",
+      days,
+      gasLossFactor: 1,
+      hangarTempK: 288.15,
+      prechargeCheckDays: 30,
+      policy: "log",
+    });
+    const p = out.preflights[1]!;
+    expect(p.ambientC).toBe(-20);
+    // Arrival at midnight in the hangar (15 °C) until 06:00, outside until 18:00, in the hangar
+    // until 06:00, then one hour outside before the second morning's preflight.
+    const lag = (t0: number, ta: number, hours: number) => ta + (t0 - ta) * Math.exp(-hours / 2);
+    const t = lag(lag(lag(15, -20, 12), 15, 12), -20, 1);
+    expect(p.accumulatorC).toBeCloseTo(t, 9);
+  });
+});
