@@ -111,7 +111,9 @@ export async function bandCommand(
 export function registerBand(program: Command): void {
   program
     .command("band")
-    .description("Print the precharge line, its tolerance lines and the reading band against temperature")
+    .description(
+      "print the precharge line, its tolerance lines and the fill-reading band against temperature",
+    )
     .argument("<plan.yaml>", "plan file whose profile to use")
     .option("--profile <name>", "profile name (default: the plan's first profile)")
     .option("--from <T>", "lowest temperature in the plan's unit (default −60 °F or −50 °C)")

@@ -1,17 +1,17 @@
 import type { Command } from "commander";
 import { registerBand } from "./band.js";
 import { registerClimate } from "./climate.js";
-import { registerPrecharge } from "./precharge.js";
+import { registerInit } from "./init.js";
 import { registerPdf } from "./pdf.js";
 import { registerPlan } from "./plan.js";
-import { registerInit } from "./init.js";
+import { registerPrecharge } from "./precharge.js";
 
-/** Adds every sub-command to the program. Each command lives in its own file of this folder. */
+/** Adds every sub-command to the program, in the order a new user meets them. */
 export function registerCommands(program: Command): void {
+  registerInit(program);
+  registerPlan(program);
   registerClimate(program);
   registerPrecharge(program);
-  registerPdf(program);
-  registerPlan(program);
   registerBand(program);
-  registerInit(program);
+  registerPdf(program);
 }

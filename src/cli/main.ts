@@ -17,7 +17,22 @@ export function buildProgram(): Command {
     )
     .version(TOOL_VERSION)
     .showHelpAfterError(false)
-    .exitOverride();
+    .exitOverride()
+    .addHelpText(
+      "after",
+      `
+Examples:
+  coldsoak init my-fleet                               start a plan of your own
+  coldsoak plan sample-data/demo-plan.yaml --pdf       run the demo scenario, write out/demo/report.html
+  coldsoak climate data/isd --units si                 summarise ISD climate files per station
+  coldsoak precharge --ref 1450psig@70F --at 50F       precharge at another temperature
+  coldsoak band sample-data/demo-plan.yaml             precharge line and fill-reading band table
+  coldsoak pdf out/demo/report.html                    print a report to PDF
+
+Run 'coldsoak <command> --help' for each command's options.
+Planning estimates, not maintenance data: service from the approved maintenance data and the
+manufacturer's instructions, follow local rules, and take high-pressure gas precautions.`,
+    );
   registerCommands(program);
   return program;
 }
@@ -56,6 +71,11 @@ function isEntryPoint(): boolean {
 }
 
 if (isEntryPoint()) {
+  // A reader that closes the pipe early (`coldsoak --help | head`) is not an error.
+  process.stdout.on("error", (err: NodeJS.ErrnoException) => {
+    if (err.code === "EPIPE") process.exit(process.exitCode ?? 0);
+    throw err;
+  });
   main(process.argv.slice(2)).then((code) => {
     process.exitCode = code;
   });

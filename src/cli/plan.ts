@@ -17,7 +17,7 @@ import type { Results } from "../plan/results.js";
 import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
 import { resultsJson, resultTables, toCsv } from "../plan/tables.js";
-import { renderReport } from "../report/index.js";
+import { renderReport, writePdf } from "../report/index.js";
 
 export interface PlanCliOptions {
   schedule?: string;
@@ -25,6 +25,7 @@ export interface PlanCliOptions {
   json?: boolean;
   cache: boolean;
   cacheDir?: string;
+  pdf?: boolean;
 }
 
 const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
@@ -149,7 +150,7 @@ export async function runPlanCommand(
   const out = new Map<string, string>();
   out.set("results.json", resultsJson(results));
   for (const t of resultTables(results)) out.set(`${t.name}.csv`, toCsv(t));
-  out.set("report.html", await renderReport(results));
+  out.set("report.html", await renderReport({ ...results, files: [...out.keys()] }));
   const folder = await writeOutputFolder(resolve(opts.out), plan.name, out);
   return { folder, results };
 }
@@ -158,7 +159,7 @@ export function registerPlan(program: Command): void {
   program
     .command("plan")
     .description(
-      "Simulate every stay of a deployment schedule over every year of climate record and write the planning report",
+      "simulate every stay of a deployment schedule over every year of climate record and write the planning report",
     )
     .argument(
       "<plan.yaml>",
@@ -167,6 +168,10 @@ export function registerPlan(program: Command): void {
     .option("--schedule <file>", "deployment schedule CSV (overrides the plan's `schedule:` key)")
     .option("--out <dir>", "output root folder; results go to <dir>/<plan name>/", "out")
     .option("--json", "print results.json on stdout instead of the summary")
+    .option(
+      "--pdf",
+      "also print the report to report.pdf through the system Chromium (skipped, with a note, when none)",
+    )
     .option("--no-cache", "read the climate files again instead of using the climate cache")
     .option(
       "--cache-dir <dir>",
@@ -196,6 +201,10 @@ manufacturer's instructions, follow local rules, and take high-pressure gas prec
     .action(async (planFile: string, opts: PlanCliOptions) => {
       const { folder, results } = await runPlanCommand(planFile, opts);
       for (const w of results.warnings) process.stderr.write(`warning: ${w}\n`);
+      if (opts.pdf) {
+        const pdf = await writePdf(join(folder, "report.html"), join(folder, "report.pdf"));
+        process.stderr.write(`${pdf.ok ? "pdf" : "pdf skipped"}: ${pdf.message}\n`);
+      }
       if (opts.json) {
         process.stdout.write(resultsJson(results));
       } else {

@@ -225,4 +225,6 @@ export interface Results {
   methods: MethodNote[];
   randomInputs: { name: string; description: string }[];
   warnings: string[];
+  /** Names of the files written beside the report (set by the CLI for the report's links; not in results.json). */
+  files?: string[];
 }

@@ -761,7 +761,7 @@ export async function buildView(results: Results, options: ViewOptions): Promise
   const actions: ActionRow[] = [];
   for (const b of results.bases) actions.push(...groupActions(b, shortPct));
 
-  const files = (results as Results & { files?: string[] }).files ?? ["results.json"];
+  const files = results.files ?? ["results.json"];
 
   return {
     plan: results.plan,
