@@ -13,13 +13,14 @@
  *     child process of the built CLI) run in a fresh working folder (empty cache), then again there.
  */
 import { execFile } from "node:child_process";
-import { existsSync, mkdtempSync, realpathSync, rmSync } from "node:fs";
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import { join } from "node:path";
 import { performance } from "node:perf_hooks";
 import { fileURLToPath } from "node:url";
 import { promisify } from "node:util";
 import { loadClimate } from "../climate/index.js";
+import { isMainModule } from "../entry.js";
 import { writeFileAtomic } from "../fsutil.js";
 
 const execFileAsync = promisify(execFile);
@@ -202,17 +203,7 @@ export async function runBench(): Promise<number> {
   return 0;
 }
 
-function isEntryPoint(): boolean {
-  const script = process.argv[1];
-  if (script === undefined) return false;
-  try {
-    return realpathSync(script) === fileURLToPath(import.meta.url);
-  } catch {
-    return false;
-  }
-}
-
-if (isEntryPoint()) {
+if (isMainModule(import.meta.url)) {
   runBench().then(
     (code) => {
       process.exitCode = code;

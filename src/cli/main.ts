@@ -1,11 +1,6 @@
 #!/usr/bin/env node
-/**
- * coldsoak command line: one sub-command per file in this folder, each exporting `register`.
- * Exit codes (product brief, section 6): 0 success, 2 input or usage error, 1 anything else.
- */
-import { realpathSync } from "node:fs";
-import { fileURLToPath } from "node:url";
 import { Command, CommanderError } from "commander";
+import { isMainModule } from "../entry.js";
 import { InputError } from "../errors.js";
 import { TOOL_VERSION } from "../version.js";
 import { registerCommands } from "./commands.js";
@@ -59,18 +54,7 @@ export async function main(argv: string[]): Promise<number> {
   }
 }
 
-/** True when this file is the program being run (directly or through the npm bin link). */
-function isEntryPoint(): boolean {
-  const script = process.argv[1];
-  if (script === undefined) return false;
-  try {
-    return realpathSync(script) === fileURLToPath(import.meta.url);
-  } catch {
-    return false;
-  }
-}
-
-if (isEntryPoint()) {
+if (isMainModule(import.meta.url)) {
   // A reader that closes the pipe early (`coldsoak --help | head`) is not an error.
   process.stdout.on("error", (err: NodeJS.ErrnoException) => {
     if (err.code === "EPIPE") process.exit(process.exitCode ?? 0);

@@ -1,5 +1,4 @@
 #!/usr/bin/env node
-import { realpathSync } from "node:fs";
 /**
  * Regenerates the demo's climate files: `npm run demo:climate` (or `node dist/demo/generate-climate.js
  * [folder]`). Writes one gzipped ISD full-format file per invented station and year into
@@ -9,6 +8,7 @@ import { realpathSync } from "node:fs";
 import { readFile } from "node:fs/promises";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
+import { isMainModule } from "../entry.js";
 import { writeFileAtomic } from "../fsutil.js";
 import { generateStationYears, gzipHoldsText, gzipText, type YearStats } from "./climateFiles.js";
 import { DEMO_FIRST_YEAR, DEMO_LAST_YEAR, DEMO_SEED, DEMO_STATIONS, stationId } from "./stations.js";
@@ -61,17 +61,7 @@ async function run(argv: string[]): Promise<void> {
   );
 }
 
-function isEntryPoint(): boolean {
-  const script = process.argv[1];
-  if (script === undefined) return false;
-  try {
-    return realpathSync(script) === fileURLToPath(import.meta.url);
-  } catch {
-    return false;
-  }
-}
-
-if (isEntryPoint()) {
+if (isMainModule(import.meta.url)) {
   run(process.argv.slice(2)).catch((err: unknown) => {
     process.stderr.write(`generate-climate: ${err instanceof Error ? err.message : String(err)}\n`);
     process.exitCode = 1;
