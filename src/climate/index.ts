@@ -15,5 +15,5 @@ export { buildStations, climateOptions, listClimateFiles, loadClimate, readClima
 export { dailyRanges, hourlyOffsetsMin, monthlyClimate, timeZoneFor } from "./localTime.js";
 export { TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "./qc.js";
 export { detectFormat, readClimateFile } from "./source.js";
-export { isoUtc, type StationSummary, stationSummary } from "./summary.js";
+export { isoUtc, type StationSummary, stationCoverage, stationSummary } from "./summary.js";
 export * from "./types.js";

@@ -28,7 +28,8 @@ export function isoUtc(ms: number): string {
   return new Date(ms).toISOString().replace(".000Z", "Z");
 }
 
-export function stationSummary(s: StationClimate): StationSummary {
+/** Identity and coverage of a station's series: the part of the summary the planning report shows. */
+export function stationCoverage(s: StationClimate): Omit<StationSummary, "extremes" | "months"> {
   const n = s.series.tempC.length;
   const hours = presentHours(s.series);
   return {
@@ -44,6 +45,12 @@ export function stationSummary(s: StationClimate): StationSummary {
     filledHours: filledHours(s.series),
     completeness: n > 0 ? hours / n : 0,
     qc: s.qc,
+  };
+}
+
+export function stationSummary(s: StationClimate): StationSummary {
+  return {
+    ...stationCoverage(s),
     extremes: s.extremes,
     months: monthlyClimate(s.series, s.meta.timeZone),
   };

@@ -8,7 +8,7 @@
  * above zero each aircraft has its own rate, so only stays of one aircraft with equal windows share.
  */
 import { DateTime } from "luxon";
-import { filledHours, presentHours } from "../climate/index.js";
+import { stationCoverage } from "../climate/index.js";
 import { localDays, MIN_HOURS_FOR_DAILY_RANGE } from "../climate/localTime.js";
 import type { HourlySeries, StationClimate } from "../climate/types.js";
 import { tabulatedGas } from "../physics/gasTable.js";
@@ -113,27 +113,9 @@ function dataYears(series: HourlySeries): [number, number] | null {
   ];
 }
 
-function isoUtc(ms: number): string {
-  return new Date(ms).toISOString().replace(".000Z", "Z");
-}
-
 function stationResult(s: StationClimate): StationResult {
-  const n = s.series.tempC.length;
-  const hours = presentHours(s.series);
-  return {
-    id: s.meta.id,
-    name: s.meta.name,
-    lat: s.meta.lat,
-    lon: s.meta.lon,
-    elevationM: s.meta.elevationM,
-    timeZone: s.meta.timeZone,
-    firstUtc: n > 0 ? isoUtc(s.series.startUtcMs) : "",
-    lastUtc: n > 0 ? isoUtc(s.series.startUtcMs + (n - 1) * HOUR_MS) : "",
-    hours,
-    filledHours: filledHours(s.series),
-    completeness: n > 0 ? hours / n : 0,
-    qc: s.qc,
-  };
+  const c = stationCoverage(s);
+  return { ...c, firstUtc: c.firstUtc ?? "", lastUtc: c.lastUtc ?? "" };
 }
 
 /**
