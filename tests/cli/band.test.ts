@@ -1,9 +1,9 @@
 import { mkdtemp, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
-import { main } from "../../src/cli/main.js";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { FIXTURE_TEXT } from "../plan/helpers.js";
+import { runCli } from "./runCli.js";
 
 let dir = "";
 beforeAll(async () => {
@@ -15,24 +15,7 @@ afterAll(async () => {
   await rm(dir, { recursive: true, force: true });
 });
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = "";
-  let err = "";
-  const o = vi.spyOn(process.stdout, "write").mockImplementation((s: string | Uint8Array) => {
-    out += String(s);
-    return true;
-  });
-  const e = vi.spyOn(process.stderr, "write").mockImplementation((s: string | Uint8Array) => {
-    err += String(s);
-    return true;
-  });
-  try {
-    return { code: await main(args), out, err };
-  } finally {
-    o.mockRestore();
-    e.mockRestore();
-  }
-}
+const run = runCli;
 
 const PSI_KPA = 6.894757293168; // NIST SP 811: 1 psi = 6.894 757 kPa
 

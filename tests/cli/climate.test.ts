@@ -4,32 +4,14 @@
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { afterAll, describe, expect, it, vi } from "vitest";
-import { main } from "../../src/cli/main.js";
+import { afterAll, describe, expect, it } from "vitest";
 import { HAVE_SAMPLES, sample } from "../climate/helpers.js";
+import { runCli } from "./runCli.js";
 
 const dir = mkdtempSync(join(tmpdir(), "coldsoak-cli-climate-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = "";
-  let err = "";
-  const o = vi.spyOn(process.stdout, "write").mockImplementation((c) => {
-    out += String(c);
-    return true;
-  });
-  const e = vi.spyOn(process.stderr, "write").mockImplementation((c) => {
-    err += String(c);
-    return true;
-  });
-  try {
-    const code = await main(args);
-    return { code, out, err };
-  } finally {
-    o.mockRestore();
-    e.mockRestore();
-  }
-}
+const run = runCli;
 
 describe.skipIf(!HAVE_SAMPLES)("coldsoak climate on a real sample", () => {
   it("--json gives the contract's fields, extremes in °C whatever the units", async () => {

@@ -3,11 +3,11 @@ import { mkdir, mkdtemp, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import fc from "fast-check";
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { parse, stringify } from "yaml";
 import { type SyntheticStation, writeSyntheticIsdLite } from "../../src/bench/plan.js";
-import { main } from "../../src/cli/main.js";
 import { FIXTURE_TEXT, type Tree } from "../plan/helpers.js";
+import { runCli } from "./runCli.js";
 
 const STATION: SyntheticStation = {
   id: "999801-99999", // invented id (synthetic climate)
@@ -33,25 +33,7 @@ function planText(edit: (t: Tree) => void = () => {}): string {
   return stringify(t);
 }
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = "";
-  let err = "";
-  const o = vi.spyOn(process.stdout, "write").mockImplementation((s: string | Uint8Array) => {
-    out += String(s);
-    return true;
-  });
-  const e = vi.spyOn(process.stderr, "write").mockImplementation((s: string | Uint8Array) => {
-    err += String(s);
-    return true;
-  });
-  try {
-    const code = await main(args);
-    return { code, out, err };
-  } finally {
-    o.mockRestore();
-    e.mockRestore();
-  }
-}
+const run = runCli;
 
 /** Writes plan + schedule in a fresh case folder (sharing the generated climate) and returns its paths. */
 let caseNo = 0;

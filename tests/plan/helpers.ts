@@ -1,6 +1,7 @@
 /** Shared helpers of the plan tests: the fixture plan with edits, and synthetic climate. */
 import { readFileSync } from "node:fs";
 import { parse, stringify } from "yaml";
+import { emptyQc } from "../../src/climate/qc.js";
 import type { StationClimate } from "../../src/climate/types.js";
 import type { BaseClimate } from "../../src/plan/engine.js";
 import { type Plan, parsePlanText } from "../../src/plan/planFile.js";
@@ -42,20 +43,7 @@ export function syntheticClimate(
       callLetters: null,
     },
     series,
-    qc: {
-      read: n,
-      kept: n,
-      dropped: {
-        malformed: 0,
-        summary: 0,
-        otherSite: 0,
-        missing: 0,
-        range: 0,
-        erroneous: 0,
-        suspect: 0,
-        duplicate: 0,
-      },
-    },
+    qc: { ...emptyQc(), read: n, kept: n },
     extremes: null,
     meanStationPressureHpa: null,
     malformedExamples: [],
