@@ -2,10 +2,16 @@
  * Cache of finished station series (product brief, section 4). One entry per set of input files; the
  * key hashes every file's content, the reader version, the quality rules and every option that changes
  * the series. An entry that cannot be read, fails its checksum or its schema is ignored and rebuilt.
+ *
+ * An entry is two files: `<key>.json`, a small JSON envelope whose body holds each station's metadata,
+ * counts and where its hourly values lie, and `<key>.bin`, those values as raw bytes (Float64 values
+ * then flag bytes per station, native byte order, which is part of the key). The body's checksum
+ * covers the body, and the body names the SHA-256 of the binary file, so a change to either is caught.
+ * A warm read is two file reads, one small JSON parse and typed-array views on the binary bytes.
  */
 import { createHash } from "node:crypto";
 import { createReadStream } from "node:fs";
-import { readFile } from "node:fs/promises";
+import { readFile, stat } from "node:fs/promises";
 import { endianness } from "node:os";
 import { join } from "node:path";
 import { z } from "zod";
@@ -35,9 +41,13 @@ export function resetCacheStats(): void {
   rebuilt = 0;
 }
 
-/** SHA-256 of a file's bytes, streamed. */
+/** Files up to this size are hashed from one read; larger ones are streamed. */
+const HASH_WHOLE_BYTES = 64 * 1024 * 1024;
+
+/** SHA-256 of a file's bytes (one read for files of usual size, streamed for larger ones). */
 export async function fileHash(path: string): Promise<string> {
   const h = createHash("sha256");
+  if ((await stat(path)).size <= HASH_WHOLE_BYTES) return h.update(await readFile(path)).digest("hex");
   for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 })) h.update(chunk as Buffer);
   return h.digest("hex");
 }
@@ -67,14 +77,21 @@ const stationSchema = z.object({
   }),
   startUtcMs: z.number(),
   hours: z.number().int().nonnegative(),
-  tempC: z.string(), // base64 of Float64 values
-  filled: z.string(), // base64 of bytes
+  /** Byte offset of the station's Float64 values in the binary file (a multiple of 8). */
+  tempOffset: z.number().int().nonnegative(),
+  /** Byte offset of its `filled` flags (one byte per hour). */
+  filledOffset: z.number().int().nonnegative(),
   qc: qcSchema,
   extremes: z
     .object({ minC: z.number(), minUtc: z.string(), maxC: z.number(), maxUtc: z.string() })
     .nullable(),
   meanStationPressureHpa: z.number().nullable(),
   malformedExamples: z.array(z.string()),
+});
+const bodySchema = z.object({
+  dataBytes: z.number().int().nonnegative(),
+  dataSha256: z.string(),
+  stations: z.array(stationSchema),
 });
 const entrySchema = z.object({
   kind: z.literal("coldsoak-climate-cache"),
@@ -83,43 +100,74 @@ const entrySchema = z.object({
   body: z.string(),
 });
 
-function sha256(text: string): string {
-  return createHash("sha256").update(text).digest("hex");
+function sha256(data: string | Uint8Array): string {
+  return createHash("sha256").update(data).digest("hex");
 }
 
-function encode(stations: StationClimate[]): string {
-  return JSON.stringify(
-    stations.map((s) => ({
+/** Rounds up to a multiple of 8 (Float64 alignment). */
+function align8(n: number): number {
+  return Math.ceil(n / 8) * 8;
+}
+
+/** The body text and the binary file of an entry. */
+function encode(stations: StationClimate[]): { body: string; data: Buffer } {
+  let size = 0;
+  const layout = stations.map((s) => {
+    const hours = s.series.tempC.length;
+    const tempOffset = size;
+    const filledOffset = tempOffset + hours * 8;
+    size = align8(filledOffset + hours);
+    return { tempOffset, filledOffset, hours };
+  });
+  const data = Buffer.alloc(size);
+  stations.forEach((s, i) => {
+    const { tempOffset, filledOffset } = layout[i]!;
+    const t = s.series.tempC;
+    data.set(new Uint8Array(t.buffer, t.byteOffset, t.byteLength), tempOffset);
+    data.set(s.series.filled, filledOffset);
+  });
+  const body = JSON.stringify({
+    dataBytes: size,
+    dataSha256: sha256(data),
+    stations: stations.map((s, i) => ({
       meta: s.meta,
       startUtcMs: s.series.startUtcMs,
-      hours: s.series.tempC.length,
-      tempC: Buffer.from(
-        s.series.tempC.buffer,
-        s.series.tempC.byteOffset,
-        s.series.tempC.byteLength,
-      ).toString("base64"),
-      filled: Buffer.from(s.series.filled).toString("base64"),
+      ...layout[i],
       qc: s.qc,
       extremes: s.extremes,
       meanStationPressureHpa: s.meanStationPressureHpa,
       malformedExamples: s.malformedExamples,
     })),
-  );
+  });
+  return { body, data };
 }
 
-function decode(body: string): StationClimate[] | null {
-  const parsed = z.array(stationSchema).safeParse(JSON.parse(body));
+/** The stations of an entry, or null when the binary file does not match the body. */
+function decode(body: string, data: Buffer): StationClimate[] | null {
+  const parsed = bodySchema.safeParse(JSON.parse(body));
   if (!parsed.success) return null;
+  const { dataBytes, dataSha256, stations } = parsed.data;
+  if (data.length !== dataBytes || sha256(data) !== dataSha256) return null;
+  // Float64 views need an 8-byte aligned start; a read buffer normally has one, else copy.
+  const bytes =
+    data.byteOffset % 8 === 0
+      ? data
+      : new Uint8Array(data.buffer.slice(data.byteOffset, data.byteOffset + data.length));
   const out: StationClimate[] = [];
-  for (const s of parsed.data) {
-    const tBytes = Buffer.from(s.tempC, "base64");
-    const filled = new Uint8Array(Buffer.from(s.filled, "base64"));
-    if (tBytes.length !== s.hours * 8 || filled.length !== s.hours) return null;
-    const tempC = new Float64Array(s.hours);
-    new Uint8Array(tempC.buffer).set(tBytes);
+  for (const s of stations) {
+    if (
+      s.tempOffset % 8 !== 0 ||
+      s.tempOffset + s.hours * 8 > dataBytes ||
+      s.filledOffset + s.hours > dataBytes
+    )
+      return null;
     out.push({
       meta: s.meta,
-      series: { startUtcMs: s.startUtcMs, tempC, filled },
+      series: {
+        startUtcMs: s.startUtcMs,
+        tempC: new Float64Array(bytes.buffer, bytes.byteOffset + s.tempOffset, s.hours),
+        filled: new Uint8Array(bytes.buffer, bytes.byteOffset + s.filledOffset, s.hours),
+      },
       qc: s.qc as StationClimate["qc"],
       extremes: s.extremes,
       meanStationPressureHpa: s.meanStationPressureHpa,
@@ -129,22 +177,33 @@ function decode(body: string): StationClimate[] | null {
   return out;
 }
 
+/** The JSON envelope of the entry for `key`. */
 export function cachePath(cacheDir: string, key: string): string {
   return join(cacheDir, `${key}.json`);
+}
+
+/** The binary file of the entry for `key`. */
+export function cacheDataPath(cacheDir: string, key: string): string {
+  return join(cacheDir, `${key}.bin`);
 }
 
 /** The cached stations for `key`, or null (absent, unreadable, corrupt: the caller rebuilds). */
 export async function readCache(cacheDir: string, key: string): Promise<StationClimate[] | null> {
   let text: string;
+  let data: Buffer;
   try {
-    text = await readFile(cachePath(cacheDir, key), "utf8");
+    [text, data] = await Promise.all([
+      readFile(cachePath(cacheDir, key), "utf8"),
+      readFile(cacheDataPath(cacheDir, key)),
+    ]);
   } catch {
     misses++;
     return null;
   }
   try {
     const entry = entrySchema.parse(JSON.parse(text));
-    const stations = entry.key === key && sha256(entry.body) === entry.checksum ? decode(entry.body) : null;
+    const stations =
+      entry.key === key && sha256(entry.body) === entry.checksum ? decode(entry.body, data) : null;
     if (stations !== null) {
       hits++;
       return stations;
@@ -157,8 +216,10 @@ export async function readCache(cacheDir: string, key: string): Promise<StationC
   return null;
 }
 
+/** Writes the binary file first, then the envelope: an envelope is only ever seen with its data. */
 export async function writeCache(cacheDir: string, key: string, stations: StationClimate[]): Promise<void> {
-  const body = encode(stations);
+  const { body, data } = encode(stations);
   const entry = { kind: "coldsoak-climate-cache", key, checksum: sha256(body), body };
+  await writeFileAtomic(cacheDataPath(cacheDir, key), data);
   await writeFileAtomic(cachePath(cacheDir, key), JSON.stringify(entry));
 }

@@ -52,11 +52,6 @@ function printable(b: Uint8Array, i: number, n: number): boolean {
   return true;
 }
 
-function sameBytes(a: Uint8Array, b: Uint8Array, i: number, n: number): boolean {
-  for (let k = 0; k < n; k++) if (a[k] !== b[i + k]) return false;
-  return true;
-}
-
 function ascii(b: Uint8Array, i: number, n: number): string {
   let s = "";
   for (let k = 0; k < n; k++) s += String.fromCharCode(b[i + k]!);
@@ -74,35 +69,55 @@ for (const ch of "01459M") GOOD_PRESSURE_Q[ch.charCodeAt(0)] = 1;
 export const ISD_FIXED_LENGTH = 105;
 
 /**
- * Reader state for one file: the station and report type of the previous line, compared byte by
- * byte so that strings are only built when they change.
+ * Reader state for one file: the station, report type and call letters of the previous line, each
+ * packed into a number from its bytes and compared as such, so that strings are only built when they
+ * change (and looked up by their packed bytes when they come back).
  */
 export interface IsdLineState {
   file: ParsedFile;
-  lastId: Uint8Array; // 11 bytes USAF+WBAN
+  lastUsaf: number; // POS 5-10 packed, -1 = none yet
+  lastWban: number; // POS 11-15 packed
   lastStation: number;
-  lastType: Uint8Array; // 5 bytes
+  lastType: number; // POS 42-46 packed, -1 = none yet
   lastTypeIdx: number;
   lastKind: number;
-  lastCall: Uint8Array; // 5 bytes
+  lastCall: number; // POS 52-56 packed, -1 = none yet
   lastCallText: string | null;
+  /** Report types and call letters seen in this file, by packed bytes. */
+  typeByKey: Map<number, { index: number; kind: number }>;
+  callByKey: Map<number, string>;
   lineEnd: number; // end of the line being read
   callRun: number; // lines since the call letters or station last changed
+  /** Date (year × 10000 + month × 100 + day) of the last good line and its first minute since 1970. */
+  lastDateKey: number;
+  lastDayMin: number;
 }
 
 export function createIsdLineState(file: ParsedFile): IsdLineState {
   return {
     file,
-    lastId: new Uint8Array(11),
+    lastUsaf: -1,
+    lastWban: -1,
     lastStation: -1,
-    lastType: new Uint8Array(5),
+    lastType: -1,
     lastTypeIdx: -1,
     lastKind: 0,
-    lastCall: new Uint8Array(5),
+    lastCall: -1,
     lastCallText: null,
+    typeByKey: new Map(),
+    callByKey: new Map(),
     lineEnd: 0,
     callRun: 0,
+    lastDateKey: -1,
+    lastDayMin: 0,
   };
+}
+
+/** n ≤ 6 bytes b[i..i+n) as one number (exact: at most 48 bits), to compare text fields without strings. */
+function packBytes(b: Uint8Array, i: number, n: number): number {
+  let v = 0;
+  for (let k = 0; k < n; k++) v = v * 256 + b[i + k]!;
+  return v;
 }
 
 /** Adds the current run of call letters to the station's counts (call at the end of a file too). */
@@ -118,7 +133,12 @@ function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, f
   // Attribute the line to the station its positions 5-15 name, if that is a station of the file;
   // otherwise resolveUnknownStations gives it the station of the line before.
   let station = UNKNOWN_STATION;
-  if (st.lastStation >= 0 && sameBytes(st.lastId, b, s + 4, 11)) station = st.lastStation;
+  if (
+    st.lastStation >= 0 &&
+    packBytes(b, s + 4, 6) === st.lastUsaf &&
+    packBytes(b, s + 10, 5) === st.lastWban
+  )
+    station = st.lastStation;
   else if (st.lineEnd >= s + 15 && printable(b, s + 4, 11)) {
     const known = st.file.stations.indexOf(`${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
     if (known >= 0) station = known;
@@ -128,110 +148,138 @@ function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, f
 }
 
 /**
+ * Reports why a line that failed the hot path's checks is malformed: the checks of the fixed part in
+ * the order the fields come, the first failure named (file:line:field: message).
+ */
+function reject(st: IsdLineState, b: Uint8Array, s: number, e: number, lineNo: number): void {
+  const len = e - s;
+  const bad = (field: string, why: string) => malformed(st, b, s, lineNo, field, why);
+  if (len < ISD_FIXED_LENGTH) return bad("length", `line has ${len} characters, the fixed part needs 105`);
+  const varChars = digits(b, s, 4);
+  if (varChars < 0) return bad("TOTAL-VARIABLE-CHARACTERS", "expected 4 digits at positions 1-4");
+  if (len !== ISD_FIXED_LENGTH + varChars)
+    return bad("length", `line has ${len} characters, positions 1-4 announce ${ISD_FIXED_LENGTH + varChars}`);
+  if (digits(b, s + 10, 5) < 0) return bad("WBAN", "expected 5 digits at positions 11-15");
+  const year = digits(b, s + 15, 4);
+  if (year < 0 || !isValidDate(year, digits(b, s + 19, 2), digits(b, s + 21, 2)))
+    return bad("date", "expected a calendar date YYYYMMDD at positions 16-23");
+  const hour = digits(b, s + 23, 2);
+  const minute = digits(b, s + 25, 2);
+  if (hour < 0 || hour > 23 || minute < 0 || minute > 59)
+    return bad("time", "expected HHMM (00-23, 00-59) at positions 24-27");
+  const lat = signed(b, s + 28, 5);
+  const lon = signed(b, s + 34, 6);
+  if (Number.isNaN(lat) || Number.isNaN(lon) || Number.isNaN(signed(b, s + 46, 4)))
+    return bad("position", "expected signed latitude, longitude and elevation (POS 29-51)");
+  if ((lat !== MISSING_LAT && Math.abs(lat) > 90_000) || (lon !== MISSING_LON && Math.abs(lon) > 180_000))
+    return bad("position", "latitude or longitude outside ±90°/±180°");
+  if (Number.isNaN(signed(b, s + 87, 4)))
+    return bad("TMP", "expected a sign and 4 digits at positions 88-92");
+  const tempQ = b[s + 92]!;
+  if (VALID_TEMP_Q[tempQ] !== 1)
+    return bad("TMP quality", `unknown quality code "${String.fromCharCode(tempQ)}"`);
+  if (Number.isNaN(signed(b, s + 93, 4)) || digits(b, s + 99, 5) < 0)
+    return bad("DEW/SLP", "expected dew point and sea-level pressure digits (POS 94-104)");
+  // Not reached: the hot path only calls here when one of the checks above fails.
+  return bad("line", "unreadable fixed part");
+}
+
+/**
  * Parses one line b[s..e) (without its line break) into the file's record columns; a line that
- * breaks the format is stored as a malformed record and noted with its line number.
+ * breaks the format is stored as a malformed record and noted with its line number (see reject).
  */
 export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: number, lineNo: number): void {
   const len = e - s;
   st.lineEnd = e;
-  if (len < ISD_FIXED_LENGTH) {
-    malformed(st, b, s, lineNo, "length", `line has ${len} characters, the fixed part needs 105`);
-    return;
-  }
-  const varChars = digits(b, s, 4);
-  if (varChars < 0) {
-    malformed(st, b, s, lineNo, "TOTAL-VARIABLE-CHARACTERS", "expected 4 digits at positions 1-4");
-    return;
-  }
-  if (len !== ISD_FIXED_LENGTH + varChars) {
-    malformed(
-      st,
-      b,
-      s,
-      lineNo,
-      "length",
-      `line has ${len} characters, positions 1-4 announce ${ISD_FIXED_LENGTH + varChars}`,
-    );
-    return;
-  }
-  if (digits(b, s + 10, 5) < 0) {
-    malformed(st, b, s, lineNo, "WBAN", "expected 5 digits at positions 11-15");
-    return;
-  }
-  // Date and time (POS 16-23, 24-27), UTC.
+  if (len < ISD_FIXED_LENGTH) return reject(st, b, s, e, lineNo);
+  // Date and time (POS 16-23, 24-27), UTC; a date seen on the line before is known to be valid.
   const year = digits(b, s + 15, 4);
   const month = digits(b, s + 19, 2);
   const day = digits(b, s + 21, 2);
   const hour = digits(b, s + 23, 2);
   const minute = digits(b, s + 25, 2);
-  if (year < 0 || !isValidDate(year, month, day)) {
-    malformed(st, b, s, lineNo, "date", "expected a calendar date YYYYMMDD at positions 16-23");
-    return;
-  }
-  if (hour < 0 || hour > 23 || minute < 0 || minute > 59) {
-    malformed(st, b, s, lineNo, "time", "expected HHMM (00-23, 00-59) at positions 24-27");
-    return;
-  }
+  const dateKey = year * 10_000 + month * 100 + day;
   const lat = signed(b, s + 28, 5);
   const lon = signed(b, s + 34, 6);
   const elev = signed(b, s + 46, 4);
-  if (Number.isNaN(lat) || Number.isNaN(lon) || Number.isNaN(elev)) {
-    malformed(st, b, s, lineNo, "position", "expected signed latitude, longitude and elevation (POS 29-51)");
-    return;
-  }
-  if ((lat !== MISSING_LAT && Math.abs(lat) > 90_000) || (lon !== MISSING_LON && Math.abs(lon) > 180_000)) {
-    malformed(st, b, s, lineNo, "position", "latitude or longitude outside ±90°/±180°");
-    return;
-  }
   const temp = signed(b, s + 87, 4);
   const tempQ = b[s + 92]!;
-  if (Number.isNaN(temp)) {
-    malformed(st, b, s, lineNo, "TMP", "expected a sign and 4 digits at positions 88-92");
-    return;
-  }
-  if (VALID_TEMP_Q[tempQ] !== 1) {
-    malformed(st, b, s, lineNo, "TMP quality", `unknown quality code "${String.fromCharCode(tempQ)}"`);
-    return;
-  }
   const dew = signed(b, s + 93, 4);
   const slp = digits(b, s + 99, 5);
-  if (Number.isNaN(dew) || slp < 0) {
-    malformed(st, b, s, lineNo, "DEW/SLP", "expected dew point and sea-level pressure digits (POS 94-104)");
-    return;
-  }
-  // Text fields become strings only when they differ from the line before; they must be printable.
-  if (!printable(b, s + 4, 6) || !printable(b, s + 41, 5) || !printable(b, s + 51, 5)) {
+  if (
+    len !== ISD_FIXED_LENGTH + digits(b, s, 4) || // also fails when POS 1-4 are not digits (-1)
+    digits(b, s + 10, 5) < 0 ||
+    year < 0 ||
+    (dateKey !== st.lastDateKey && !isValidDate(year, month, day)) ||
+    hour < 0 ||
+    hour > 23 ||
+    minute < 0 ||
+    minute > 59 ||
+    Number.isNaN(lat + lon + elev + temp + dew) ||
+    (lat !== MISSING_LAT && Math.abs(lat) > 90_000) ||
+    (lon !== MISSING_LON && Math.abs(lon) > 180_000) ||
+    VALID_TEMP_Q[tempQ] !== 1 ||
+    slp < 0
+  )
+    return reject(st, b, s, e, lineNo);
+  // Text fields: packed bytes compared with the line before; checked printable (and turned into
+  // strings) only when they differ from it.
+  const usaf = packBytes(b, s + 4, 6);
+  const wban = packBytes(b, s + 10, 5);
+  const typeKey = packBytes(b, s + 41, 5);
+  const callKey = packBytes(b, s + 51, 5);
+  const sameStation = usaf === st.lastUsaf && wban === st.lastWban;
+  if (
+    (!sameStation && !printable(b, s + 4, 6)) ||
+    (typeKey !== st.lastType && !printable(b, s + 41, 5)) ||
+    (callKey !== st.lastCall && !printable(b, s + 51, 5))
+  ) {
     malformed(st, b, s, lineNo, "characters", "non-printable bytes in the station, type or call letters");
     return;
   }
   // Station: USAF (POS 5-10) + WBAN (POS 11-15), created only once a line of it reads well.
   let station = st.lastStation;
-  if (station < 0 || !sameBytes(st.lastId, b, s + 4, 11)) {
+  if (station < 0 || !sameStation) {
     flushCalls(st);
     station = stationIndex(st.file, `${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
-    st.lastId.set(b.subarray(s + 4, s + 15));
+    st.lastUsaf = usaf;
+    st.lastWban = wban;
     st.lastStation = station;
     st.lastCallText = null;
   }
   // Report type (POS 42-46).
-  if (st.lastTypeIdx < 0 || !sameBytes(st.lastType, b, s + 41, 5)) {
-    const type = ascii(b, s + 41, 5).trim();
-    st.lastTypeIdx = reportTypeIndex(st.file, type);
-    st.lastKind = kindOfReportType(type);
-    st.lastType.set(b.subarray(s + 41, s + 46));
+  if (typeKey !== st.lastType) {
+    let known = st.typeByKey.get(typeKey);
+    if (known === undefined) {
+      const type = ascii(b, s + 41, 5).trim();
+      known = { index: reportTypeIndex(st.file, type), kind: kindOfReportType(type) };
+      st.typeByKey.set(typeKey, known);
+    }
+    st.lastTypeIdx = known.index;
+    st.lastKind = known.kind;
+    st.lastType = typeKey;
   }
   // Call letters (POS 52-56), counted per station (by runs) to find the usual ones.
-  if (st.lastCallText === null || !sameBytes(st.lastCall, b, s + 51, 5)) {
+  if (st.lastCallText === null || callKey !== st.lastCall) {
     flushCalls(st);
-    st.lastCall.set(b.subarray(s + 51, s + 56));
-    st.lastCallText = ascii(b, s + 51, 5).trim();
+    let text = st.callByKey.get(callKey);
+    if (text === undefined) {
+      text = ascii(b, s + 51, 5).trim();
+      st.callByKey.set(callKey, text);
+    }
+    st.lastCall = callKey;
+    st.lastCallText = text;
   }
   st.callRun++;
+  if (dateKey !== st.lastDateKey) {
+    st.lastDateKey = dateKey;
+    st.lastDayMin = daysFromCivil(year, month, day) * 1440;
+  }
 
   const c = st.file.records;
   const i = nextSlot(c);
   c.station[i] = station;
-  c.timeMin[i] = daysFromCivil(year, month, day) * 1440 + hour * 60 + minute;
+  c.timeMin[i] = st.lastDayMin + hour * 60 + minute;
   c.tempTenths[i] = temp;
   c.tempQ[i] = tempQ;
   c.dewTenths[i] = dew;
@@ -254,27 +302,51 @@ const R = 82;
 const E = 69;
 
 /**
+ * How far the search for "MA1" or "REM" may move on, given the byte at the last position of the
+ * current 3-byte window (Horspool's shift table for the two patterns together: R. N. Horspool,
+ * "Practical fast searching in strings", Software: Practice and Experience 10, 1980). The window is
+ * tested at every position where either pattern could start, in increasing order, so the first
+ * occurrence is never skipped.
+ */
+const SHIFT = new Uint8Array(256).fill(3);
+SHIFT[M] = 2; // "M" ends REM, starts MA1
+SHIFT[R] = 2;
+SHIFT[A] = 1;
+SHIFT[E] = 1;
+
+/**
  * Station pressure ×10 hPa from the MA1 group of the additional data section b[s..e) (which starts
  * with "ADD"), or MISSING_PRESSURE when absent, missing (99999) or not of good quality. The section is
- * scanned up to the remarks ("REM"); a match must be followed by the group's 12 characters
+ * searched up to the remarks ("REM"); a match must be followed by the group's 12 characters
  * (altimeter 5 digits, quality, station pressure 5 digits, quality).
  */
 export function stationPressure(b: Uint8Array, s: number, e: number): number {
   if (b[s] !== A || b[s + 1] !== 68 || b[s + 2] !== 68) return MISSING_PRESSURE; // "ADD"
-  for (let i = s + 3; i + 15 <= e; i++) {
-    const c = b[i];
-    if (c === R && b[i + 1] === E && b[i + 2] === M) return MISSING_PRESSURE; // "REM": remarks begin
-    if (c === M && b[i + 1] === A && b[i + 2] === ONE) {
-      if (digits(b, i + 3, 5) < 0) continue;
-      const p = digits(b, i + 9, 5);
-      const q = b[i + 14]!;
-      if (p < 0) continue;
-      if (p === MISSING_PRESSURE || GOOD_PRESSURE_Q[q] !== 1) return MISSING_PRESSURE;
-      if (p < 4500 || p > 10900) return MISSING_PRESSURE; // format document limits, 450.0-1090.0 hPa
-      return p;
-    }
+  for (let i = s + 3; i + 15 <= e; ) {
+    const c = b[i + 2]!;
+    if (c === ONE) {
+      if (b[i] === M && b[i + 1] === A) {
+        const p = ma1Pressure(b, i);
+        if (p >= 0) return p;
+      }
+    } else if (c === M && b[i] === R && b[i + 1] === E) return MISSING_PRESSURE; // remarks begin
+    i += SHIFT[c]!;
   }
   return MISSING_PRESSURE;
+}
+
+/**
+ * The MA1 group at b[i..i+15): its station pressure ×10 hPa, MISSING_PRESSURE when missing, of
+ * doubtful quality or out of range, or -1 when the group's digits are malformed (not a group).
+ */
+function ma1Pressure(b: Uint8Array, i: number): number {
+  if (digits(b, i + 3, 5) < 0) return -1;
+  const p = digits(b, i + 9, 5);
+  if (p < 0) return -1;
+  const q = b[i + 14]!;
+  if (p === MISSING_PRESSURE || GOOD_PRESSURE_Q[q] !== 1) return MISSING_PRESSURE;
+  if (p < 4500 || p > 10900) return MISSING_PRESSURE; // format document limits, 450.0-1090.0 hPa
+  return p;
 }
 
 /** True when a line looks like an ISD full-format record (used to detect the format). */

@@ -170,16 +170,17 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
   };
   let total = 0;
   for (const { file, indices } of parts) {
-    const c = file.records;
+    const { kind, latMilli, lonMilli, elevM, timeMin } = file.records;
     total += indices.length;
-    for (const i of indices) {
-      const kind = c.kind[i]!;
-      if (kind === KIND_MALFORMED || kind === KIND_SUMMARY) continue;
-      const lat = c.latMilli[i]!;
-      const lon = c.lonMilli[i]!;
+    for (let j = 0; j < indices.length; j++) {
+      const i = indices[j]!;
+      const k = kind[i]!;
+      if (k === KIND_MALFORMED || k === KIND_SUMMARY) continue;
+      const lat = latMilli[i]!;
+      const lon = lonMilli[i]!;
       if (lat === MISSING_LAT || lon === MISSING_LON) continue;
-      const y = yearOf(c.timeMin[i]!);
-      const key = positionKey(lat, lon, c.elevM[i]!);
+      const y = yearOf(timeMin[i]!);
+      const key = positionKey(lat, lon, elevM[i]!);
       if (key !== runKey || y !== runYear) {
         flush();
         runKey = key;
@@ -208,27 +209,30 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
   let lastElev = Number.NaN;
   let lastYear = Number.NaN;
   let lastFar = false;
+  const dropped = qc.dropped;
   for (const { file, station, indices } of parts) {
     const c = file.records;
-    const types = file.reportTypes.map(typeCode);
+    const { kind: kinds, timeMin, latMilli, lonMilli, elevM, tempTenths, tempQ, type, stationPresTenths } = c;
+    const types = Uint8Array.from(file.reportTypes.map(typeCode));
     for (const [k, n] of file.callLetters[station]!) calls.set(k, (calls.get(k) ?? 0) + n);
     name ??= file.stationNames[station] ?? null;
     for (const ex of file.malformedExamples) if (examples.length < 5) examples.push(ex);
     qc.read += indices.length;
-    for (const i of indices) {
-      const kind = c.kind[i]!;
+    for (let j = 0; j < indices.length; j++) {
+      const i = indices[j]!;
+      const kind = kinds[i]!;
       if (kind === KIND_MALFORMED) {
-        qc.dropped.malformed++;
+        dropped.malformed++;
         continue;
       }
       if (kind === KIND_SUMMARY) {
-        qc.dropped.summary++;
+        dropped.summary++;
         continue;
       }
-      const t = c.timeMin[i]!;
-      const lat = c.latMilli[i]!;
-      const lon = c.lonMilli[i]!;
-      const elev = c.elevM[i]!;
+      const t = timeMin[i]!;
+      const lat = latMilli[i]!;
+      const lon = lonMilli[i]!;
+      const elev = elevM[i]!;
       if (lat !== MISSING_LAT && lon !== MISSING_LON) {
         const y = yearOf(t);
         if (lat !== lastLat || lon !== lastLon || elev !== lastElev || y !== lastYear) {
@@ -244,22 +248,22 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
           lastYear = y;
         }
         if (lastFar) {
-          qc.dropped.otherSite++;
+          dropped.otherSite++;
           continue;
         }
       }
-      const temp = c.tempTenths[i]!;
-      const q = c.tempQ[i]!;
-      if (temp === MISSING_TEMP) qc.dropped.missing++;
-      else if (temp < TEMP_MIN_TENTHS || temp > TEMP_MAX_TENTHS) qc.dropped.range++;
-      else if (q === Q_ERRONEOUS_A || q === Q_ERRONEOUS_B) qc.dropped.erroneous++;
-      else if (q === Q_SUSPECT_A || q === Q_SUSPECT_B) qc.dropped.suspect++;
+      const temp = tempTenths[i]!;
+      const q = tempQ[i]!;
+      if (temp === MISSING_TEMP) dropped.missing++;
+      else if (temp < TEMP_MIN_TENTHS || temp > TEMP_MAX_TENTHS) dropped.range++;
+      else if (q === Q_ERRONEOUS_A || q === Q_ERRONEOUS_B) dropped.erroneous++;
+      else if (q === Q_SUSPECT_A || q === Q_SUSPECT_B) dropped.suspect++;
       else {
         pTime[nPass] = t;
         pTemp[nPass] = temp;
         pSpecial[nPass] = kind === KIND_SPECIAL ? 1 : 0;
-        pType[nPass] = types[c.type[i]!]!;
-        pPres[nPass] = c.stationPresTenths[i]!;
+        pType[nPass] = types[type[i]!]!;
+        pPres[nPass] = stationPresTenths[i]!;
         nPass++;
       }
     }
@@ -325,16 +329,38 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
 
 /**
  * Time order of the first n entries, stable (reading order among equal times), or null when they are
- * already in order. Sorts one Float64Array of time × 2^22 + index natively where that fits exactly.
+ * already in order. Files hold long runs in time order (a station-year each, say): when those runs,
+ * put in order of their first times, follow one another without overlapping, the order is the runs
+ * one after the other and nothing needs sorting. Otherwise a full stable sort.
  */
-function timeOrder(time: Int32Array, n: number): Uint32Array | null {
-  let sorted = true;
+export function timeOrder(time: Int32Array, n: number): Uint32Array | null {
+  const starts: number[] = [0];
   for (let i = 1; i < n; i++)
     if (time[i]! < time[i - 1]!) {
-      sorted = false;
-      break;
+      starts.push(i);
+      if (starts.length > 64) return sortedOrder(time, n); // many short runs: sort
     }
-  if (sorted) return null;
+  if (starts.length === 1) return null;
+  // Runs by first time, reading order among equal first times.
+  const runs = starts.map((start, r) => ({ start, end: starts[r + 1] ?? n }));
+  runs.sort((a, b) => time[a.start]! - time[b.start]! || a.start - b.start);
+  for (let r = 1; r < runs.length; r++) {
+    const prev = runs[r - 1]!;
+    const run = runs[r]!;
+    const lastOfPrev = time[prev.end - 1]!;
+    const firstOfRun = time[run.start]!;
+    // Overlap, or a tie that reading order would put the other way round: sort instead.
+    if (lastOfPrev > firstOfRun || (lastOfPrev === firstOfRun && prev.start > run.start))
+      return sortedOrder(time, n);
+  }
+  const out = new Uint32Array(n);
+  let k = 0;
+  for (const { start, end } of runs) for (let i = start; i < end; i++) out[k++] = i;
+  return out;
+}
+
+/** Stable time order of the first n entries by sorting: one Float64Array of time × 2^22 + index where that fits exactly. */
+function sortedOrder(time: Int32Array, n: number): Uint32Array {
   const SHIFT = 2 ** 22;
   if (n < SHIFT) {
     const keys = new Float64Array(n);
