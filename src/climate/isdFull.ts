@@ -148,50 +148,57 @@ function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, f
 }
 
 /**
- * Reports why a line that failed the hot path's checks is malformed: the checks of the fixed part in
- * the order the fields come, the first failure named (file:line:field: message).
+ * Why the fixed part of a line that failed the hot path's checks is malformed: the checks in the order
+ * the fields come, the first failure as [field, message].
  */
-function reject(st: IsdLineState, b: Uint8Array, s: number, e: number, lineNo: number): void {
+function fixedPartProblem(b: Uint8Array, s: number, e: number): [string, string] {
   const len = e - s;
-  const bad = (field: string, why: string) => malformed(st, b, s, lineNo, field, why);
-  if (len < ISD_FIXED_LENGTH) return bad("length", `line has ${len} characters, the fixed part needs 105`);
+  if (len < ISD_FIXED_LENGTH) return ["length", `line has ${len} characters, the fixed part needs 105`];
   const varChars = digits(b, s, 4);
-  if (varChars < 0) return bad("TOTAL-VARIABLE-CHARACTERS", "expected 4 digits at positions 1-4");
+  if (varChars < 0) return ["TOTAL-VARIABLE-CHARACTERS", "expected 4 digits at positions 1-4"];
   if (len !== ISD_FIXED_LENGTH + varChars)
-    return bad("length", `line has ${len} characters, positions 1-4 announce ${ISD_FIXED_LENGTH + varChars}`);
-  if (digits(b, s + 10, 5) < 0) return bad("WBAN", "expected 5 digits at positions 11-15");
+    return ["length", `line has ${len} characters, positions 1-4 announce ${ISD_FIXED_LENGTH + varChars}`];
+  if (digits(b, s + 10, 5) < 0) return ["WBAN", "expected 5 digits at positions 11-15"];
   const year = digits(b, s + 15, 4);
   if (year < 0 || !isValidDate(year, digits(b, s + 19, 2), digits(b, s + 21, 2)))
-    return bad("date", "expected a calendar date YYYYMMDD at positions 16-23");
+    return ["date", "expected a calendar date YYYYMMDD at positions 16-23"];
   const hour = digits(b, s + 23, 2);
   const minute = digits(b, s + 25, 2);
   if (hour < 0 || hour > 23 || minute < 0 || minute > 59)
-    return bad("time", "expected HHMM (00-23, 00-59) at positions 24-27");
+    return ["time", "expected HHMM (00-23, 00-59) at positions 24-27"];
   const lat = signed(b, s + 28, 5);
   const lon = signed(b, s + 34, 6);
   if (Number.isNaN(lat) || Number.isNaN(lon) || Number.isNaN(signed(b, s + 46, 4)))
-    return bad("position", "expected signed latitude, longitude and elevation (POS 29-51)");
+    return ["position", "expected signed latitude, longitude and elevation (POS 29-51)"];
   if ((lat !== MISSING_LAT && Math.abs(lat) > 90_000) || (lon !== MISSING_LON && Math.abs(lon) > 180_000))
-    return bad("position", "latitude or longitude outside ±90°/±180°");
-  if (Number.isNaN(signed(b, s + 87, 4)))
-    return bad("TMP", "expected a sign and 4 digits at positions 88-92");
+    return ["position", "latitude or longitude outside ±90°/±180°"];
+  if (Number.isNaN(signed(b, s + 87, 4))) return ["TMP", "expected a sign and 4 digits at positions 88-92"];
   const tempQ = b[s + 92]!;
   if (VALID_TEMP_Q[tempQ] !== 1)
-    return bad("TMP quality", `unknown quality code "${String.fromCharCode(tempQ)}"`);
+    return ["TMP quality", `unknown quality code "${String.fromCharCode(tempQ)}"`];
   if (Number.isNaN(signed(b, s + 93, 4)) || digits(b, s + 99, 5) < 0)
-    return bad("DEW/SLP", "expected dew point and sea-level pressure digits (POS 94-104)");
-  // Not reached: the hot path only calls here when one of the checks above fails.
-  return bad("line", "unreadable fixed part");
+    return ["DEW/SLP", "expected dew point and sea-level pressure digits (POS 94-104)"];
+  // Not reached: the hot path only asks when one of the checks above fails.
+  return ["line", "unreadable fixed part"];
+}
+
+/** Stores a line whose fixed part failed the hot path's checks as malformed, saying why. */
+function rejectLine(st: IsdLineState, b: Uint8Array, s: number, e: number, lineNo: number): void {
+  const [field, why] = fixedPartProblem(b, s, e);
+  malformed(st, b, s, lineNo, field, why);
 }
 
 /**
  * Parses one line b[s..e) (without its line break) into the file's record columns; a line that
- * breaks the format is stored as a malformed record and noted with its line number (see reject).
+ * breaks the format is stored as a malformed record and noted with its line number (see rejectLine).
  */
 export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: number, lineNo: number): void {
   const len = e - s;
   st.lineEnd = e;
-  if (len < ISD_FIXED_LENGTH) return reject(st, b, s, e, lineNo);
+  if (len < ISD_FIXED_LENGTH) {
+    rejectLine(st, b, s, e, lineNo);
+    return;
+  }
   // Date and time (POS 16-23, 24-27), UTC; a date seen on the line before is known to be valid.
   const year = digits(b, s + 15, 4);
   const month = digits(b, s + 19, 2);
@@ -220,8 +227,10 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
     (lon !== MISSING_LON && Math.abs(lon) > 180_000) ||
     VALID_TEMP_Q[tempQ] !== 1 ||
     slp < 0
-  )
-    return reject(st, b, s, e, lineNo);
+  ) {
+    rejectLine(st, b, s, e, lineNo);
+    return;
+  }
   // Text fields: packed bytes compared with the line before; checked printable (and turned into
   // strings) only when they differ from it.
   const usaf = packBytes(b, s + 4, 6);
