@@ -83,14 +83,20 @@ export interface IsdLineState {
   lastKind: number;
   lastCall: number; // POS 52-56 packed, -1 = none yet
   lastCallText: string | null;
-  /** Report types and call letters seen in this file, by packed bytes. */
-  typeByKey: Map<number, { index: number; kind: number }>;
-  callByKey: Map<number, string>;
+  /** Report types seen in this file: packed bytes, index in file.reportTypes, kind (a few per file). */
+  typeKeys: number[];
+  typeIndex: number[];
+  typeKind: number[];
+  /** Call letters seen in this file: packed bytes and text. */
+  callKeys: number[];
+  callTexts: string[];
   lineEnd: number; // end of the line being read
   callRun: number; // lines since the call letters or station last changed
   /** Date (year × 10000 + month × 100 + day) of the last good line and its first minute since 1970. */
   lastDateKey: number;
   lastDayMin: number;
+  /** Numeric fields of the line being read (F_* slots). */
+  fields: Int32Array;
 }
 
 export function createIsdLineState(file: ParsedFile): IsdLineState {
@@ -104,20 +110,32 @@ export function createIsdLineState(file: ParsedFile): IsdLineState {
     lastKind: 0,
     lastCall: -1,
     lastCallText: null,
-    typeByKey: new Map(),
-    callByKey: new Map(),
+    typeKeys: [],
+    typeIndex: [],
+    typeKind: [],
+    callKeys: [],
+    callTexts: [],
     lineEnd: 0,
     callRun: 0,
     lastDateKey: -1,
     lastDayMin: 0,
+    fields: new Int32Array(FIELD_COUNT),
   };
 }
 
-/** n ≤ 6 bytes b[i..i+n) as one number (exact: at most 48 bits), to compare text fields without strings. */
-function packBytes(b: Uint8Array, i: number, n: number): number {
-  let v = 0;
-  for (let k = 0; k < n; k++) v = v * 256 + b[i + k]!;
-  return v;
+/** Bytes b[i..i+3) as one integer (24 bits). */
+function pack3(b: Uint8Array, i: number): number {
+  return (b[i]! << 16) | (b[i + 1]! << 8) | b[i + 2]!;
+}
+
+/** Text field of 5 bytes at b[i] as one number (40 bits, exact), to compare it without a string. */
+function key5(b: Uint8Array, i: number): number {
+  return pack3(b, i) * 65_536 + ((b[i + 3]! << 8) | b[i + 4]!);
+}
+
+/** Text field of 6 bytes at b[i] as one number (48 bits, exact). */
+function key6(b: Uint8Array, i: number): number {
+  return pack3(b, i) * 16_777_216 + pack3(b, i + 3);
 }
 
 /** Adds the current run of call letters to the station's counts (call at the end of a file too). */
@@ -133,11 +151,7 @@ function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, f
   // Attribute the line to the station its positions 5-15 name, if that is a station of the file;
   // otherwise resolveUnknownStations gives it the station of the line before.
   let station = UNKNOWN_STATION;
-  if (
-    st.lastStation >= 0 &&
-    packBytes(b, s + 4, 6) === st.lastUsaf &&
-    packBytes(b, s + 10, 5) === st.lastWban
-  )
+  if (st.lastStation >= 0 && key6(b, s + 4) === st.lastUsaf && key5(b, s + 10) === st.lastWban)
     station = st.lastStation;
   else if (st.lineEnd >= s + 15 && printable(b, s + 4, 11)) {
     const known = st.file.stations.indexOf(`${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
@@ -145,6 +159,57 @@ function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, f
   }
   pushMalformed(st.file.records, station, lineNo);
   noteMalformed(st.file, lineNo, field, why);
+}
+
+/** Slots of IsdLineState.fields: the numeric fields of the fixed part of the line being read. */
+const F_VAR_CHARS = 0;
+const F_YEAR = 1;
+const F_MONTH = 2;
+const F_DAY = 3;
+const F_HOUR = 4;
+const F_MINUTE = 5;
+const F_LAT = 6;
+const F_LON = 7;
+const F_ELEV = 8;
+const F_TEMP = 9;
+const F_DEW = 10;
+const F_SLP = 11;
+const FIELD_COUNT = 12;
+
+/**
+ * Reads the numeric fields of the fixed part (POS 1-4, 11-27, 29-51, 88-104) into `f`; false when one
+ * of them lacks a digit or its sign (the caller then asks fixedPartProblem which one).
+ */
+function readNumbers(b: Uint8Array, s: number, f: Int32Array): boolean {
+  const varChars = digits(b, s, 4);
+  const wban = digits(b, s + 10, 5);
+  const year = digits(b, s + 15, 4);
+  const month = digits(b, s + 19, 2);
+  const day = digits(b, s + 21, 2);
+  const hour = digits(b, s + 23, 2);
+  const minute = digits(b, s + 25, 2);
+  const slp = digits(b, s + 99, 5);
+  const lat = signed(b, s + 28, 5);
+  const lon = signed(b, s + 34, 6);
+  const elev = signed(b, s + 46, 4);
+  const temp = signed(b, s + 87, 4);
+  const dew = signed(b, s + 93, 4);
+  f[F_VAR_CHARS] = varChars;
+  f[F_YEAR] = year;
+  f[F_MONTH] = month;
+  f[F_DAY] = day;
+  f[F_HOUR] = hour;
+  f[F_MINUTE] = minute;
+  f[F_LAT] = lat;
+  f[F_LON] = lon;
+  f[F_ELEV] = elev;
+  f[F_TEMP] = temp;
+  f[F_DEW] = dew;
+  f[F_SLP] = slp;
+  return (
+    (varChars | wban | year | month | day | hour | minute | slp) >= 0 &&
+    !Number.isNaN(lat + lon + elev + temp + dew)
+  );
 }
 
 /**
@@ -199,44 +264,37 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
     rejectLine(st, b, s, e, lineNo);
     return;
   }
-  // Date and time (POS 16-23, 24-27), UTC; a date seen on the line before is known to be valid.
-  const year = digits(b, s + 15, 4);
-  const month = digits(b, s + 19, 2);
-  const day = digits(b, s + 21, 2);
-  const hour = digits(b, s + 23, 2);
-  const minute = digits(b, s + 25, 2);
+  // Numeric fields; a date seen on the line before is known to be valid.
+  const f = st.fields;
+  const numbersOk = readNumbers(b, s, f);
+  const year = f[F_YEAR]!;
+  const month = f[F_MONTH]!;
+  const day = f[F_DAY]!;
+  const hour = f[F_HOUR]!;
+  const minute = f[F_MINUTE]!;
+  const lat = f[F_LAT]!;
+  const lon = f[F_LON]!;
   const dateKey = year * 10_000 + month * 100 + day;
-  const lat = signed(b, s + 28, 5);
-  const lon = signed(b, s + 34, 6);
-  const elev = signed(b, s + 46, 4);
-  const temp = signed(b, s + 87, 4);
   const tempQ = b[s + 92]!;
-  const dew = signed(b, s + 93, 4);
-  const slp = digits(b, s + 99, 5);
   if (
-    len !== ISD_FIXED_LENGTH + digits(b, s, 4) || // also fails when POS 1-4 are not digits (-1)
-    digits(b, s + 10, 5) < 0 ||
-    year < 0 ||
+    !numbersOk ||
+    len !== ISD_FIXED_LENGTH + f[F_VAR_CHARS]! ||
     (dateKey !== st.lastDateKey && !isValidDate(year, month, day)) ||
-    hour < 0 ||
     hour > 23 ||
-    minute < 0 ||
     minute > 59 ||
-    Number.isNaN(lat + lon + elev + temp + dew) ||
     (lat !== MISSING_LAT && Math.abs(lat) > 90_000) ||
     (lon !== MISSING_LON && Math.abs(lon) > 180_000) ||
-    VALID_TEMP_Q[tempQ] !== 1 ||
-    slp < 0
+    VALID_TEMP_Q[tempQ] !== 1
   ) {
     rejectLine(st, b, s, e, lineNo);
     return;
   }
   // Text fields: packed bytes compared with the line before; checked printable (and turned into
   // strings) only when they differ from it.
-  const usaf = packBytes(b, s + 4, 6);
-  const wban = packBytes(b, s + 10, 5);
-  const typeKey = packBytes(b, s + 41, 5);
-  const callKey = packBytes(b, s + 51, 5);
+  const usaf = key6(b, s + 4);
+  const wban = key5(b, s + 10);
+  const typeKey = key5(b, s + 41);
+  const callKey = key5(b, s + 51);
   const sameStation = usaf === st.lastUsaf && wban === st.lastWban;
   if (
     (!sameStation && !printable(b, s + 4, 6)) ||
@@ -258,24 +316,28 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
   }
   // Report type (POS 42-46).
   if (typeKey !== st.lastType) {
-    let known = st.typeByKey.get(typeKey);
-    if (known === undefined) {
+    let k = st.typeKeys.indexOf(typeKey);
+    if (k < 0) {
       const type = ascii(b, s + 41, 5).trim();
-      known = { index: reportTypeIndex(st.file, type), kind: kindOfReportType(type) };
-      st.typeByKey.set(typeKey, known);
+      k = st.typeKeys.length;
+      st.typeKeys.push(typeKey);
+      st.typeIndex.push(reportTypeIndex(st.file, type));
+      st.typeKind.push(kindOfReportType(type));
     }
-    st.lastTypeIdx = known.index;
-    st.lastKind = known.kind;
+    st.lastTypeIdx = st.typeIndex[k]!;
+    st.lastKind = st.typeKind[k]!;
     st.lastType = typeKey;
   }
   // Call letters (POS 52-56), counted per station (by runs) to find the usual ones.
   if (st.lastCallText === null || callKey !== st.lastCall) {
     flushCalls(st);
-    let text = st.callByKey.get(callKey);
-    if (text === undefined) {
-      text = ascii(b, s + 51, 5).trim();
-      st.callByKey.set(callKey, text);
+    let k = st.callKeys.indexOf(callKey);
+    if (k < 0) {
+      k = st.callKeys.length;
+      st.callKeys.push(callKey);
+      st.callTexts.push(ascii(b, s + 51, 5).trim());
     }
+    const text = st.callTexts[k]!;
     st.lastCall = callKey;
     st.lastCallText = text;
   }
@@ -289,10 +351,10 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
   const i = nextSlot(c);
   c.station[i] = station;
   c.timeMin[i] = st.lastDayMin + hour * 60 + minute;
-  c.tempTenths[i] = temp;
+  c.tempTenths[i] = f[F_TEMP]!;
   c.tempQ[i] = tempQ;
-  c.dewTenths[i] = dew;
-  c.slpTenths[i] = slp;
+  c.dewTenths[i] = f[F_DEW]!;
+  c.slpTenths[i] = f[F_SLP]!;
   c.stationPresTenths[i] =
     len > ISD_FIXED_LENGTH ? stationPressure(b, s + ISD_FIXED_LENGTH, e) : MISSING_PRESSURE;
   c.kind[i] = st.lastKind;
@@ -300,7 +362,7 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
   c.source[i] = b[s + 27]!;
   c.latMilli[i] = lat;
   c.lonMilli[i] = lon;
-  c.elevM[i] = elev;
+  c.elevM[i] = f[F_ELEV]!;
   c.line[i] = lineNo;
 }
 

@@ -204,10 +204,6 @@ async function readLines(
     handle(b, s, e, lineNo);
   };
   for await (const chunk of chunks) {
-    // Let the event loop run between chunks: decompression proceeds on libuv's thread pool one output
-    // chunk at a time and needs this thread to hand it the next step, which it could not do while this
-    // loop kept taking chunks that were already buffered (the two would then take turns, not overlap).
-    await yieldToEventLoop();
     file.bytes += chunk.length;
     let pos = 0;
     if (carry !== null || skipping) {
@@ -250,11 +246,6 @@ async function readLines(
   } else if (carry !== null) line(carry, 0, carry.length);
   finish();
   file.lines = lineNo;
-}
-
-/** Resolves after the event loop has handled pending I/O (a setImmediate turn). */
-function yieldToEventLoop(): Promise<void> {
-  return new Promise((resolve) => setImmediate(resolve));
 }
 
 function tooLong(file: ParsedFile, lineNo: number): void {
