@@ -36,17 +36,20 @@ export function hourlyFromObservations(
     const cls = special[i]! * 64;
     const h0 = Math.floor(t / 60);
     const past = t - h0 * 60; // minutes after h0
-    if (past <= HOUR_WINDOW_MIN) consider(h0 - firstHour, cls + past, tempTenths[i]!);
-    if (60 - past <= HOUR_WINDOW_MIN) consider(h0 + 1 - firstHour, cls + 60 - past, tempTenths[i]!);
-  }
-  function consider(h: number, r: number, v: number) {
-    if (h < 0 || h >= hours) return;
-    if (r < rank[h]!) {
-      rank[h] = r;
-      tempC[h] = v / 10;
-    }
+    if (past <= HOUR_WINDOW_MIN) consider(rank, tempC, h0 - firstHour, cls + past, tempTenths[i]!);
+    if (60 - past <= HOUR_WINDOW_MIN)
+      consider(rank, tempC, h0 + 1 - firstHour, cls + 60 - past, tempTenths[i]!);
   }
   return { startUtcMs: firstHour * HOUR_MS, tempC, filled: new Uint8Array(hours) };
+}
+
+/** Takes value v (tenths of °C) for grid hour h when its rank r beats the hour's candidate so far. */
+function consider(rank: Uint8Array, tempC: Float64Array, h: number, r: number, v: number): void {
+  if (h < 0 || h >= rank.length) return;
+  if (r < rank[h]!) {
+    rank[h] = r;
+    tempC[h] = v / 10;
+  }
 }
 
 /**

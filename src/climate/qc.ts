@@ -103,24 +103,31 @@ function positionKey(lat: number, lon: number, elev: number): number {
   const e = Math.max(-10_000, Math.min(9_999, elev));
   return ((lat + 90_000) * 360_001 + (lon + 180_000)) * 20_000 + (e + 10_000);
 }
-function keyToPosition(key: number): { latMilli: number; lonMilli: number; elevM: number } {
+function keyToPosition(key: number): Position {
   const elev = (key % 20_000) - 10_000;
   const ll = Math.floor(key / 20_000);
   return { latMilli: Math.floor(ll / 360_001) - 90_000, lonMilli: (ll % 360_001) - 180_000, elevM: elev };
 }
 
-/** UTC year of a minute count, with the year's bounds cached (records come mostly in time order). */
-function yearCache() {
-  let lo = 0;
-  let hi = -1;
-  let year = 0;
-  return (min: number): number => {
-    if (min >= lo && min < hi) return year;
-    year = new Date(min * 60_000).getUTCFullYear();
-    lo = Date.UTC(year, 0, 1) / 60_000;
-    hi = Date.UTC(year + 1, 0, 1) / 60_000;
-    return year;
-  };
+/** The UTC year last asked for and its bounds in minutes (records come mostly in time order). */
+interface YearCache {
+  lo: number;
+  hi: number;
+  year: number;
+}
+
+function yearCache(): YearCache {
+  return { lo: 0, hi: -1, year: 0 };
+}
+
+/** UTC year of a minute count since 1970. */
+function yearOfMinute(cache: YearCache, min: number): number {
+  if (min >= cache.lo && min < cache.hi) return cache.year;
+  const year = new Date(min * 60_000).getUTCFullYear();
+  cache.year = year;
+  cache.lo = Date.UTC(year, 0, 1) / 60_000;
+  cache.hi = Date.UTC(year + 1, 0, 1) / 60_000;
+  return year;
 }
 
 /** Most frequent key of a count map (first seen wins a tie). */
@@ -143,35 +150,36 @@ function isoMinute(min: number): string {
   return new Date(min * 60_000).toISOString().replace(".000Z", "Z");
 }
 
+type Position = { latMilli: number; lonMilli: number; elevM: number };
+
+/** How often each position occurs among a station's observations: per UTC year, and over all years. */
+interface PositionCounts {
+  byYear: Map<number, Map<number, number>>;
+  all: Map<number, number>;
+}
+
+function addPositionRun(counts: PositionCounts, year: number, key: number, n: number): void {
+  let m = counts.byYear.get(year);
+  if (m === undefined) {
+    m = new Map();
+    counts.byYear.set(year, m);
+  }
+  add(m, key, n);
+  add(counts.all, key, n);
+}
+
 /**
- * Applies the quality rules to one station's records from all its files (given in reading order).
- * `typeCode` maps a report type to a small number shared by all files, for the duplicate key.
+ * Pass 1: counts positions per station-year among records that are observations (not malformed, not
+ * summaries, with a position). Positions come in long runs, so a run is counted once when it ends.
  */
-export function qualityControl(parts: StationPart[], typeCode: (type: string) => number): QcResult {
-  const qc = emptyQc();
-  const yearOf = yearCache();
-  // Pass 1: count positions per station-year among records that are observations. Positions come
-  // in long runs, so a run is counted once when it ends.
-  const positionsByYear = new Map<number, Map<number, number>>();
-  const allPositions = new Map<number, number>();
+function countPositions(parts: StationPart[]): PositionCounts {
+  const counts: PositionCounts = { byYear: new Map(), all: new Map() };
+  const years = yearCache();
   let runKey = -1;
   let runYear = 0;
   let runN = 0;
-  const flush = () => {
-    if (runN === 0) return;
-    let m = positionsByYear.get(runYear);
-    if (m === undefined) {
-      m = new Map();
-      positionsByYear.set(runYear, m);
-    }
-    add(m, runKey, runN);
-    add(allPositions, runKey, runN);
-    runN = 0;
-  };
-  let total = 0;
   for (const { file, indices } of parts) {
     const { kind, latMilli, lonMilli, elevM, timeMin } = file.records;
-    total += indices.length;
     for (let j = 0; j < indices.length; j++) {
       const i = indices[j]!;
       const k = kind[i]!;
@@ -179,102 +187,137 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
       const lat = latMilli[i]!;
       const lon = lonMilli[i]!;
       if (lat === MISSING_LAT || lon === MISSING_LON) continue;
-      const y = yearOf(timeMin[i]!);
+      const y = yearOfMinute(years, timeMin[i]!);
       const key = positionKey(lat, lon, elevM[i]!);
       if (key !== runKey || y !== runYear) {
-        flush();
+        if (runN > 0) addPositionRun(counts, runYear, runKey, runN);
         runKey = key;
         runYear = y;
+        runN = 0;
       }
       runN++;
     }
   }
-  flush();
-  const siteByYear = new Map<number, { latMilli: number; lonMilli: number; elevM: number }>();
-  for (const [y, m] of positionsByYear) siteByYear.set(y, keyToPosition(modeOf(m)!));
+  if (runN > 0) addPositionRun(counts, runYear, runKey, runN);
+  return counts;
+}
 
-  // Pass 2: classify every record up to (not including) duplicates; passing records are gathered.
-  const pTime = new Int32Array(total);
-  const pTemp = new Int16Array(total);
-  const pSpecial = new Uint8Array(total);
-  const pType = new Uint8Array(total);
-  const pPres = new Int32Array(total);
-  let nPass = 0;
-  const calls = new Map<string, number>();
-  let name: string | null = null;
-  const examples: string[] = [];
+/** Records that pass every rule but the duplicate one, in reading order. */
+interface Passing {
+  time: Int32Array; // UTC minutes
+  temp: Int16Array; // tenths of °C
+  special: Uint8Array; // 1 for special reports
+  type: Uint8Array; // report type code shared by all files
+  pres: Int32Array; // station pressure ×10 hPa
+  n: number;
+}
+
+/**
+ * Pass 2 over one file's part: counts each record under the first rule that drops it (malformed,
+ * summary, otherSite, missing, range, erroneous, suspect) and appends the others to `out`.
+ * `types` maps the file's report type index to the shared code.
+ */
+function classifyPart(
+  part: StationPart,
+  types: Uint8Array,
+  siteByYear: Map<number, Position>,
+  dropped: QcCounts["dropped"],
+  out: Passing,
+): void {
+  const {
+    kind: kinds,
+    timeMin,
+    latMilli,
+    lonMilli,
+    elevM,
+    tempTenths,
+    tempQ,
+    type,
+    stationPresTenths,
+  } = part.file.records;
+  const indices = part.indices;
+  const years = yearCache();
   // Site verdict of the previous record's position and year (positions come in long runs).
   let lastLat = Number.NaN;
   let lastLon = Number.NaN;
   let lastElev = Number.NaN;
   let lastYear = Number.NaN;
   let lastFar = false;
-  const dropped = qc.dropped;
-  for (const { file, station, indices } of parts) {
-    const c = file.records;
-    const { kind: kinds, timeMin, latMilli, lonMilli, elevM, tempTenths, tempQ, type, stationPresTenths } = c;
-    const types = Uint8Array.from(file.reportTypes.map(typeCode));
-    for (const [k, n] of file.callLetters[station]!) calls.set(k, (calls.get(k) ?? 0) + n);
-    name ??= file.stationNames[station] ?? null;
-    for (const ex of file.malformedExamples) if (examples.length < 5) examples.push(ex);
-    qc.read += indices.length;
-    for (let j = 0; j < indices.length; j++) {
-      const i = indices[j]!;
-      const kind = kinds[i]!;
-      if (kind === KIND_MALFORMED) {
-        dropped.malformed++;
+  let n = out.n;
+  for (let j = 0; j < indices.length; j++) {
+    const i = indices[j]!;
+    const kind = kinds[i]!;
+    if (kind === KIND_MALFORMED) {
+      dropped.malformed++;
+      continue;
+    }
+    if (kind === KIND_SUMMARY) {
+      dropped.summary++;
+      continue;
+    }
+    const t = timeMin[i]!;
+    const lat = latMilli[i]!;
+    const lon = lonMilli[i]!;
+    const elev = elevM[i]!;
+    if (lat !== MISSING_LAT && lon !== MISSING_LON) {
+      const y = yearOfMinute(years, t);
+      if (lat !== lastLat || lon !== lastLon || elev !== lastElev || y !== lastYear) {
+        const site = siteByYear.get(y)!;
+        lastFar =
+          distanceM(site.latMilli, site.lonMilli, lat, lon) > SITE_RADIUS_M ||
+          (elev !== MISSING_ELEV &&
+            site.elevM !== MISSING_ELEV &&
+            Math.abs(elev - site.elevM) > SITE_ELEVATION_M);
+        lastLat = lat;
+        lastLon = lon;
+        lastElev = elev;
+        lastYear = y;
+      }
+      if (lastFar) {
+        dropped.otherSite++;
         continue;
-      }
-      if (kind === KIND_SUMMARY) {
-        dropped.summary++;
-        continue;
-      }
-      const t = timeMin[i]!;
-      const lat = latMilli[i]!;
-      const lon = lonMilli[i]!;
-      const elev = elevM[i]!;
-      if (lat !== MISSING_LAT && lon !== MISSING_LON) {
-        const y = yearOf(t);
-        if (lat !== lastLat || lon !== lastLon || elev !== lastElev || y !== lastYear) {
-          const site = siteByYear.get(y)!;
-          lastFar =
-            distanceM(site.latMilli, site.lonMilli, lat, lon) > SITE_RADIUS_M ||
-            (elev !== MISSING_ELEV &&
-              site.elevM !== MISSING_ELEV &&
-              Math.abs(elev - site.elevM) > SITE_ELEVATION_M);
-          lastLat = lat;
-          lastLon = lon;
-          lastElev = elev;
-          lastYear = y;
-        }
-        if (lastFar) {
-          dropped.otherSite++;
-          continue;
-        }
-      }
-      const temp = tempTenths[i]!;
-      const q = tempQ[i]!;
-      if (temp === MISSING_TEMP) dropped.missing++;
-      else if (temp < TEMP_MIN_TENTHS || temp > TEMP_MAX_TENTHS) dropped.range++;
-      else if (q === Q_ERRONEOUS_A || q === Q_ERRONEOUS_B) dropped.erroneous++;
-      else if (q === Q_SUSPECT_A || q === Q_SUSPECT_B) dropped.suspect++;
-      else {
-        pTime[nPass] = t;
-        pTemp[nPass] = temp;
-        pSpecial[nPass] = kind === KIND_SPECIAL ? 1 : 0;
-        pType[nPass] = types[type[i]!]!;
-        pPres[nPass] = stationPresTenths[i]!;
-        nPass++;
       }
     }
+    const temp = tempTenths[i]!;
+    const q = tempQ[i]!;
+    if (temp === MISSING_TEMP) dropped.missing++;
+    else if (temp < TEMP_MIN_TENTHS || temp > TEMP_MAX_TENTHS) dropped.range++;
+    else if (q === Q_ERRONEOUS_A || q === Q_ERRONEOUS_B) dropped.erroneous++;
+    else if (q === Q_SUSPECT_A || q === Q_SUSPECT_B) dropped.suspect++;
+    else {
+      out.time[n] = t;
+      out.temp[n] = temp;
+      out.special[n] = kind === KIND_SPECIAL ? 1 : 0;
+      out.type[n] = types[type[i]!]!;
+      out.pres[n] = stationPresTenths[i]!;
+      n++;
+    }
   }
+  out.n = n;
+}
 
-  // Time order (reading order among equal times), then duplicates: equal time, report type and value.
-  const order = timeOrder(pTime, nPass);
+/** Kept observations in time order, after dropping duplicates; with the sum and count of their pressures. */
+interface Kept {
+  time: Int32Array;
+  temp: Int16Array;
+  special: Uint8Array;
+  n: number;
+  presSum: number;
+  presN: number;
+}
+
+/**
+ * Time order (reading order among equal times), then duplicates dropped: a record with the same time,
+ * report type and value as one kept before it.
+ */
+function dropDuplicates(p: Passing, dropped: QcCounts["dropped"]): Kept {
+  const nPass = p.n;
+  const order = timeOrder(p.time, nPass);
   const keptTime = new Int32Array(nPass);
   const keptTemp = new Int16Array(nPass);
   const keptSpecial = new Uint8Array(nPass);
   const keptIndex = new Uint32Array(nPass);
+  const { time: pTime, temp: pTemp, type: pType, special: pSpecial, pres: pPres } = p;
   let nKept = 0;
   let groupStart = 0; // first kept index with the current time
   let presSum = 0;
@@ -289,7 +332,7 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
       dup = pTemp[kg] === pTemp[k] && pType[kg] === pType[k];
     }
     if (dup) {
-      qc.dropped.duplicate++;
+      dropped.duplicate++;
       continue;
     }
     keptIndex[nKept] = k;
@@ -302,8 +345,50 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
       presN++;
     }
   }
+  return { time: keptTime, temp: keptTemp, special: keptSpecial, n: nKept, presSum, presN };
+}
+
+/**
+ * Applies the quality rules to one station's records from all its files (given in reading order).
+ * `typeCode` maps a report type to a small number shared by all files, for the duplicate key.
+ */
+export function qualityControl(parts: StationPart[], typeCode: (type: string) => number): QcResult {
+  const qc = emptyQc();
+  const positions = countPositions(parts);
+  const siteByYear = new Map<number, Position>();
+  for (const [y, m] of positions.byYear) siteByYear.set(y, keyToPosition(modeOf(m)!));
+
+  let total = 0;
+  for (const { indices } of parts) total += indices.length;
+  const passing: Passing = {
+    time: new Int32Array(total),
+    temp: new Int16Array(total),
+    special: new Uint8Array(total),
+    type: new Uint8Array(total),
+    pres: new Int32Array(total),
+    n: 0,
+  };
+  const calls = new Map<string, number>();
+  let name: string | null = null;
+  const examples: string[] = [];
+  for (const part of parts) {
+    const { file, station, indices } = part;
+    for (const [k, n] of file.callLetters[station]!) calls.set(k, (calls.get(k) ?? 0) + n);
+    name ??= file.stationNames[station] ?? null;
+    for (const ex of file.malformedExamples) if (examples.length < 5) examples.push(ex);
+    qc.read += indices.length;
+    classifyPart(part, Uint8Array.from(file.reportTypes.map(typeCode)), siteByYear, qc.dropped, passing);
+  }
+  const {
+    time: keptTime,
+    temp: keptTemp,
+    special: keptSpecial,
+    n: nKept,
+    presSum,
+    presN,
+  } = dropDuplicates(passing, qc.dropped);
   qc.kept = nKept;
-  const posKey = modeOf(allPositions);
+  const posKey = modeOf(positions.all);
   let callLetters: string | null = null;
   let callN = 0;
   for (const [k, n] of calls)

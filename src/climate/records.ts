@@ -90,7 +90,7 @@ export function nextSlot(c: RecordColumns): number {
   return c.count++;
 }
 
-/** Copies the used part of every column into arrays of exact length (for transfer or caching). */
+/** Copies the used part of every column into arrays of exact length (before handing them to another thread). */
 export function trimColumns(c: RecordColumns): RecordColumns {
   const out = { count: c.count } as RecordColumns;
   for (const name of COLUMN_NAMES) {
@@ -165,7 +165,8 @@ export function reportTypeIndex(file: ParsedFile, type: string): number {
   return i;
 }
 
-export function emptyParsedFile(path: string, format: ParsedFile["format"]): ParsedFile {
+/** A file with no records yet; `capacity` sizes its columns (they grow beyond it when needed). */
+export function emptyParsedFile(path: string, format: ParsedFile["format"], capacity = 4096): ParsedFile {
   return {
     path,
     format,
@@ -175,7 +176,7 @@ export function emptyParsedFile(path: string, format: ParsedFile["format"]): Par
     stationNames: [],
     callLetters: [],
     reportTypes: [],
-    records: createColumns(),
+    records: createColumns(Math.max(16, capacity)),
     malformedExamples: [],
   };
 }

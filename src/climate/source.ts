@@ -13,7 +13,13 @@ import { createGunzip, type ZlibOptions } from "node:zlib";
 import { parse } from "csv-parse";
 import { inputError } from "../errors.js";
 import { type CsvColumns, csvColumns, readCsvRecord } from "./csvHourly.js";
-import { createIsdLineState, flushCalls, looksLikeIsdLine, parseIsdLine } from "./isdFull.js";
+import {
+  createIsdLineState,
+  flushCalls,
+  type IsdLineState,
+  looksLikeIsdLine,
+  parseIsdLine,
+} from "./isdFull.js";
 import { looksLikeLiteLine, parseLiteLine, stationIdFromFileName } from "./isdLite.js";
 import {
   emptyParsedFile,
@@ -21,7 +27,6 @@ import {
   type ParsedFile,
   pushMalformed,
   resolveUnknownStations,
-  trimColumns,
   UNKNOWN_STATION,
 } from "./records.js";
 
@@ -151,7 +156,7 @@ export async function readClimateFile(path: string, options: ReadOptions = {}): 
     yield head;
     if (!done) yield* it;
   }
-  const file = emptyParsedFile(path, format);
+  const file = emptyParsedFile(path, format, await estimateRecords(path, head));
   if (format === "csv") await readCsv(file, all());
   else await readLines(file, all(), format, options);
   resolveUnknownStations(file.records);
@@ -162,8 +167,67 @@ export async function readClimateFile(path: string, options: ReadOptions = {}): 
       undefined,
       "no readable record in the file; expected ISD climate records",
     );
-  file.records = trimColumns(file.records);
   return file;
+}
+
+/** Most records the columns are sized for up front (more still fit: the columns grow). */
+const MAX_PRESIZED_RECORDS = 1 << 22;
+
+/**
+ * About how many records the file holds, to size the record columns once instead of growing them:
+ * its text size over the mean line length of its first bytes. The text size of a gzip file is its
+ * ISIZE trailer (the last 4 bytes: the uncompressed size modulo 2^32, RFC 1952 section 2.3.1), not
+ * trusted beyond 16 times the compressed size (ISD text compresses about 6 to 1).
+ */
+async function estimateRecords(path: string, head: Buffer): Promise<number> {
+  let lines = 0;
+  for (let nl = head.indexOf(10); nl >= 0; nl = head.indexOf(10, nl + 1)) lines++;
+  if (lines === 0) return 0;
+  const fh = await open(path, "r");
+  try {
+    const size = (await fh.stat()).size;
+    let textBytes = size;
+    const bytes = Buffer.alloc(4);
+    await fh.read(bytes, 0, 2, 0);
+    if (bytes[0] === 0x1f && bytes[1] === 0x8b && size >= 18) {
+      await fh.read(bytes, 0, 4, size - 4);
+      textBytes = Math.min(bytes.readUInt32LE(0), size * 16);
+    }
+    return Math.min(MAX_PRESIZED_RECORDS, Math.ceil((textBytes / head.length) * lines * 1.02) + 64);
+  } finally {
+    await fh.close();
+  }
+}
+
+/**
+ * Where the lines of a fixed-layout file go: the full-format parser's state, or the Lite file's
+ * station. A plain object and plain functions (no closures made per file), so that the optimised
+ * line loop serves every file alike.
+ */
+interface LineSink {
+  file: ParsedFile;
+  isd: IsdLineState | null; // null for ISD-Lite
+  liteStation: number;
+  lineNo: number;
+}
+
+/** One line b[s..e) without its "\n": counted, its "\r" dropped, blank lines skipped, the rest parsed. */
+function takeLine(sink: LineSink, b: Uint8Array, s: number, e: number): void {
+  const lineNo = ++sink.lineNo;
+  if (e > s && b[e - 1] === 13) e--;
+  if (e === s) return; // blank line: not a record
+  if (sink.isd !== null) parseIsdLine(sink.isd, b, s, e, lineNo);
+  else parseLiteLine(sink.file, sink.liteStation, b, s, e, lineNo);
+}
+
+/** Passes every complete line of chunk[from..] to the sink; returns where the unfinished last line starts. */
+function takeLines(sink: LineSink, chunk: Buffer, from: number): number {
+  let pos = from;
+  for (let nl = chunk.indexOf(10, pos); nl >= 0; nl = chunk.indexOf(10, pos)) {
+    takeLine(sink, chunk, pos, nl);
+    pos = nl + 1;
+  }
+  return pos;
 }
 
 /** Streams fixed-layout lines (full or Lite) from byte chunks to the line parser, without strings. */
@@ -173,13 +237,9 @@ async function readLines(
   format: "isd" | "isd-lite",
   options: ReadOptions,
 ): Promise<void> {
-  let handle: (b: Uint8Array, s: number, e: number, lineNo: number) => void;
-  let finish = () => {};
-  if (format === "isd") {
-    const st = createIsdLineState(file);
-    handle = (b, s, e, n) => parseIsdLine(st, b, s, e, n);
-    finish = () => flushCalls(st);
-  } else {
+  const sink: LineSink = { file, isd: null, liteStation: -1, lineNo: 0 };
+  if (format === "isd") sink.isd = createIsdLineState(file);
+  else {
     const id = options.stationIdOverride ?? stationIdFromFileName(basename(file.path));
     if (id === null)
       throw inputError(
@@ -188,21 +248,13 @@ async function readLines(
         "station id",
         "ISD-Lite file name does not start with USAF-WBAN (e.g. 725300-94846-2014); give the station id as an option",
       );
-    const station = file.stations.length;
+    sink.liteStation = file.stations.length;
     file.stations.push(id);
     file.stationNames.push(null);
     file.callLetters.push(new Map());
-    handle = (b, s, e, n) => parseLiteLine(file, station, b, s, e, n);
   }
-  let lineNo = 0;
   let carry: Buffer | null = null;
   let skipping = false; // inside an over-long line, waiting for its end
-  const line = (b: Uint8Array, s: number, e: number) => {
-    lineNo++;
-    if (e > s && b[e - 1] === 13) e--;
-    if (e === s) return; // blank line: not a record
-    handle(b, s, e, lineNo);
-  };
   for await (const chunk of chunks) {
     file.bytes += chunk.length;
     let pos = 0;
@@ -219,33 +271,25 @@ async function readLines(
         continue;
       }
       if (skipping) {
-        lineNo++;
-        tooLong(file, lineNo);
+        tooLong(file, ++sink.lineNo);
         skipping = false;
       } else {
         const joined: Buffer = Buffer.concat([carry!, chunk.subarray(0, nl)]);
-        line(joined, 0, joined.length);
+        takeLine(sink, joined, 0, joined.length);
       }
       carry = null;
       pos = nl + 1;
     }
-    for (;;) {
-      const nl = chunk.indexOf(10, pos);
-      if (nl < 0) break;
-      line(chunk, pos, nl);
-      pos = nl + 1;
-    }
+    pos = takeLines(sink, chunk, pos);
     if (pos < chunk.length) {
       if (chunk.length - pos > MAX_LINE_BYTES) skipping = true;
       else carry = Buffer.from(chunk.subarray(pos));
     }
   }
-  if (skipping) {
-    lineNo++;
-    tooLong(file, lineNo);
-  } else if (carry !== null) line(carry, 0, carry.length);
-  finish();
-  file.lines = lineNo;
+  if (skipping) tooLong(file, ++sink.lineNo);
+  else if (carry !== null) takeLine(sink, carry, 0, carry.length);
+  if (sink.isd !== null) flushCalls(sink.isd);
+  file.lines = sink.lineNo;
 }
 
 function tooLong(file: ParsedFile, lineNo: number): void {

@@ -4,12 +4,13 @@
  */
 import { parentPort } from "node:worker_threads";
 import { InputError } from "../errors.js";
-import { columnBuffers } from "./records.js";
+import { columnBuffers, trimColumns } from "./records.js";
 import { type ReadOptions, readClimateFile } from "./source.js";
 
 parentPort?.on("message", async (msg: { id: number; path: string; options: ReadOptions }) => {
   try {
     const file = await readClimateFile(msg.path, msg.options);
+    file.records = trimColumns(file.records); // hand over only the used part of the columns
     parentPort!.postMessage({ id: msg.id, file }, columnBuffers(file.records));
   } catch (err) {
     const e = err as Error;
