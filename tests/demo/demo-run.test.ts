@@ -31,6 +31,7 @@ describe("demo scenario, end to end (years 2019–2020)", () => {
     expect(plan).toContain("from: 2019");
     writeFileSync(join(dir, "demo-plan.yaml"), plan);
     copyFileSync(join(SAMPLE, "demo-schedule.csv"), join(dir, "demo-schedule.csv"));
+    copyFileSync(join(SAMPLE, "station-history.csv"), join(dir, "station-history.csv"));
     vi.spyOn(process.stdout, "write").mockImplementation(() => true);
     vi.spyOn(process.stderr, "write").mockImplementation(() => true);
     try {
