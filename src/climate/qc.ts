@@ -414,34 +414,73 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
 
 /**
  * Time order of the first n entries, stable (reading order among equal times), or null when they are
- * already in order. Files hold long runs in time order (a station-year each, say): when those runs,
- * put in order of their first times, follow one another without overlapping, the order is the runs
- * one after the other and nothing needs sorting. Otherwise a full stable sort.
+ * already in order. Records come in long runs that are in time order (a station-year each, say), so
+ * the runs are found and merged pairwise, left run first among equal times (a natural merge sort):
+ * a few linear passes. Many short runs (little order to use) are sorted instead.
  */
 export function timeOrder(time: Int32Array, n: number): Uint32Array | null {
-  const starts: number[] = [0];
-  for (let i = 1; i < n; i++)
-    if (time[i]! < time[i - 1]!) {
-      starts.push(i);
-      if (starts.length > 64) return sortedOrder(time, n); // many short runs: sort
+  let runs = runStarts(time, n);
+  if (runs.length === 1) return null;
+  if (runs.length > 1 + n / 16) return sortedOrder(time, n);
+  runs.push(n);
+  let src = new Uint32Array(n);
+  for (let i = 0; i < n; i++) src[i] = i;
+  let dst = new Uint32Array(n);
+  // runs: start of each run, then n. Merge neighbours until one run is left.
+  while (runs.length > 2) {
+    const merged = [0];
+    let r = 0;
+    for (; r + 2 < runs.length; r += 2) {
+      mergeRuns(time, src, dst, runs[r]!, runs[r + 1]!, runs[r + 2]!);
+      merged.push(runs[r + 2]!);
     }
-  if (starts.length === 1) return null;
-  // Runs by first time, reading order among equal first times.
-  const runs = starts.map((start, r) => ({ start, end: starts[r + 1] ?? n }));
-  runs.sort((a, b) => time[a.start]! - time[b.start]! || a.start - b.start);
-  for (let r = 1; r < runs.length; r++) {
-    const prev = runs[r - 1]!;
-    const run = runs[r]!;
-    const lastOfPrev = time[prev.end - 1]!;
-    const firstOfRun = time[run.start]!;
-    // Overlap, or a tie that reading order would put the other way round: sort instead.
-    if (lastOfPrev > firstOfRun || (lastOfPrev === firstOfRun && prev.start > run.start))
-      return sortedOrder(time, n);
+    if (r + 1 < runs.length) {
+      dst.set(src.subarray(runs[r]!, runs[r + 1]!), runs[r]!); // odd run out: copied as it is
+      merged.push(runs[r + 1]!);
+    }
+    [src, dst] = [dst, src];
+    runs = merged;
   }
-  const out = new Uint32Array(n);
-  let k = 0;
-  for (const { start, end } of runs) for (let i = start; i < end; i++) out[k++] = i;
-  return out;
+  return src;
+}
+
+/** Start of every run of entries in time order (equal times included) among the first n. */
+function runStarts(time: Int32Array, n: number): number[] {
+  const starts = [0];
+  for (let i = 1; i < n; i++) if (time[i]! < time[i - 1]!) starts.push(i);
+  return starts;
+}
+
+/**
+ * Merges the index runs src[a..m) and src[m..z), each in time order, into dst[a..z); among equal
+ * times the left run's entries come first (stable).
+ */
+function mergeRuns(
+  time: Int32Array,
+  src: Uint32Array,
+  dst: Uint32Array,
+  a: number,
+  m: number,
+  z: number,
+): void {
+  if (time[src[m - 1]!]! <= time[src[m]!]!) {
+    dst.set(src.subarray(a, z), a); // already in order
+    return;
+  }
+  if (time[src[z - 1]!]! < time[src[a]!]!) {
+    dst.set(src.subarray(m, z), a); // the right run wholly before the left one
+    dst.set(src.subarray(a, m), a + z - m);
+    return;
+  }
+  let i = a;
+  let j = m;
+  let k = a;
+  while (i < m && j < z) {
+    if (time[src[j]!]! < time[src[i]!]!) dst[k++] = src[j++]!;
+    else dst[k++] = src[i++]!;
+  }
+  while (i < m) dst[k++] = src[i++]!;
+  while (j < z) dst[k++] = src[j++]!;
 }
 
 /** Stable time order of the first n entries by sorting: one Float64Array of time × 2^22 + index where that fits exactly. */
