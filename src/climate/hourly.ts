@@ -57,8 +57,14 @@ function consider(rank: Uint8Array, tempC: Float64Array, h: number, r: number, v
  * longer gaps stay missing. Returns a new series (the input is not changed).
  */
 export function fillGaps(series: HourlySeries, gapHours: number): HourlySeries {
-  const tempC = series.tempC.slice();
-  const filled = series.filled.slice();
+  const copy = { startUtcMs: series.startUtcMs, tempC: series.tempC.slice(), filled: series.filled.slice() };
+  fillGapsInPlace(copy, gapHours);
+  return copy;
+}
+
+/** fillGaps on the series itself (for a grid just built, that nothing else holds). */
+export function fillGapsInPlace(series: HourlySeries, gapHours: number): void {
+  const { tempC, filled } = series;
   let last = -1; // index of the last hour with a value
   for (let i = 0; i < tempC.length; i++) {
     if (Number.isNaN(tempC[i]!)) continue;
@@ -73,7 +79,6 @@ export function fillGaps(series: HourlySeries, gapHours: number): HourlySeries {
     }
     last = i;
   }
-  return { startUtcMs: series.startUtcMs, tempC, filled };
 }
 
 /** Hours with a value (filled ones included). */

@@ -7,7 +7,7 @@ import { readdir, stat } from "node:fs/promises";
 import { basename, join, resolve } from "node:path";
 import { inputError } from "../errors.js";
 import { cacheKey, fileHash, readCache, writeCache } from "./cache.js";
-import { fillGaps, hourlyFromObservations } from "./hourly.js";
+import { fillGapsInPlace, hourlyFromObservations } from "./hourly.js";
 import { timeZoneFor } from "./localTime.js";
 import { readFilesInWorkers, workersAvailable } from "./pool.js";
 import { partsOfFile, qualityControl, type StationPart } from "./qc.js";
@@ -113,6 +113,7 @@ export function buildStations(
     lon = Number(lon.toFixed(3));
     elevationM = Number(elevationM);
     const grid = hourlyFromObservations(r.keptTimeMin, r.keptTempTenths, r.keptSpecial);
+    fillGapsInPlace(grid, gapHours);
     return {
       meta: {
         id,
@@ -123,7 +124,7 @@ export function buildStations(
         timeZone: timeZoneFor(lat, lon),
         callLetters: r.callLetters ?? hist?.icao ?? null,
       },
-      series: fillGaps(grid, gapHours),
+      series: grid,
       qc: r.qc,
       extremes: r.extremes,
       meanStationPressureHpa: r.meanStationPressureHpa,

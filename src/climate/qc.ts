@@ -396,13 +396,14 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
       callLetters = k;
       callN = n;
     }
-  const outTime = keptTime.slice(0, nKept);
-  const outTemp = keptTemp.slice(0, nKept);
+  // Views of the used part (no copy: the arrays are this result's own).
+  const outTime = keptTime.subarray(0, nKept);
+  const outTemp = keptTemp.subarray(0, nKept);
   return {
     qc,
     keptTimeMin: outTime,
     keptTempTenths: outTemp,
-    keptSpecial: keptSpecial.slice(0, nKept),
+    keptSpecial: keptSpecial.subarray(0, nKept),
     extremes: extremesOf(outTime, outTemp),
     meanStationPressureHpa: presN > 0 ? presSum / presN / 10 : null,
     position: posKey === null ? null : keyToPosition(posKey),
