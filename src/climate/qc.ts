@@ -158,26 +158,28 @@ interface PositionCounts {
   all: Map<number, number>;
 }
 
-function addPositionRun(counts: PositionCounts, year: number, key: number, n: number): void {
-  let m = counts.byYear.get(year);
-  if (m === undefined) {
-    m = new Map();
-    counts.byYear.set(year, m);
-  }
-  add(m, key, n);
-  add(counts.all, key, n);
-}
-
 /**
  * Pass 1: counts positions per station-year among records that are observations (not malformed, not
- * summaries, with a position). Positions come in long runs, so a run is counted once when it ends.
+ * summaries, with a position). Each distinct (year, position) gets a counter when first seen; the
+ * counters of the last two are kept at hand (positions come in long runs, or two alternate).
  */
 function countPositions(parts: StationPart[]): PositionCounts {
-  const counts: PositionCounts = { byYear: new Map(), all: new Map() };
   const years = yearCache();
-  let runKey = -1;
-  let runYear = 0;
-  let runN = 0;
+  // Distinct (year, position key) in order of first sight, their counts, and an index to find them.
+  const pairYear: number[] = [];
+  const pairKey: number[] = [];
+  const pairN: number[] = [];
+  const pairIndex = new Map<number, Map<number, number>>(); // year → key → pair
+  let lastLat = Number.NaN;
+  let lastLon = Number.NaN;
+  let lastElev = Number.NaN;
+  let lastYear = Number.NaN;
+  let lastPair = -1;
+  let prevLat = Number.NaN;
+  let prevLon = Number.NaN;
+  let prevElev = Number.NaN;
+  let prevYear = Number.NaN;
+  let prevPair = -1;
   for (const { file, indices } of parts) {
     const { kind, latMilli, lonMilli, elevM, timeMin } = file.records;
     for (let j = 0; j < indices.length; j++) {
@@ -187,18 +189,53 @@ function countPositions(parts: StationPart[]): PositionCounts {
       const lat = latMilli[i]!;
       const lon = lonMilli[i]!;
       if (lat === MISSING_LAT || lon === MISSING_LON) continue;
+      const elev = elevM[i]!;
       const y = yearOfMinute(years, timeMin[i]!);
-      const key = positionKey(lat, lon, elevM[i]!);
-      if (key !== runKey || y !== runYear) {
-        if (runN > 0) addPositionRun(counts, runYear, runKey, runN);
-        runKey = key;
-        runYear = y;
-        runN = 0;
+      if (lat !== lastLat || lon !== lastLon || elev !== lastElev || y !== lastYear) {
+        let pair: number;
+        if (lat === prevLat && lon === prevLon && elev === prevElev && y === prevYear) pair = prevPair;
+        else {
+          const key = positionKey(lat, lon, elev);
+          let ofYear = pairIndex.get(y);
+          if (ofYear === undefined) {
+            ofYear = new Map();
+            pairIndex.set(y, ofYear);
+          }
+          let found = ofYear.get(key);
+          if (found === undefined) {
+            found = pairN.length;
+            ofYear.set(key, found);
+            pairYear.push(y);
+            pairKey.push(key);
+            pairN.push(0);
+          }
+          pair = found;
+        }
+        prevLat = lastLat;
+        prevLon = lastLon;
+        prevElev = lastElev;
+        prevYear = lastYear;
+        prevPair = lastPair;
+        lastLat = lat;
+        lastLon = lon;
+        lastElev = elev;
+        lastYear = y;
+        lastPair = pair;
       }
-      runN++;
+      pairN[lastPair]!++;
     }
   }
-  if (runN > 0) addPositionRun(counts, runYear, runKey, runN);
+  // The count maps, their keys in order of first sight (the first seen wins a tie in modeOf).
+  const counts: PositionCounts = { byYear: new Map(), all: new Map() };
+  for (let p = 0; p < pairN.length; p++) {
+    let m = counts.byYear.get(pairYear[p]!);
+    if (m === undefined) {
+      m = new Map();
+      counts.byYear.set(pairYear[p]!, m);
+    }
+    add(m, pairKey[p]!, pairN[p]!);
+    add(counts.all, pairKey[p]!, pairN[p]!);
+  }
   return counts;
 }
 
@@ -237,12 +274,18 @@ function classifyPart(
   } = part.file.records;
   const indices = part.indices;
   const years = yearCache();
-  // Site verdict of the previous record's position and year (positions come in long runs).
+  // Site verdicts of the last two positions and years seen (positions come in long runs, or two
+  // alternate, as when two report types give the position differently).
   let lastLat = Number.NaN;
   let lastLon = Number.NaN;
   let lastElev = Number.NaN;
   let lastYear = Number.NaN;
   let lastFar = false;
+  let prevLat = Number.NaN;
+  let prevLon = Number.NaN;
+  let prevElev = Number.NaN;
+  let prevYear = Number.NaN;
+  let prevFar = false;
   let n = out.n;
   for (let j = 0; j < indices.length; j++) {
     const i = indices[j]!;
@@ -262,16 +305,26 @@ function classifyPart(
     if (lat !== MISSING_LAT && lon !== MISSING_LON) {
       const y = yearOfMinute(years, t);
       if (lat !== lastLat || lon !== lastLon || elev !== lastElev || y !== lastYear) {
-        const site = siteByYear.get(y)!;
-        lastFar =
-          distanceM(site.latMilli, site.lonMilli, lat, lon) > SITE_RADIUS_M ||
-          (elev !== MISSING_ELEV &&
-            site.elevM !== MISSING_ELEV &&
-            Math.abs(elev - site.elevM) > SITE_ELEVATION_M);
+        let far: boolean;
+        if (lat === prevLat && lon === prevLon && elev === prevElev && y === prevYear) far = prevFar;
+        else {
+          const site = siteByYear.get(y)!;
+          far =
+            distanceM(site.latMilli, site.lonMilli, lat, lon) > SITE_RADIUS_M ||
+            (elev !== MISSING_ELEV &&
+              site.elevM !== MISSING_ELEV &&
+              Math.abs(elev - site.elevM) > SITE_ELEVATION_M);
+        }
+        prevLat = lastLat;
+        prevLon = lastLon;
+        prevElev = lastElev;
+        prevYear = lastYear;
+        prevFar = lastFar;
         lastLat = lat;
         lastLon = lon;
         lastElev = elev;
         lastYear = y;
+        lastFar = far;
       }
       if (lastFar) {
         dropped.otherSite++;

@@ -194,6 +194,7 @@ export function noteMalformed(file: ParsedFile, line: number, field: string, rea
  * lands in exactly one station's counts.
  */
 export function resolveUnknownStations(c: RecordColumns): void {
+  if (c.station.subarray(0, c.count).indexOf(UNKNOWN_STATION) < 0) return; // none to resolve
   let first = UNKNOWN_STATION;
   for (let i = 0; i < c.count; i++)
     if (c.kind[i] !== KIND_MALFORMED && c.station[i] !== UNKNOWN_STATION) {

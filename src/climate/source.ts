@@ -129,6 +129,14 @@ export interface ReadOptions {
  */
 export async function readClimateFile(path: string, options: ReadOptions = {}): Promise<ParsedFile> {
   const it = readChunks(path);
+  try {
+    return await readFrom(path, it, options);
+  } finally {
+    await it.return(undefined); // closes the file when reading stopped early
+  }
+}
+
+async function readFrom(path: string, it: AsyncGenerator<Buffer>, options: ReadOptions): Promise<ParsedFile> {
   const headChunks: Buffer[] = [];
   let headLen = 0;
   let done = false;
@@ -141,7 +149,7 @@ export async function readClimateFile(path: string, options: ReadOptions = {}): 
     headChunks.push(r.value);
     headLen += r.value.length;
   }
-  const head = Buffer.concat(headChunks);
+  const head = headChunks.length === 1 ? headChunks[0]! : Buffer.concat(headChunks);
   if (done && head.every((c) => c === 10 || c === 13 || c === 32 || c === 9))
     throw inputError(path, undefined, undefined, "file is empty; expected ISD climate records");
   const format = detectFormat(head);
@@ -152,13 +160,15 @@ export async function readClimateFile(path: string, options: ReadOptions = {}): 
       undefined,
       "not a climate file: expected the ISD full format, ISD-Lite or the comma-separated global-hourly layout",
     );
-  async function* all(): AsyncGenerator<Buffer> {
-    yield head;
-    if (!done) yield* it;
-  }
+  const rest = done ? null : it;
   const file = emptyParsedFile(path, format, await estimateRecords(path, head));
-  if (format === "csv") await readCsv(file, all());
-  else await readLines(file, all(), format, options);
+  if (format === "csv") {
+    async function* all(): AsyncGenerator<Buffer> {
+      yield head;
+      if (rest !== null) yield* rest;
+    }
+    await readCsv(file, all());
+  } else await readLines(file, head, rest, format, options);
   resolveUnknownStations(file.records);
   if (file.stations.length === 0)
     throw inputError(
@@ -233,7 +243,8 @@ function takeLines(sink: LineSink, chunk: Buffer, from: number): number {
 /** Streams fixed-layout lines (full or Lite) from byte chunks to the line parser, without strings. */
 async function readLines(
   file: ParsedFile,
-  chunks: AsyncIterable<Buffer>,
+  head: Buffer,
+  rest: AsyncGenerator<Buffer> | null,
   format: "isd" | "isd-lite",
   options: ReadOptions,
 ): Promise<void> {
@@ -255,7 +266,7 @@ async function readLines(
   }
   let carry: Buffer | null = null;
   let skipping = false; // inside an over-long line, waiting for its end
-  for await (const chunk of chunks) {
+  for (let chunk: Buffer | null = head; chunk !== null; chunk = await nextChunk(rest)) {
     file.bytes += chunk.length;
     let pos = 0;
     if (carry !== null || skipping) {
@@ -290,6 +301,13 @@ async function readLines(
   else if (carry !== null) takeLine(sink, carry, 0, carry.length);
   if (sink.isd !== null) flushCalls(sink.isd);
   file.lines = sink.lineNo;
+}
+
+/** The next chunk of the stream, or null at its end (or when there is no stream). */
+async function nextChunk(rest: AsyncGenerator<Buffer> | null): Promise<Buffer | null> {
+  if (rest === null) return null;
+  const r = await rest.next();
+  return r.done ? null : r.value;
 }
 
 function tooLong(file: ParsedFile, lineNo: number): void {
