@@ -21,6 +21,7 @@ import {
   parseIsdLine,
 } from "./isdFull.js";
 import { looksLikeLiteLine, parseLiteLine, stationIdFromFileName } from "./isdLite.js";
+import { parseSessionsAvailable, startParseSession } from "./pool.js";
 import {
   emptyParsedFile,
   noteMalformed,
@@ -121,6 +122,11 @@ export function detectFormat(head: Buffer): ClimateFormat | null {
 export interface ReadOptions {
   /** Station id for ISD-Lite files whose name does not carry it. */
   stationIdOverride?: string | undefined;
+  /**
+   * Files expected to hold at least this many records are parsed on a worker thread while this
+   * thread decompresses them (default PARSE_WORKER_MIN_RECORDS; where the compiled worker exists).
+   */
+  parseOnWorkerFromRecords?: number | undefined;
 }
 
 /**
@@ -161,14 +167,20 @@ async function readFrom(path: string, it: AsyncGenerator<Buffer>, options: ReadO
       "not a climate file: expected the ISD full format, ISD-Lite or the comma-separated global-hourly layout",
     );
   const rest = done ? null : it;
-  const file = emptyParsedFile(path, format, await estimateRecords(path, head));
+  const capacity = await estimateRecords(path, head);
+  let file = emptyParsedFile(path, format, capacity);
   if (format === "csv") {
     async function* all(): AsyncGenerator<Buffer> {
       yield head;
       if (rest !== null) yield* rest;
     }
     await readCsv(file, all());
-  } else await readLines(file, head, rest, format, options);
+  } else if (
+    capacity >= (options.parseOnWorkerFromRecords ?? PARSE_WORKER_MIN_RECORDS) &&
+    parseSessionsAvailable()
+  )
+    file = await readLinesOnWorker(path, head, rest, format, options, capacity);
+  else await readLines(file, head, rest, format, options);
   resolveUnknownStations(file.records);
   if (file.stations.length === 0)
     throw inputError(
@@ -211,33 +223,106 @@ async function estimateRecords(path: string, head: Buffer): Promise<number> {
 
 /**
  * Where the lines of a fixed-layout file go: the full-format parser's state, or the Lite file's
- * station. A plain object and plain functions (no closures made per file), so that the optimised
- * line loop serves every file alike.
+ * station; and the unfinished line at the end of the last chunk. A plain object and plain functions
+ * (no closures made per file), so that the optimised line loop serves every file alike.
  */
-interface LineSink {
+export interface LineReader {
   file: ParsedFile;
   isd: IsdLineState | null; // null for ISD-Lite
   liteStation: number;
   lineNo: number;
+  carry: Buffer | null; // start of a line that continues in the next chunk
+  skipping: boolean; // inside an over-long line, waiting for its end
 }
 
 /** One line b[s..e) without its "\n": counted, its "\r" dropped, blank lines skipped, the rest parsed. */
-function takeLine(sink: LineSink, b: Uint8Array, s: number, e: number): void {
-  const lineNo = ++sink.lineNo;
+function takeLine(r: LineReader, b: Uint8Array, s: number, e: number): void {
+  const lineNo = ++r.lineNo;
   if (e > s && b[e - 1] === 13) e--;
   if (e === s) return; // blank line: not a record
-  if (sink.isd !== null) parseIsdLine(sink.isd, b, s, e, lineNo);
-  else parseLiteLine(sink.file, sink.liteStation, b, s, e, lineNo);
+  if (r.isd !== null) parseIsdLine(r.isd, b, s, e, lineNo);
+  else parseLiteLine(r.file, r.liteStation, b, s, e, lineNo);
 }
 
-/** Passes every complete line of chunk[from..] to the sink; returns where the unfinished last line starts. */
-function takeLines(sink: LineSink, chunk: Buffer, from: number): number {
+/** Passes every complete line of chunk[from..] on; returns where the unfinished last line starts. */
+function takeLines(r: LineReader, chunk: Buffer, from: number): number {
   let pos = from;
   for (let nl = chunk.indexOf(10, pos); nl >= 0; nl = chunk.indexOf(10, pos)) {
-    takeLine(sink, chunk, pos, nl);
+    takeLine(r, chunk, pos, nl);
     pos = nl + 1;
   }
   return pos;
+}
+
+/**
+ * A line reader for a fixed-layout file (full or Lite). Throws InputError for an ISD-Lite file whose
+ * station is known neither from its name nor from the options.
+ */
+export function createLineReader(
+  file: ParsedFile,
+  format: "isd" | "isd-lite",
+  options: ReadOptions,
+): LineReader {
+  const r: LineReader = { file, isd: null, liteStation: -1, lineNo: 0, carry: null, skipping: false };
+  if (format === "isd") r.isd = createIsdLineState(file);
+  else {
+    const id = options.stationIdOverride ?? stationIdFromFileName(basename(file.path));
+    if (id === null)
+      throw inputError(
+        file.path,
+        undefined,
+        "station id",
+        "ISD-Lite file name does not start with USAF-WBAN (e.g. 725300-94846-2014); give the station id as an option",
+      );
+    r.liteStation = file.stations.length;
+    file.stations.push(id);
+    file.stationNames.push(null);
+    file.callLetters.push(new Map());
+  }
+  return r;
+}
+
+/** Parses the lines of the next chunk of the file's bytes (a line may run on into the next chunk). */
+export function feedLines(r: LineReader, chunk: Buffer): void {
+  r.file.bytes += chunk.length;
+  let pos = 0;
+  if (r.carry !== null || r.skipping) {
+    const nl = chunk.indexOf(10);
+    if (nl < 0) {
+      if (!r.skipping) {
+        r.carry = Buffer.concat([r.carry!, chunk]);
+        if (r.carry.length > MAX_LINE_BYTES) {
+          r.skipping = true;
+          r.carry = null;
+        }
+      }
+      return;
+    }
+    if (r.skipping) {
+      tooLong(r.file, ++r.lineNo);
+      r.skipping = false;
+    } else {
+      const joined: Buffer = Buffer.concat([r.carry!, chunk.subarray(0, nl)]);
+      takeLine(r, joined, 0, joined.length);
+    }
+    r.carry = null;
+    pos = nl + 1;
+  }
+  pos = takeLines(r, chunk, pos);
+  if (pos < chunk.length) {
+    if (chunk.length - pos > MAX_LINE_BYTES) r.skipping = true;
+    else r.carry = Buffer.from(chunk.subarray(pos));
+  }
+}
+
+/** Ends the file: its last line (without a final line break) and the call-letter counts. */
+export function finishLines(r: LineReader): void {
+  if (r.skipping) tooLong(r.file, ++r.lineNo);
+  else if (r.carry !== null) takeLine(r, r.carry, 0, r.carry.length);
+  r.carry = null;
+  r.skipping = false;
+  if (r.isd !== null) flushCalls(r.isd);
+  r.file.lines = r.lineNo;
 }
 
 /** Streams fixed-layout lines (full or Lite) from byte chunks to the line parser, without strings. */
@@ -248,59 +333,35 @@ async function readLines(
   format: "isd" | "isd-lite",
   options: ReadOptions,
 ): Promise<void> {
-  const sink: LineSink = { file, isd: null, liteStation: -1, lineNo: 0 };
-  if (format === "isd") sink.isd = createIsdLineState(file);
-  else {
-    const id = options.stationIdOverride ?? stationIdFromFileName(basename(file.path));
-    if (id === null)
-      throw inputError(
-        file.path,
-        undefined,
-        "station id",
-        "ISD-Lite file name does not start with USAF-WBAN (e.g. 725300-94846-2014); give the station id as an option",
-      );
-    sink.liteStation = file.stations.length;
-    file.stations.push(id);
-    file.stationNames.push(null);
-    file.callLetters.push(new Map());
+  const r = createLineReader(file, format, options);
+  for (let chunk: Buffer | null = head; chunk !== null; chunk = await nextChunk(rest)) feedLines(r, chunk);
+  finishLines(r);
+}
+
+/**
+ * Files expected to hold at least this many records (some 25 MB of ISD text) are parsed on a worker
+ * thread while this thread decompresses them; smaller ones are not worth the hand-over.
+ */
+export const PARSE_WORKER_MIN_RECORDS = 100_000;
+
+/** readLines with the parsing done on a worker thread (see startParseSession). */
+async function readLinesOnWorker(
+  path: string,
+  head: Buffer,
+  rest: AsyncGenerator<Buffer> | null,
+  format: "isd" | "isd-lite",
+  options: ReadOptions,
+  capacity: number,
+): Promise<ParsedFile> {
+  const session = startParseSession(path, format, options, capacity);
+  try {
+    for (let chunk: Buffer | null = head; chunk !== null; chunk = await nextChunk(rest))
+      await session.send(chunk);
+  } catch (err) {
+    session.abort();
+    throw err;
   }
-  let carry: Buffer | null = null;
-  let skipping = false; // inside an over-long line, waiting for its end
-  for (let chunk: Buffer | null = head; chunk !== null; chunk = await nextChunk(rest)) {
-    file.bytes += chunk.length;
-    let pos = 0;
-    if (carry !== null || skipping) {
-      const nl = chunk.indexOf(10);
-      if (nl < 0) {
-        if (!skipping) {
-          carry = Buffer.concat([carry!, chunk]);
-          if (carry.length > MAX_LINE_BYTES) {
-            skipping = true;
-            carry = null;
-          }
-        }
-        continue;
-      }
-      if (skipping) {
-        tooLong(file, ++sink.lineNo);
-        skipping = false;
-      } else {
-        const joined: Buffer = Buffer.concat([carry!, chunk.subarray(0, nl)]);
-        takeLine(sink, joined, 0, joined.length);
-      }
-      carry = null;
-      pos = nl + 1;
-    }
-    pos = takeLines(sink, chunk, pos);
-    if (pos < chunk.length) {
-      if (chunk.length - pos > MAX_LINE_BYTES) skipping = true;
-      else carry = Buffer.from(chunk.subarray(pos));
-    }
-  }
-  if (skipping) tooLong(file, ++sink.lineNo);
-  else if (carry !== null) takeLine(sink, carry, 0, carry.length);
-  if (sink.isd !== null) flushCalls(sink.isd);
-  file.lines = sink.lineNo;
+  return session.finish();
 }
 
 /** The next chunk of the stream, or null at its end (or when there is no stream). */
