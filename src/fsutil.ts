@@ -1,6 +1,7 @@
 import { randomBytes } from "node:crypto";
-import { mkdir, rename, rm, writeFile } from "node:fs/promises";
+import { mkdir, readFile, rename, rm, writeFile } from "node:fs/promises";
 import { dirname, join } from "node:path";
+import { inputError } from "./errors.js";
 
 /** Writes a file through a temporary sibling and a rename, so readers never see half a file. */
 export async function writeFileAtomic(path: string, data: string | Uint8Array): Promise<void> {
@@ -12,5 +13,19 @@ export async function writeFileAtomic(path: string, data: string | Uint8Array): 
   } catch (err) {
     await rm(tmp, { force: true });
     throw err;
+  }
+}
+
+/** Reads a user's text input file; a missing or unreadable file is an input error naming it. */
+export async function readInputText(file: string, what: string): Promise<string> {
+  try {
+    return await readFile(file, "utf8");
+  } catch (err) {
+    throw inputError(
+      file,
+      undefined,
+      undefined,
+      `cannot read ${what} (${(err as NodeJS.ErrnoException).code ?? "error"})`,
+    );
   }
 }

@@ -100,6 +100,20 @@ export function prechargeLineAbsPa(ctx: ProfileContext, tempK: number, amountMol
   return prechargePressureAbsPa(ctx.model, amountMol, tempK, ctx.geometry.v0M3);
 }
 
+/** The physics's band inputs (precharge reference, tolerance, system pressures) of a profile at atmPa. */
+export function bandInputsOf(profile: ProfileInput, atmPa: number): BandInputs {
+  const ref = profile.precharge.reference;
+  return {
+    refGaugePa: gaugePa(ref.pressure, atmPa),
+    refTempK: ref.tempK,
+    tolerancePa: profile.precharge.tolerance,
+    systemLowGaugePa: gaugePa(profile.system.low, atmPa),
+    systemNominalGaugePa: gaugePa(profile.system.nominal, atmPa),
+    systemHighGaugePa: gaugePa(profile.system.high, atmPa),
+    atmPa,
+  };
+}
+
 /** Builds the context of one profile at a base whose atmospheric pressure is atmPa. */
 export function profileContext(
   profile: ProfileInput,
@@ -122,15 +136,7 @@ export function profileContext(
     (gasAmountMol(model, refAbs + dP, ref.tempK, geometry.v0M3) -
       gasAmountMol(model, refAbs - dP, ref.tempK, geometry.v0M3)) /
     (2 * dP);
-  const band: BandInputs = {
-    refGaugePa: gaugePa(ref.pressure, atmPa),
-    refTempK: ref.tempK,
-    tolerancePa: tol,
-    systemLowGaugePa: gaugePa(profile.system.low, atmPa),
-    systemNominalGaugePa: gaugePa(profile.system.nominal, atmPa),
-    systemHighGaugePa: gaugePa(profile.system.high, atmPa),
-    atmPa,
-  };
+  const band = bandInputsOf(profile, atmPa);
   const bandKey = `${profile.name}|${atmPa}|${model.kind}`;
   let bandTable = bandTableCache?.get(bandKey);
   if (bandTable === undefined) {

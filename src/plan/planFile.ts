@@ -1,60 +1,8 @@
-/**
- * The plan file (YAML), validated with zod (product brief §2). Every error names the file, the line,
- * the YAML path and what was expected: `plan.yaml:23:profiles[0].precharge.reference: ...`.
- *
- * Format (a complete example is `tests/fixtures/plan/minimal-plan.yaml`):
- *
- * ```yaml
- * name: minimal                  # output folder out/<name>/; letters, digits, - _ . and spaces
- * units: us                      # us | si — output units only (default us)
- * seed: 42                       # integer seed of every random input (default 0)
- * assumptionOrigin: plan file    # optional: "demo" marks every plan value as a demo assumption
- * schedule: schedule.csv         # optional, relative to the plan file; --schedule overrides
- * climate:
- *   paths: [climate]             # ISD files or folders, relative to the plan file
- *   years: { from: 1991, to: 2020 }   # optional; default every year in the data
- *   gapHours: 3                  # default 3: longest gap filled linearly
- *   minYearShare: 0.8            # default 0.8: share of a window's hours present for a year to count
- *   minYears: 5                  # default 5: fewer usable years at a base gives a warning
- *   cacheDir: cache              # optional, relative to the plan file; default out/cache/climate
- *   stationHistory: isd-history.csv   # optional station list (USAF,WBAN,STATION NAME,CTRY,STATE,ICAO,
- *                                # LAT,LON,ELEV(M),BEGIN,END) for ISD-Lite files, which carry no position
- * bases:
- *   - name: North Field
- *     stations: ["725300-94846"] # ISD ids "USAF-WBAN", in priority order
- *     hangar: { temperature: "50 F", in: "20:00", out: "06:00" }   # optional, local times
- * profiles:
- *   - name: standard
- *     accumulator: { gasVolumeEmpty: "300 in3", gasVolumeFull: "60 in3" }   # V0 (0 %), Vmin (100 %)
- *     precharge: { reference: "1450 psig @ 70 F", tolerance: "50 psi" }
- *     system: { low: "2850 psig", nominal: "3000 psig", high: "3150 psig" }
- *     fluid: { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" }
- *     thermalTimeConstant: "2 h"                 # "0 s" = accumulator at ambient
- *     gasLoss: { rate: "5 psi/month", spread: 0.3 }   # median rate at the reference temperature;
- *                                                # spread = σ of ln(rate) across aircraft (default 0)
- *     starter: { minUsefulPressure: "1000 psig", returnPressure: "0 psig", expansion: isentropic }
- *     startEnergy: [ { ambient: "-40 F", energy: "30 kJ" }, { ambient: "70 F", energy: "15 kJ" } ]
- *     pump: { curve: [ { pressure: "0 psig", flow: "1.2 L/min" } ], timer: "3 min" }
- *     handPump: { displacement: "1 in3", efficiency: 0.9 }
- *     coldStartOption: { count: 2, timer: "6 min" }
- * operations:
- *   startTimes: ["06:30", "13:00"]   # local; the first is the day's preflight
- *   weekdays: [Mon, Tue, Wed, Thu, Fri]   # or a count 1–7: that many days drawn from the seed
- *   prechargeCheckDays: 7            # precharge checked at the first start every N days of a stay
- *   outOfBand: adjust-precharge      # log | adjust-precharge (default log)
- * nitrogen:
- *   cylinder: { waterVolume: "49 L", fill: "2200 psig @ 70 F" }
- *   transferDifferential: "50 psi"
- *   hoseVolume: "10 in3"
- *   cylindersPerCart: 2
- * thresholds: { shortStartsPct: 1 }  # default 1: share of starts short that calls for the option
- * ```
- */
-import { readFile } from "node:fs/promises";
 import { dirname, resolve } from "node:path";
 import { type Document, isMap, LineCounter, parseDocument } from "yaml";
 import { z } from "zod";
 import { inputError } from "../errors.js";
+import { readInputText } from "../fsutil.js";
 import {
   type PointPressure,
   parseClockMinutes,
@@ -398,16 +346,6 @@ export function parsePlanText(text: string, file: string): Plan {
 
 /** Reads and validates a plan file. */
 export async function loadPlan(file: string): Promise<Plan> {
-  let text: string;
-  try {
-    text = await readFile(file, "utf8");
-  } catch (err) {
-    throw inputError(
-      file,
-      undefined,
-      undefined,
-      `cannot read the plan file (${(err as NodeJS.ErrnoException).code ?? "error"})`,
-    );
-  }
+  const text = await readInputText(file, "the plan file");
   return parsePlanText(text, file);
 }

@@ -1,20 +1,7 @@
-/**
- * The deployment schedule (CSV, RFC 4180, product brief §2), read with csv-parse:
- *
- * ```csv
- * aircraft,base,arrive,depart,cold_start_option,profile
- * A01,North Field,2027-01-04,2027-02-01,no,standard
- * ```
- *
- * The header row is required; `cold_start_option` (yes/no, default no) and `profile` (default: the
- * plan's first profile) may be left out. Dates are calendar dates `YYYY-MM-DD`; a stay covers the days
- * from `arrive` up to, not including, `depart`, so a same-day move between bases is no overlap.
- * Every error is `file:line:column: message`.
- */
-import { readFile } from "node:fs/promises";
 import { CsvError, parse } from "csv-parse/sync";
 import { DateTime } from "luxon";
 import { inputError } from "../errors.js";
+import { readInputText } from "../fsutil.js";
 
 export interface Stay {
   aircraft: string;
@@ -203,16 +190,6 @@ export async function loadSchedule(
   baseNames: string[],
   profileNames: string[],
 ): Promise<Stay[]> {
-  let text: string;
-  try {
-    text = await readFile(file, "utf8");
-  } catch (err) {
-    throw inputError(
-      file,
-      undefined,
-      undefined,
-      `cannot read the schedule (${(err as NodeJS.ErrnoException).code ?? "error"})`,
-    );
-  }
+  const text = await readInputText(file, "the schedule");
   return parseScheduleText(text, file, baseNames, profileNames);
 }
