@@ -50,10 +50,19 @@ export interface ProfileContext {
   bandTable: BandTable;
   starter: StarterSpec;
   energyTable: { x: number; y: number }[];
+  /** True when the cold-start option is fitted in this configuration. */
+  fitted: boolean;
   /** Units fitted in this configuration (1, or the option's count) and their pump timer. */
   count: number;
   optionCount: number;
   pump: PumpSpec;
+  /**
+   * The other configuration, followed alongside for the energy "with one and with two accumulators"
+   * (brief §1, §5): one unit on the pump's own timer when the option is fitted, else the option's
+   * count on the option's timer.
+   */
+  altCount: number;
+  altPump: PumpSpec;
   handPump: { displacementM3: number; efficiency: number };
   tauS: number;
   /** Nominal gas loss per unit, mol/s (the profile's pressure rate at the reference temperature and V0). */
@@ -149,6 +158,9 @@ export function profileContext(
     returnAbsPa: absPa(profile.starter.returnPressure, atmPa),
     isothermal: profile.starter.expansion === "isothermal",
   };
+  const pumpCurve = profile.pump.curve.map((r) => ({ gaugePa: gaugePa(r.pressure, atmPa), flowM3S: r.flow }));
+  const pumpOne: PumpSpec = { curve: pumpCurve, timerS: profile.pump.timer, atmPa };
+  const pumpOption: PumpSpec = { curve: pumpCurve, timerS: profile.coldStartOption.timer, atmPa };
   let grid: DischargeGrid | null = null;
   if (!options.exactDischarge) {
     const gridKey = `${bandKey}|grid`;
@@ -174,13 +186,12 @@ export function profileContext(
     bandTable,
     starter,
     energyTable: profile.startEnergy.map((r) => ({ x: r.ambient, y: r.energy })),
+    fitted: coldStartOption,
     count,
     optionCount: profile.coldStartOption.count,
-    pump: {
-      curve: profile.pump.curve.map((r) => ({ gaugePa: gaugePa(r.pressure, atmPa), flowM3S: r.flow })),
-      timerS: coldStartOption ? profile.coldStartOption.timer : profile.pump.timer,
-      atmPa,
-    },
+    pump: coldStartOption ? pumpOption : pumpOne,
+    altCount: coldStartOption ? 1 : profile.coldStartOption.count,
+    altPump: coldStartOption ? pumpOne : pumpOption,
     handPump: { displacementM3: profile.handPump.displacement, efficiency: profile.handPump.efficiency },
     tauS: profile.thermalTimeConstant,
     gasLossMolS: profile.gasLoss.rate * molPerPa,

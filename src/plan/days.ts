@@ -79,11 +79,20 @@ export function localHourOf(day: DayPlan, utcMs: number, zone: string): number {
   return h ?? DateTime.fromMillis(utcMs, { zone }).hour;
 }
 
-/** The days of a stay (real dates) on climate year `climateYear` (the year its arrival maps onto). */
-export function buildDays(realDays: CivilDate[], climateYear: number, opts: DayOptions): DayPlan[] {
-  const arriveYear = realDays[0]!.year;
+/**
+ * The days of a stay (real dates) on climate sample `climateYear`: real year `referenceYear` maps onto
+ * `climateYear`, the next real year onto the next climate year, and so on. Every stay at one base uses
+ * the same reference year (the earliest arrival year there), so stays that overlap in real time see
+ * the same weather in each sample (default: the stay's own arrival year).
+ */
+export function buildDays(
+  realDays: CivilDate[],
+  climateYear: number,
+  opts: DayOptions,
+  referenceYear = realDays[0]!.year,
+): DayPlan[] {
   return realDays.map((real) => {
-    const c = climateDate(real, arriveYear, climateYear);
+    const c = climateDate(real, referenceYear, climateYear);
     const midnight = localInstant(c, 0, opts.timeZone);
     const next = localInstant(nextDay(c), 0, opts.timeZone);
     const len = next - midnight;

@@ -3,8 +3,11 @@
  * then the statistics per base and local month, the cold-start advice, the overnight traces and the
  * nitrogen logistics, gathered into the `results.json` contract (`results.ts`).
  *
- * Stays that share base, profile, option, window (month-days and, when not every weekday is flown,
- * weekdays) and gas-loss rate are simulated once and counted once per stay. With a gas-loss spread
+ * Every stay at a base maps onto the climate years with one reference year (the earliest arrival
+ * year at the base): in each sample, stays that overlap in real time see the same weather and draw on
+ * the same nitrogen pool. Stays that share base, profile, option, window (month-days and year offset
+ * from the reference year and, when not every weekday is flown, weekdays) and gas-loss rate are
+ * simulated once and counted once per stay. With a gas-loss spread
  * above zero each aircraft has its own rate, so only stays of one aircraft with equal windows share.
  */
 import { DateTime } from "luxon";
@@ -129,7 +132,7 @@ function localClimatology(series: HourlySeries, timeZone: string) {
   const hi = new Array<number>(13).fill(Number.NEGATIVE_INFINITY);
   const sum = new Array<number>(13).fill(0);
   const cnt = new Array<number>(13).fill(0);
-  const ranges: { year: number; month: number; rangeC: number }[] = [];
+  const ranges: { iso: string; month: number; rangeC: number }[] = [];
   const n = series.tempC.length;
   let i = 0;
   while (i < n) {
@@ -150,7 +153,7 @@ function localClimatology(series: HourlySeries, timeZone: string) {
       cnt[m]!++;
     }
     if (count >= MIN_HOURS_FOR_DAILY_RANGE) {
-      ranges.push({ year: new Date(d * 86_400_000).getUTCFullYear(), month: m, rangeC: dhi - dlo });
+      ranges.push({ iso: new Date(d * 86_400_000).toISOString().slice(0, 10), month: m, rangeC: dhi - dlo });
     }
   }
   return { lo, hi, sum, cnt, ranges };
@@ -189,6 +192,9 @@ export function runPlan(
     const clim = climate.get(base.name);
     if (clim === undefined) throw new Error(`no climate for base ${base.name}`);
     const here = stays.filter((s) => s.base === base.name);
+    // One reference year per base: real year refYear + k maps onto climate year y + k for every stay,
+    // so stays that overlap in real time share the weather of each sample (and the nitrogen pool).
+    const refYear = Math.min(...here.map((s) => Number(s.arrive.slice(0, 4))));
     const groups: Group[] = [];
     const groupOf: number[] = [];
     const byKey = new Map<string, number>();
@@ -196,7 +202,7 @@ export function runPlan(
       const realDays = stayDays(s.arrive, s.depart);
       const factor = factorOf.get(`${s.aircraft}|${s.profile}`)!;
       const pattern = realDays
-        .map((d) => `${d.month}-${d.day}${allFlown ? "" : `:${isoWeekday(d)}`}`)
+        .map((d) => `${d.year - refYear}-${d.month}-${d.day}${allFlown ? "" : `:${isoWeekday(d)}`}`)
         .join(",");
       const key = `${s.profile}|${s.coldStartOption}|${factor}|${pattern}`;
       let gi = byKey.get(key);
@@ -215,10 +221,7 @@ export function runPlan(
       groups[gi]!.stays.push(si);
       groupOf.push(gi);
     });
-    const span = Math.max(
-      0,
-      ...groups.map((g) => g.realDays[g.realDays.length - 1]!.year - g.realDays[0]!.year),
-    );
+    const span = Math.max(0, ...groups.map((g) => g.realDays[g.realDays.length - 1]!.year - refYear));
     const range = plan.climate.years
       ? [plan.climate.years.from, plan.climate.years.to]
       : dataYears(clim.series);
@@ -229,12 +232,17 @@ export function runPlan(
       for (let y = range[0]!; y + span <= range[1]!; y++) {
         let worst = 1;
         for (let gi = 0; gi < groups.length; gi++) {
-          const days = buildDays(groups[gi]!.realDays, y, {
-            timeZone: clim.timeZone,
-            startMinutes: plan.operations.startTimes,
-            flownWeekdays: weekdaySet,
-            hangar: base.hangar ? { inMin: base.hangar.in, outMin: base.hangar.out } : null,
-          });
+          const days = buildDays(
+            groups[gi]!.realDays,
+            y,
+            {
+              timeZone: clim.timeZone,
+              startMinutes: plan.operations.startTimes,
+              flownWeekdays: weekdaySet,
+              hangar: base.hangar ? { inMin: base.hangar.in, outMin: base.hangar.out } : null,
+            },
+            refYear,
+          );
           daysOf.set(`${gi}|${y}`, days);
           worst = Math.min(worst, windowShare(clim.series, days));
         }
@@ -450,15 +458,17 @@ function aggregateBase(
     );
   }
 
-  // Daily range (climatology) over the years used, by local month; monthly climate over all data.
-  const usedYears = new Set(p.years);
+  // Daily range by local month over the local days the stays' windows cover on the years used (each
+  // climate day once), so it describes the same days as the preflights; monthly climate over all data.
+  const windowDays = new Set<string>();
+  for (const days of p.daysOf.values()) for (const d of days) windowDays.add(d.climateIso);
   const clim = localClimatology(p.clim.series, tz);
   const rangeByMonth = Array.from({ length: 13 }, () => [] as number[]);
   const rangeByMonthAll = Array.from({ length: 13 }, () => [] as number[]);
   const allRanges: number[] = [];
   for (const r of clim.ranges) {
     rangeByMonthAll[r.month]!.push(r.rangeC);
-    if (!usedYears.has(r.year)) continue;
+    if (!windowDays.has(r.iso)) continue;
     rangeByMonth[r.month]!.push(r.rangeC);
     allRanges.push(r.rangeC);
   }
@@ -513,8 +523,8 @@ function aggregateBase(
       overnightDropKPaP90: q(a.dropK, 0.9),
       overnightDropReadingMeanPct: mean(a.dropR),
       overnightDropReadingP90Pct: q(a.dropR, 0.9),
-      dailyRangeMeanC: mean(rangeByMonth[month]!),
-      dailyRangeP90C: q(rangeByMonth[month]!, 0.9),
+      dailyRangeMeanC: has ? mean(rangeByMonth[month]!) : null,
+      dailyRangeP90C: has ? q(rangeByMonth[month]!, 0.9) : null,
       starts: a.starts,
       energyMarginOneP10Pct: q(a.marginOne, 0.1),
       energyMarginOneP50Pct: q(a.marginOne, 0.5),

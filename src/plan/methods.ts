@@ -37,7 +37,7 @@ export const METHODS: MethodNote[] = [
     name: "Start energy",
     source: "Isentropic real-gas expansion (Span et al. 2000) or isothermal, brief §3",
     description:
-      "Hydraulic energy ∫(P − P_return) dV until the piston reaches its stop or the pressure falls to the starter's minimum; n identical units deliver n times one unit's energy. The requirement is interpolated linearly in ambient temperature and held beyond the table's ends.",
+      "Hydraulic energy ∫(P − P_return) dV until the piston reaches its stop or the pressure falls to the starter's minimum; n identical units deliver n times one unit's energy. The requirement is interpolated linearly in ambient temperature and held beyond the table's ends. Every stay is judged in both configurations: “one accumulator” is a single unit recharged within the pump's own timer, “two accumulators” is the cold-start option (its count of units sharing the pump, within the option's timer). The configuration the stay has fitted is simulated; the other follows it as a shadow charge with the same accumulator temperature, gas amount and servicing but its own discharges and timer-limited recharges. The two energies differ by more than the unit count only when a timer stops a recharge short.",
   },
   {
     name: "Recharge",
@@ -73,6 +73,6 @@ export const METHODS: MethodNote[] = [
     name: "Climate years",
     source: "Product brief §4–§5",
     description:
-      "Each stay's month-day window is mapped onto every year of record (a window across 31 December runs into the next year; a real 29 February folds onto 28 February when the climate year has none). A year counts at a base when every stay there has at least the plan's share of its window hours present after gap filling.",
+      "Each stay's month-day window is mapped onto every year of record (a window across 31 December runs into the next year; a real 29 February folds onto 28 February when the climate year has none). All stays at a base share one mapping: the earliest arrival year there maps onto the sample year and each later real year onto the following climate year, so stays that overlap in real time see the same weather in every sample. A sample is labelled by the climate year its earliest real year maps onto. A year counts at a base when every stay there has at least the plan's share of its window hours present after gap filling.",
   },
 ];

@@ -15,9 +15,19 @@
  *    the gauge is compared with the precharge line for the ambient temperature and its tolerance lines,
  *    and the gas is set to the line at ambient (nitrogen added, or gas vented) — while the gas is at the
  *    lagged temperature; then the hand pump recharges to nominal system pressure;
- * 3. start discharge (energy with one unit and with the option's count against the requirement at
- *    ambient); n identical units in parallel deliver n times one unit's energy (brief §3);
+ * 3. start discharge (energy against the requirement at ambient); n identical units in parallel
+ *    deliver n times one unit's energy (brief §3);
  * 4. recharge by the pump within its timer (the option's longer timer when fitted), then trapped.
+ *
+ * Energy "with one and with two accumulators" (brief §1, §5): both configurations are followed for
+ * every stay — the one fitted, and the other one (one unit on the pump's timer, or the option's count
+ * on the option's timer) as a shadow charge that shares the accumulator temperature, the gas amount
+ * per unit and the servicing of the fitted one but has its own discharges and timer-limited
+ * recharges. "One" is always the single unit on the pump's timer, "two" always the option's count on
+ * its timer, whichever the stay has fitted; the two differ by more than the count only when a timer
+ * stops a recharge short. The shadow is skipped while both charges are equal (both recharges reach
+ * system pressure: the shadow's pump time is the fitted one's × its count ÷ the fitted count, since
+ * the pump's flow is shared among the units along the same isothermal path).
  * At every grid hour a what-if reading is taken of the trapped charge against the band at ambient
  * (the out-of-band share by local hour of day).
  *
@@ -238,6 +248,19 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
     out.servicings++;
   };
 
+  // The other configuration's charge (see the header); equal to `charged` while altSame.
+  let chargedAlt: ChargedState = charged;
+  let altSame = true;
+  /** Per-unit discharge energy and end volume from the gas volume at the start. */
+  const discharge = (gasVolM3: number): [number, number] => {
+    if (grid !== null) {
+      grid.lookup(amountMol, accK, gasVolM3, dischargeOut);
+      return [dischargeOut[0]!, dischargeOut[1]!];
+    }
+    const d = startDischarge(model, geometry, 1, amountMol, accK, gasVolM3, ctx.starter);
+    return [d.hydraulicEnergyJ, d.end.gasVolumeM3];
+  };
+
   const handPumpToSystem = () => {
     const vGas = Math.max(geometry.vminM3, gasVolumeM3(model, amountMol, accK, ctx.systemNominalAbsPa));
     out.handPumpStrokes += handPumpStrokes(
@@ -246,6 +269,8 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
       ctx.handPump.efficiency,
     );
     charged = chargedState(model, geometry, fluid, amountMol, accK, ctx.systemNominalAbsPa);
+    chargedAlt = charged;
+    altSame = true;
   };
 
   let prevDay: DayPlan | null = null;
@@ -360,23 +385,21 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
         }
       }
       // Start discharge of one unit; n identical units deliver n times as much.
-      let energyJ: number;
-      let endVolumeM3: number;
-      if (grid !== null) {
-        grid.lookup(amountMol, accK, st.gasVolumeM3, dischargeOut);
-        energyJ = dischargeOut[0]!;
-        endVolumeM3 = dischargeOut[1]!;
-      } else {
-        const d = startDischarge(model, geometry, 1, amountMol, accK, st.gasVolumeM3, ctx.starter);
-        energyJ = d.hydraulicEnergyJ;
-        endVolumeM3 = d.end.gasVolumeM3;
+      const [energyJ, endVolumeM3] = discharge(st.gasVolumeM3);
+      let energyAltJ = energyJ;
+      let endAltM3 = endVolumeM3;
+      if (!altSame) {
+        const stAlt = trappedState(model, geometry, fluid, chargedAlt, accK, amountMol);
+        [energyAltJ, endAltM3] = discharge(stAlt.gasVolumeM3);
       }
       if (counted) {
+        const oneJ = ctx.fitted ? energyAltJ : energyJ;
+        const optionUnitJ = ctx.fitted ? energyJ : energyAltJ;
         out.starts.push({
           month: day.month,
           ambientC: ambK - K0,
-          energyOneJ: energyJ,
-          energyTwoJ: energyJ * ctx.optionCount,
+          energyOneJ: oneJ,
+          energyTwoJ: optionUnitJ * ctx.optionCount,
           requiredJ: interpolateClamped(ctx.energyTable, ambK),
         });
       }
@@ -392,6 +415,24 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
         ctx.pump,
       );
       charged = chargedState(model, geometry, fluid, amountMol, accK, r.gasPressureAbsPa);
+      if (altSame && r.reachedSystem && (r.timeS * ctx.altCount) / ctx.count <= ctx.altPump.timerS) {
+        chargedAlt = charged;
+      } else {
+        const rAlt = recharge(
+          model,
+          geometry,
+          ctx.altCount,
+          amountMol,
+          accK,
+          endAltM3,
+          ctx.systemNominalAbsPa,
+          ctx.altPump,
+        );
+        altSame = r.reachedSystem && rAlt.reachedSystem;
+        chargedAlt = altSame
+          ? charged
+          : chargedState(model, geometry, fluid, amountMol, accK, rAlt.gasPressureAbsPa);
+      }
       lastRecharge = {
         day: di,
         accC: accK - K0,
