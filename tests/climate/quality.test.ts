@@ -34,6 +34,43 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     expect(s!.qc.read).toBe(6);
   });
 
+  it.each([
+    ["2", "suspect"],
+    ["3", "erroneous"],
+    ["6", "suspect"],
+    ["7", "erroneous"],
+  ] as const)(
+    "temperature quality %s alone is counted as %s (ISD format document, POS 93; brief §4)",
+    async (code, reason) => {
+      // One edited line among five untouched ones, so a code filed under the wrong reason shows.
+      const lines = routine();
+      const [s] = await loadClimate(
+        [writeLines(`${tmp.dir}/q${code}.txt`, [setAt(lines[0]!, 93, code), ...lines.slice(1)])],
+        noCache,
+      );
+      expect(s!.qc.dropped[reason]).toBe(1);
+      expect(droppedTotal(s!.qc)).toBe(1);
+      expect(s!.qc.kept).toBe(5);
+    },
+  );
+
+  it("second site: 5 km and 30 m from the most frequent position are the limits (brief §4)", async () => {
+    // The Chicago sample's main position is +41.995 −087.934, 205 m (real file). One degree of latitude
+    // is 111.2 km (spherical Earth, mean radius 6371 km; from memory): +0.040° = 4.45 km, +0.050° = 5.56 km.
+    const lines = routine();
+    const edited = [
+      setAt(lines[0]!, 29, "+42035"), // 4.45 km north: same site
+      setAt(lines[1]!, 29, "+42045"), // 5.56 km north: other site
+      setAt(lines[2]!, 47, "+0234"), // 29 m higher: same site
+      setAt(lines[3]!, 47, "+0236"), // 31 m higher: other site
+      lines[4]!,
+      lines[5]!,
+    ];
+    const [s] = await loadClimate([writeLines(`${tmp.dir}/site.txt`, edited)], noCache);
+    expect(s!.qc.dropped.otherSite).toBe(2);
+    expect(s!.qc.kept).toBe(4);
+  });
+
   it("missing (+9999) and out-of-range values (limits −93.2…+61.8 °C, format document POS 88-92)", async () => {
     const lines = routine();
     const edited = [

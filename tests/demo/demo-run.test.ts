@@ -47,16 +47,18 @@ describe("demo scenario, end to end (years 2019–2020)", () => {
   it("exits 0 and writes out/demo/report.html and results.json", () => {
     expect(code).toBe(0);
     expect(results.plan).toBe("demo");
-    expect(results.climateYears).toEqual([2019, 2020]);
+    expect(results.climateYears).toEqual([2019, 2020]); // the shortened range set above
   });
 
   it("covers the four invented bases with their generated stations", () => {
+    // Invented base names of the demo (src/demo/stations.ts, sample-data/demo-plan.yaml).
     expect(results.bases.map((b) => b.name)).toEqual(["Veldmoor", "Korrash", "Iskarra", "Sabreth"]);
     expect(results.bases.map((b) => b.stations[0]!.id)).toEqual(DEMO_STATIONS.map(stationId));
     for (const b of results.bases) expect(b.months.some((m) => m.preflights > 0)).toBe(true);
   });
 
   it("marks every plan value as a demo assumption", () => {
+    // The demo plan file sets several dozen values, each commented as a demo assumption (sample-data).
     expect(results.assumptions.length).toBeGreaterThan(10);
     for (const a of results.assumptions)
       expect(a.origin === "demo assumption" || a.origin === "default").toBe(true);
