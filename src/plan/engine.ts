@@ -635,6 +635,9 @@ function nitrogenOfBase(
     strokes: [] as number[],
   }));
   const baseKg: number[] = [];
+  const baseAdded: number[] = [];
+  const baseVented: number[] = [];
+  const baseServicings: number[] = [];
   const baseCyl: number[] = [];
   let unreachable = 0;
   for (const y of p.years) {
@@ -654,6 +657,9 @@ function nitrogenOfBase(
     const added = c.addedMol;
     const hose = c.hoseMol;
     let total = 0;
+    let totalAdded = 0;
+    let totalVented = 0;
+    let totalServicings = 0;
     p.stays.forEach((_s, si) => {
       const o = outcomes.get(`${p.groupOf[si]!}|${y}`)!;
       const a = added.get(si) ?? 0;
@@ -666,8 +672,14 @@ function nitrogenOfBase(
       ps.checks.push(o.checks);
       ps.strokes.push(o.handPumpStrokes);
       total += kg(a + h);
+      totalAdded += kg(a);
+      totalVented += kg(o.ventedMol + h);
+      totalServicings += o.servicings;
     });
     baseKg.push(total);
+    baseAdded.push(totalAdded);
+    baseVented.push(totalVented);
+    baseServicings.push(totalServicings);
     baseCyl.push(cylinders);
   }
   if (unreachable > 0) {
@@ -696,14 +708,20 @@ function nitrogenOfBase(
   });
   const cylSorted = sortedCopy(baseCyl);
   const cylQ = (pq: number) => Math.ceil(quantile(cylSorted, pq) ?? 0);
+  const carts = (cylinders: number) => Math.ceil(cylinders / plan.nitrogen.cylindersPerCart);
   return {
     kgP50: q0(baseKg, 0.5),
     kgP90: q0(baseKg, 0.9),
     kgP95: q0(baseKg, 0.95),
+    kgAddedP50: q0(baseAdded, 0.5),
+    kgVentedP50: q0(baseVented, 0.5),
+    servicingEventsP50: q0(baseServicings, 0.5),
     cylindersP50: cylQ(0.5),
     cylindersP90: cylQ(0.9),
     cylindersP95: cylQ(0.95),
-    cartsP95: Math.ceil(cylQ(0.95) / plan.nitrogen.cylindersPerCart),
+    cartsP50: carts(cylQ(0.5)),
+    cartsP90: carts(cylQ(0.9)),
+    cartsP95: carts(cylQ(0.95)),
     stays,
   };
 }

@@ -251,14 +251,19 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
   // The other configuration's charge (see the header); equal to `charged` while altSame.
   let chargedAlt: ChargedState = charged;
   let altSame = true;
-  /** Per-unit discharge energy and end volume from the gas volume at the start. */
-  const discharge = (gasVolM3: number): [number, number] => {
+  /** Per-unit discharge from the gas volume at the start: sets dischargeJ and dischargeEndM3. */
+  let dischargeJ = 0;
+  let dischargeEndM3 = 0;
+  const discharge = (gasVolM3: number): void => {
     if (grid !== null) {
       grid.lookup(amountMol, accK, gasVolM3, dischargeOut);
-      return [dischargeOut[0]!, dischargeOut[1]!];
+      dischargeJ = dischargeOut[0]!;
+      dischargeEndM3 = dischargeOut[1]!;
+    } else {
+      const d = startDischarge(model, geometry, 1, amountMol, accK, gasVolM3, ctx.starter);
+      dischargeJ = d.hydraulicEnergyJ;
+      dischargeEndM3 = d.end.gasVolumeM3;
     }
-    const d = startDischarge(model, geometry, 1, amountMol, accK, gasVolM3, ctx.starter);
-    return [d.hydraulicEnergyJ, d.end.gasVolumeM3];
   };
 
   const handPumpToSystem = () => {
@@ -385,12 +390,16 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
         }
       }
       // Start discharge of one unit; n identical units deliver n times as much.
-      const [energyJ, endVolumeM3] = discharge(st.gasVolumeM3);
+      discharge(st.gasVolumeM3);
+      const energyJ = dischargeJ;
+      const endVolumeM3 = dischargeEndM3;
       let energyAltJ = energyJ;
       let endAltM3 = endVolumeM3;
       if (!altSame) {
         const stAlt = trappedState(model, geometry, fluid, chargedAlt, accK, amountMol);
-        [energyAltJ, endAltM3] = discharge(stAlt.gasVolumeM3);
+        discharge(stAlt.gasVolumeM3);
+        energyAltJ = dischargeJ;
+        endAltM3 = dischargeEndM3;
       }
       if (counted) {
         const oneJ = ctx.fitted ? energyAltJ : energyJ;

@@ -50,6 +50,11 @@ export function resultTables(r: Results): Table[] {
       "cylinders_p90",
       "cylinders_p95",
       "carts_p95",
+      "nitrogen_kg_added_p50",
+      "nitrogen_kg_vented_p50",
+      "servicing_events_p50",
+      "carts_p50",
+      "carts_p90",
     ],
     rows: r.bases.map((b) => [
       b.name,
@@ -66,6 +71,11 @@ export function resultTables(r: Results): Table[] {
       b.nitrogen.cylindersP90,
       b.nitrogen.cylindersP95,
       b.nitrogen.cartsP95,
+      b.nitrogen.kgAddedP50 ?? null,
+      b.nitrogen.kgVentedP50 ?? null,
+      b.nitrogen.servicingEventsP50 ?? null,
+      b.nitrogen.cartsP50 ?? null,
+      b.nitrogen.cartsP90 ?? null,
     ]),
   });
   tables.push({

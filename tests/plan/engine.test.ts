@@ -230,3 +230,32 @@ describe("29 February (brief §5)", () => {
     expect(out.drops).toHaveLength(3);
   });
 });
+
+describe("nitrogen per base (brief §3 supply, §5)", () => {
+  it("concurrent stays at a base draw on one cylinder pool; base totals sum the stays", () => {
+    // Fast gas loss (100 psi/month) so that the weekly precharge checks find the gas under its
+    // tolerance and top it up; one 49 L cylinder at 2200 psig holds far more than these top-ups.
+    const plan = fixturePlan((t) => {
+      oneLitreUnit(t);
+      t.profiles[0].gasLoss = { rate: "100 psi/month", spread: 0 };
+      t.operations.prechargeCheckDays = 7;
+      t.operations.outOfBand = "log";
+      t.climate.years = { from: 2014, to: 2014 };
+    });
+    const climate = new Map([
+      ["North Field", syntheticClimate(() => 0, Date.UTC(2014, 0, 1), Date.UTC(2015, 0, 1))],
+    ]);
+    const stays = [stay("A1", "2027-01-04", "2027-02-01"), stay("B1", "2027-01-06", "2027-02-03")];
+    const n = runPlan(plan, stays, climate).results.bases[0]!.nitrogen;
+    const [a, b] = n.stays;
+    expect(a!.kgAddedP50).toBeGreaterThan(0);
+    // One climate year: each quantile is that year's value, so base = sum of the stays (definition).
+    expect(n.kgP50).toBeCloseTo(a!.kgP50 + b!.kgP50, 12);
+    expect(n.kgAddedP50).toBeCloseTo(a!.kgAddedP50 + b!.kgAddedP50, 12);
+    expect(n.kgVentedP50).toBeCloseTo(a!.kgVentedP50 + b!.kgVentedP50, 12);
+    expect(n.servicingEventsP50).toBe(a!.servicingEventsP50 + b!.servicingEventsP50);
+    // One shared pool: a single cylinder serves both aircraft; carts = ceil(1 / 2 per cart).
+    expect(n.cylindersP50).toBe(1);
+    expect(n.cartsP50).toBe(1);
+  });
+});
