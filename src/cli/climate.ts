@@ -47,8 +47,11 @@ function delta(c: number, units: Units): number {
 function unitLabel(units: Units): string {
   return units === "us" ? "°F" : "°C";
 }
+/** Fixed decimals; a value that rounds to zero prints without a sign ("0.0", not "-0.0"). */
 function fmt(v: number | null, digits = 1): string {
-  return v === null ? "—" : v.toFixed(digits);
+  if (v === null) return "—";
+  const text = v.toFixed(digits);
+  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
 }
 
 function localTime(utcIso: string, zone: string): string {
@@ -66,7 +69,7 @@ function parseGapHours(text: string): number {
 export function formatStation(s: StationSummary, units: Units): string {
   const u = unitLabel(units);
   const lines: string[] = [];
-  lines.push(`${s.id}  ${s.name ?? "(name unknown)"}`);
+  lines.push(`${s.id}  ${s.name ?? "(name unknown: --station-history gives names)"}`);
   lines.push(
     `  position ${s.lat.toFixed(3)}, ${s.lon.toFixed(3)}, elevation ${s.elevationM} m, time zone ${s.timeZone}`,
   );

@@ -13,9 +13,14 @@ import { writeFileAtomic } from "../fsutil.js";
 /** Plan names name the output folder: letters, digits, spaces, - _ . (same rule as the plan reader). */
 const NAME_RE = /^[A-Za-z0-9][A-Za-z0-9 _.-]*$/;
 
-/** A valid plan name from a folder name: other characters become "-"; "my-plan" if nothing is left. */
+/**
+ * A valid plan name from a folder name: accents are dropped (Unicode NFD, then the combining marks
+ * removed), other characters become "-"; "my-plan" if nothing is left.
+ */
 export function planNameFromFolder(folder: string): string {
   const cleaned = basename(resolve(folder))
+    .normalize("NFD")
+    .replace(/[\u0300-\u036f]/g, "")
     .replace(/[^A-Za-z0-9 _.-]/g, "-")
     .replace(/^[^A-Za-z0-9]+/, "");
   return cleaned === "" || !NAME_RE.test(cleaned) ? "my-plan" : cleaned;

@@ -4,7 +4,7 @@
  */
 import type { Command } from "commander";
 import { InputError } from "../errors.js";
-import { idealGas, N2_MAX_TEMP_K, N2_MIN_TEMP_K, realGas } from "../physics/nitrogen.js";
+import { idealGas, N2_CRITICAL_TEMP_K, N2_MAX_TEMP_K, realGas } from "../physics/nitrogen.js";
 import {
   kToC,
   kToF,
@@ -17,7 +17,7 @@ import {
   standardAtmospherePa,
 } from "../physics/units.js";
 
-const REF_EXAMPLE = "--ref 1450psig@70F (units: psig psia bar bara kPa kPaa; F C K)";
+const REF_EXAMPLE = "--ref 1450psig@70F (units: psig psia bar bara kPa kPaa MPa MPaa; F C K)";
 const AT_EXAMPLE = "--at 50F (units: F C K)";
 
 export interface PrechargeAnswer {
@@ -42,10 +42,12 @@ function parseTempOption(option: string, text: string, example: string): number 
   } catch {
     throw optionError(option, `"${text}" is not a temperature; expected <number><F|C|K>, e.g. ${example}`);
   }
-  if (!(tempK >= N2_MIN_TEMP_K && tempK <= N2_MAX_TEMP_K)) {
+  // Above the critical temperature nitrogen is a single gas phase at every pressure, so "the pressure
+  // of this gas amount at T" has one answer; below it the charge may condense (Span et al. 2000).
+  if (!(tempK > N2_CRITICAL_TEMP_K && tempK <= N2_MAX_TEMP_K)) {
     throw optionError(
       option,
-      `${text} is outside the nitrogen equation's range ${N2_MIN_TEMP_K}–${N2_MAX_TEMP_K} K (${(N2_MIN_TEMP_K - 273.15).toFixed(1)} to ${N2_MAX_TEMP_K - 273.15} °C)`,
+      `${text} is outside ${(N2_CRITICAL_TEMP_K - 273.15).toFixed(2)} to ${N2_MAX_TEMP_K - 273.15} °C: expected a temperature above nitrogen's critical temperature (${N2_CRITICAL_TEMP_K} K, where colder gas may liquefy) and within the equation's upper limit (${N2_MAX_TEMP_K} K)`,
     );
   }
   return tempK;
@@ -61,9 +63,12 @@ export function prechargeAnswer(refText: string, atText: string, elevationText =
   try {
     pressure = parsePressure(refText.slice(0, at));
   } catch {
+    const isDifference = /^\s*[-+0-9.eE]+\s*psi\s*$/i.test(refText.slice(0, at));
     throw optionError(
       "--ref",
-      `"${refText}" does not start with a pressure and its unit, e.g. ${REF_EXAMPLE}`,
+      isDifference
+        ? `"${refText}": a bare "psi" is a pressure difference; write psig (gauge) or psia (absolute), e.g. ${REF_EXAMPLE}`
+        : `"${refText}" does not start with a pressure and its unit, e.g. ${REF_EXAMPLE}`,
     );
   }
   const refTempK = parseTempOption("--ref", refText.slice(at + 1), REF_EXAMPLE);
@@ -76,7 +81,9 @@ export function prechargeAnswer(refText: string, atText: string, elevationText =
   try {
     atmPa = standardAtmospherePa(elevationM);
   } catch (err) {
-    throw optionError("--elevation", err instanceof Error ? err.message : String(err));
+    // The atmosphere model names its own parameter ("elevationM: ..."); the user typed --elevation.
+    const msg = err instanceof Error ? err.message : String(err);
+    throw optionError("--elevation", msg.replace(/^elevationM:\s*/, ""));
   }
   const refAbsPa = pressure.isGauge ? pressure.pa + atmPa : pressure.pa;
   if (!(refAbsPa > 0)) {
@@ -159,7 +166,7 @@ export function registerPrecharge(program: Command): void {
     )
     .requiredOption(
       "--ref <pressure@temperature>",
-      "service reference, <number><psig|psia|bar|bara|kPa|kPaa>@<number><F|C|K>; psig, bar and kPa are gauge",
+      "service reference, <number><psig|psia|bar|bara|kPa|kPaa|MPa|MPaa>@<number><F|C|K>; psig, bar, kPa and MPa are gauge",
     )
     .requiredOption("--at <temperature>", "temperature to convert to, <number><F|C|K>")
     .option(
@@ -178,6 +185,8 @@ export function registerPrecharge(program: Command): void {
         "",
         "The gas amount is fixed by the reference with the piston on its fluid-side stop; the answer is",
         "the pressure of that amount at the same volume at the new temperature.",
+        "",
+        "Exit codes: 0 success, 2 bad input or usage (the message names the option), 1 anything else.",
       ].join("\n"),
     )
     .action((opts: { ref: string; at: string; elevation: string; json?: boolean }) => {

@@ -3,7 +3,7 @@
  * Path from `COLDSOAK_CHROMIUM`, else Debian's `/usr/bin/chromium`. Each launch gets a fresh profile
  * folder, removed on close, and flags that keep the browser off the network.
  */
-import { existsSync } from "node:fs";
+import { accessSync, constants, statSync } from "node:fs";
 import { mkdtemp, rm } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -27,8 +27,16 @@ export function chromiumPath(env: NodeJS.ProcessEnv = process.env): string {
   return p !== undefined && p !== "" ? p : DEFAULT_CHROMIUM;
 }
 
+/** True when the Chromium path is an executable file (a folder or a plain file is not a browser). */
 export function chromiumAvailable(env: NodeJS.ProcessEnv = process.env): boolean {
-  return existsSync(chromiumPath(env));
+  const exe = chromiumPath(env);
+  try {
+    if (!statSync(exe).isFile()) return false;
+    accessSync(exe, constants.X_OK);
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 export interface LaunchedBrowser {

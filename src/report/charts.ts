@@ -224,7 +224,10 @@ export async function xyChart(o: XYChartOptions): Promise<Chart> {
 export async function stackedChart(id: string, title: string, panels: XYChartOptions[]): Promise<Chart> {
   const spec: Spec = {
     $schema: "https://vega.github.io/schema/vega-lite/v5.json",
-    config: { ...BASE_CONFIG, legend: { ...BASE_CONFIG.legend, orient: "right", direction: "vertical" } },
+    config: {
+      ...BASE_CONFIG,
+      legend: { ...BASE_CONFIG.legend, orient: "right", direction: "vertical", columns: 1 },
+    },
     spacing: 12,
     vconcat: panels.map((p) => ({
       width: p.width ?? 560,

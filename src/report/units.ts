@@ -46,9 +46,9 @@ export interface Quantity {
 export interface UnitSystem {
   id: Units;
   name: string;
-  /** Gauge pressure from kPa gauge. */
+  /** Gauge pressure from kPa gauge (its unit says gauge: psig, bar gauge). */
   pressure: Quantity;
-  /** A pressure difference from kPa. */
+  /** A pressure difference from kPa (psi, bar: no gauge/absolute). */
   pressureDelta: Quantity;
   /** A temperature from °C. */
   temp: Quantity;
@@ -75,7 +75,7 @@ export const US_UNITS: UnitSystem = {
   tempDelta: { unit: "°F", convert: (c) => (c * 9) / 5, digits: 1 },
   volume: { unit: "in³", convert: (l) => l / L_PER_IN3, digits: 0 },
   mass: { unit: "lb", convert: (kg) => kg / KG_PER_LB, digits: 2 },
-  gasVolume: { unit: "scf", convert: (kg) => kg / N2_KG_PER_STD_M3_70F / M3_PER_FT3, digits: 0 },
+  gasVolume: { unit: "scf", convert: (kg) => kg / N2_KG_PER_STD_M3_70F / M3_PER_FT3, digits: 1 },
   length: { unit: "ft", convert: (m) => m / M_PER_FT, digits: 0 },
   notes: [
     "1 psi = 6.894757 kPa (NIST SP 811, appendix B); psig is gauge pressure.",
@@ -90,7 +90,7 @@ export const US_UNITS: UnitSystem = {
 export const SI_UNITS: UnitSystem = {
   id: "si",
   name: "SI",
-  pressure: { unit: "bar", convert: (kPa) => kPa / KPA_PER_BAR, digits: 1 },
+  pressure: { unit: "bar gauge", convert: (kPa) => kPa / KPA_PER_BAR, digits: 1 },
   pressureDelta: { unit: "bar", convert: (kPa) => kPa / KPA_PER_BAR, digits: 2 },
   temp: { unit: "°C", convert: (c) => c, digits: 1 },
   tempDelta: { unit: "°C", convert: (c) => c, digits: 1 },

@@ -146,18 +146,21 @@ function maxOf(values: (number | null)[]): number | null {
 
 /** The action for a run of months with the same status, quoting the worst month of the run. */
 function actionText(run: MonthRow[], status: Status, shortPct: number): string {
-  const worst = run.length > 1 ? "up to " : "";
+  const upTo = (v: number | null) => `${run.length > 1 && (v ?? 0) > 0 ? "up to " : ""}${pct(v)} %`;
+  const below = maxOf(run.map((m) => m.belowBandPct));
+  const above = maxOf(run.map((m) => m.aboveBandPct));
+  const outOfBand = (below ?? 0) + (above ?? 0) > 0;
+  const readings = `out-of-band fill readings at the first preflight (${upTo(below)} below band, ${upTo(above)} above)`;
   if (status === "act") {
     const one = maxOf(run.map((m) => m.shortPctOne));
     const two = maxOf(run.map((m) => m.shortPctTwo));
-    const text = `Fit the cold-start option: ${worst}${pct(one)} % of starts short of energy with one accumulator, ${worst}${pct(two)} % with two.`;
-    return (two ?? 0) > shortPct
-      ? `${text} Still above the ${pct(shortPct)} % threshold with two: plan overnight hangar space or a later first start.`
-      : text;
+    let text = `Fit the cold-start option: ${upTo(one)} of starts short of energy with one accumulator, ${upTo(two)} with two.`;
+    if ((two ?? 0) > shortPct)
+      text += ` Still above the ${pct(shortPct)} % threshold with two: plan overnight hangar space or a later first start.`;
+    if (outOfBand) text += ` Also expect ${readings}.`;
+    return text;
   }
-  const below = maxOf(run.map((m) => m.belowBandPct));
-  const above = maxOf(run.map((m) => m.aboveBandPct));
-  return `Expect out-of-band fill readings at the first preflight (${worst}${pct(below)} % below band, ${worst}${pct(above)} % above). Allow servicing time and brief technicians on the overnight drop.`;
+  return `Expect ${readings}. Allow servicing time and brief technicians on the overnight drop.`;
 }
 
 /** Action rows of one base: consecutive calendar months with the same status share one row. */
@@ -192,6 +195,19 @@ function groupActions(b: BaseResult, shortPct: number): ActionRow[] {
   }
   flush();
   return rows;
+}
+
+/**
+ * "hangar air at 59 °F from 19:00 to 06:30" from the plan's hangar assumptions of a base (keys
+ * `bases.<name>.hangar.{in,out,temperature}`, values already in the plan's units), or null without one.
+ */
+export function hangarText(results: Results, baseName: string): string | null {
+  const get = (k: string) => results.assumptions.find((a) => a.key === `bases.${baseName}.hangar.${k}`);
+  const from = get("in");
+  const to = get("out");
+  const temp = get("temperature");
+  if (!from || !to || !temp) return null;
+  return `hangar air at ${temp.value.replace(/^-/, "\u2212")} ${temp.unit} from ${from.value} to ${to.value}`;
 }
 
 function stationLabel(s: StationResult): string {
@@ -239,9 +255,11 @@ async function traceFigure(
   anchor: string,
   kind: "typical" | "worst",
   trace: Trace,
+  hangar: string | null,
 ): Promise<Figure> {
   const pts = trace.points;
-  const xTitle = "Hours after the evening recharge";
+  // The trace starts at the day's last start and its recharge (not necessarily in the evening).
+  const xTitle = "Hours after the day's last start and recharge";
   const xDomain: [number, number] = [0, Math.max(36, ...pts.map((p) => p.hour))];
   const title = `${baseName}: ${trace.label}, ${trace.year}, starting ${localTimeText(trace.startLocal)}`;
   const chart = await stackedChart(`${anchor}-trace-${kind}`, title, [
@@ -253,7 +271,7 @@ async function traceFigure(
       xDomain,
       lines: [
         {
-          name: "Ambient",
+          name: hangar ? "Air (outside, or hangar)" : "Outside air",
           color: PALETTE.sky,
           dash: [6, 3],
           points: pts.map((p) => ({ x: p.hour, y: u.temp.convert(p.ambientC) })),
@@ -287,7 +305,7 @@ async function traceFigure(
       xDomain,
       bands: [
         {
-          name: "Band at ambient",
+          name: "Band at air temperature",
           color: PALETTE.green,
           points: pts.map((p) => ({ x: p.hour, y: p.bandLowPct, y2: p.bandHighPct })),
         },
@@ -301,9 +319,10 @@ async function traceFigure(
       ],
     },
   ]);
+  const air = hangar ? `the air around the aircraft (${hangar}; outside air otherwise)` : "the outside air";
   return figs.next(
     chart,
-    "Top: ambient and accumulator temperature. Middle: trapped gas pressure. Bottom: fill reading against the band a technician would use at the ambient temperature.",
+    `Top: temperature of ${air} and of the accumulator. Middle: trapped gas pressure. Bottom: fill reading against the band a technician would use at that air temperature.`,
   );
 }
 
@@ -496,6 +515,7 @@ async function buildBase(
     profiles.push({ name: p.name, figures, table });
   }
 
+  const hangar = hangarText(results, base.name);
   const traces: BaseView["traces"] = [];
   for (const kind of ["typical", "worst"] as const) {
     const t = base.traces[kind];
@@ -507,7 +527,7 @@ async function buildBase(
     traces.push({
       label,
       detail: `${t.label}; year ${t.year}; starting ${localTimeText(t.startLocal)} local time.`,
-      figure: await traceFigure(figs, u, base.name, anchor, kind, t),
+      figure: await traceFigure(figs, u, base.name, anchor, kind, t, hangar),
     });
   }
 
@@ -601,7 +621,7 @@ async function buildBase(
             width: 560,
             height: 170,
           }),
-          `Share of hours at which a preflight would read out of band (the trapped charge against the band for the ambient temperature), by local hour of day, at ${base.name}, all stay months pooled.`,
+          `Share of hours at which a check would read out of band if made at that hour (the trapped charge against the band for the air temperature around the aircraft${hangar ? `: ${hangar}` : ""}), by local hour of day, at ${base.name}, all stay months pooled. The preflight itself is the first start of the day.`,
         )
       : null;
 
@@ -789,7 +809,7 @@ export async function buildView(results: Results, options: ViewOptions): Promise
           `${formatNumber(s.lat, 3)}, ${formatNumber(s.lon, 3)}`,
           show(u.length, s.elevationM),
           s.timeZone,
-          `${shortUtc(s.firstUtc)} to ${shortUtc(s.lastUtc)}`,
+          `${shortUtc(s.firstUtc)} to ${shortUtc(s.lastUtc)}`.replace(/ (?=\d\d:)/g, "\u00a0"),
           formatNumber(s.hours, 0),
           formatNumber(s.filledHours, 0),
           pct(s.completeness * 100),

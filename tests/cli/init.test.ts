@@ -52,8 +52,11 @@ describe("coldsoak init", () => {
   });
 
   it("makes a valid plan name from any folder name", () => {
+    // Rule of planNameFromFolder (letters, digits, space, - _ . as the plan reader allows; no source).
     expect(planNameFromFolder("/tmp/My Fleet")).toBe("My Fleet");
-    expect(planNameFromFolder("/tmp/été-2027")).toBe("t--2027");
+    // Unicode NFD splits "é" into "e" and a combining accent, which is dropped.
+    expect(planNameFromFolder("/tmp/été-2027")).toBe("ete-2027");
+    expect(planNameFromFolder("/tmp/base/Øst")).toBe("st");
     expect(planNameFromFolder("/tmp/---")).toBe("my-plan");
   });
 });

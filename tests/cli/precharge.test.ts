@@ -80,6 +80,15 @@ describe("coldsoak precharge", () => {
     [["--ref", "1450psig@70", "--at", "50F"], /--ref: .*e\.g\./],
     [["--ref", "1450psig@70F", "--at", "fifty"], /--at: .*e\.g\. --at 50F/],
     [["--ref", "1450psig@70F", "--at", "-400F"], /--at: .*outside/],
+    // Below nitrogen's critical temperature, 126.192 K = −146.96 °C (Span et al. 2000), the charge may
+    // condense: −300 °F (89.3 K) gave a negative "real gas" pressure before this check.
+    [["--ref", "1450psig@70F", "--at", "-300F"], /--at: .*critical temperature \(126\.192 K/],
+    [["--ref", "1450psig@-200C", "--at", "50F"], /--ref: .*critical temperature/],
+    [["--ref", "1450psi@70F", "--at", "50F"], /bare "psi" is a pressure difference; write psig .* or psia/],
+    [
+      ["--ref", "1450psig@70F", "--at", "50F", "--elevation", "20000"],
+      /^coldsoak: --elevation: 20000 m is outside/,
+    ],
     [
       ["--ref", "1450psig@70F", "--at", "50F", "--elevation", "high"],
       /--elevation: .*e\.g\. --elevation 1500/,
@@ -96,6 +105,16 @@ describe("coldsoak precharge", () => {
       expect(io.out.join("")).toBe("");
     });
   }
+
+  it("accepts MPa (gauge) and MPaa (absolute), as the help says", () => {
+    // 1 MPa = 10 bar exactly (SI brochure): 10 MPa gauge is the same reference as 100 bar gauge.
+    const mpa = prechargeJson(prechargeAnswer("10MPa@20C", "-30C"));
+    const bar = prechargeJson(prechargeAnswer("100bar@20C", "-30C"));
+    expect(mpa.realKPaGauge).toBeCloseTo(bar.realKPaGauge, 6);
+    // Absolute = gauge + 101.325 kPa (ISO 2533 sea level): 10.101325 MPaa is 10 MPa gauge.
+    const abs = prechargeJson(prechargeAnswer("10.101325MPaa@20C", "-30C"));
+    expect(abs.realKPaGauge).toBeCloseTo(bar.realKPaGauge, 3);
+  });
 
   it("missing --at is a usage error (exit 2)", async () => {
     // Product brief, section 6.

@@ -134,13 +134,14 @@ describe.skipIf(SKIP)("report in a real browser", () => {
       /\/MediaBox\s*\[\s*0\s+0\s+([\d.]+)\s+([\d.]+)\s*\]/.exec(b.toString("latin1"));
     const a4Box = box(bytes);
     const lBox = box(lb);
+    // Chromium writes the page boxes uncompressed; a missing box is a failure, not a skip.
+    expect(a4Box, "A4 MediaBox").not.toBeNull();
+    expect(lBox, "Letter MediaBox").not.toBeNull();
     // Chromium rounds the page to whole CSS pixels, so allow 1.5 pt.
-    if (a4Box && lBox) {
-      expect(Math.abs(Number(a4Box[1]) - 595.3)).toBeLessThanOrEqual(1.5);
-      expect(Math.abs(Number(a4Box[2]) - 841.9)).toBeLessThanOrEqual(1.5);
-      expect(Math.abs(Number(lBox[1]) - 612)).toBeLessThanOrEqual(1.5);
-      expect(Math.abs(Number(lBox[2]) - 792)).toBeLessThanOrEqual(1.5);
-    }
+    expect(Math.abs(Number(a4Box![1]) - 595.3)).toBeLessThanOrEqual(1.5);
+    expect(Math.abs(Number(a4Box![2]) - 841.9)).toBeLessThanOrEqual(1.5);
+    expect(Math.abs(Number(lBox![1]) - 612)).toBeLessThanOrEqual(1.5);
+    expect(Math.abs(Number(lBox![2]) - 792)).toBeLessThanOrEqual(1.5);
   });
 });
 
@@ -161,13 +162,43 @@ describe("PDF without a browser, and pdf command errors", () => {
     }
   });
 
-  it("exits 2 for a missing report file or an unknown paper size", async () => {
-    const err = vi.spyOn(process.stderr, "write").mockImplementation(() => true);
+  it("exits 2 for a missing report, a folder, a file that is not HTML, or an unknown paper size", async () => {
+    // Exit codes: product brief, section 6 (2 for input or usage errors), each with its own message.
+    mkdirSync(OUT, { recursive: true });
+    const html = `${OUT}paper-check.html`;
+    writeFileSync(html, "<!doctype html><title>t</title>");
+    let err = "";
+    const spy = vi.spyOn(process.stderr, "write").mockImplementation((s: string | Uint8Array) => {
+      err += String(s);
+      return true;
+    });
+    const run = async (args: string[]) => {
+      err = "";
+      return { code: await main(["pdf", ...args]), err };
+    };
     try {
-      expect(await main(["pdf", "out/report/does-not-exist.html"])).toBe(2);
-      expect(await main(["pdf", fileURLToPath(import.meta.url), "--paper", "tabloid"])).toBe(2);
+      const missing = await run(["out/report/does-not-exist.html"]);
+      expect(missing).toMatchObject({ code: 2 });
+      expect(missing.err).toMatch(/does-not-exist\.html: no such file/);
+      const folder = await run([OUT]);
+      expect(folder).toMatchObject({ code: 2 });
+      expect(folder.err).toMatch(/is a folder/);
+      const notHtml = await run([fileURLToPath(import.meta.url)]);
+      expect(notHtml).toMatchObject({ code: 2 });
+      expect(notHtml.err).toMatch(/not an HTML file/);
+      const paper = await run([html, "--paper", "tabloid"]);
+      expect(paper).toMatchObject({ code: 2 });
+      expect(paper.err).toMatch(/--paper: expected a4 or letter, got "tabloid"/);
     } finally {
-      err.mockRestore();
+      spy.mockRestore();
     }
+  });
+
+  it("treats a folder or a plain file as no browser", () => {
+    // chromiumAvailable needs an executable file: a folder (or a non-executable file) is not a browser.
+    expect(chromiumAvailable({ COLDSOAK_CHROMIUM: fileURLToPath(new URL(".", import.meta.url)) })).toBe(
+      false,
+    );
+    expect(chromiumAvailable({ COLDSOAK_CHROMIUM: fileURLToPath(import.meta.url) })).toBe(false);
   });
 });

@@ -123,6 +123,40 @@ describe("report structure", () => {
     expect(text(fleet)).toMatch(/Fit the cold-start option/);
   });
 
+  it("quotes out-of-band readings in a cold-start action, without 'up to 0.0 %'", () => {
+    const actions = els.find((e) => e.name === "table" && e.attrs["class"]?.includes("actions"))!;
+    const rows = elements(inner(tokens, actions))
+      .filter((e) => e.name === "tr")
+      .slice(1)
+      .map(text);
+    // Fixture, base 1: January needs the option and also reads below band (belowBandPct > 0).
+    const act = rows.find(
+      (r) => r.startsWith(results.bases[0]!.name) && r.includes("Fit the cold-start option"),
+    );
+    expect(act).toBeDefined();
+    expect(act).toMatch(/Also expect out-of-band fill readings/);
+    for (const r of rows) expect(r).not.toMatch(/up to 0\.0 %/);
+  });
+
+  it("names the air around the aircraft in the overnight traces: hangar air where the plan has a hangar", () => {
+    // Fixture: Southgate (base 2) has a hangar 20:00–06:00 at 41 °F; Northfield (base 1) has none.
+    const captions = (i: number) => {
+      const sec = els.find((e) => e.name === "section" && e.attrs["id"] === `base-${i}`)!;
+      const over = elements(inner(tokens, sec)).find((e) => e.attrs["data-section"] === "overnight")!;
+      return elements(inner(tokens, over))
+        .filter((e) => e.name === "figcaption")
+        .map(text);
+    };
+    const north = captions(1);
+    const south = captions(2);
+    expect(north).toHaveLength(2);
+    expect(south).toHaveLength(2);
+    for (const c of north) expect(c).toContain("temperature of the outside air");
+    for (const c of south)
+      expect(c).toContain("hangar air at 41 °F from 20:00 to 06:00; outside air otherwise");
+    expect(html).not.toContain("evening recharge");
+  });
+
   it("has every section, in order, for every base", () => {
     for (const [i, b] of results.bases.entries()) {
       const sec = els.find((e) => e.name === "section" && e.attrs["id"] === `base-${i + 1}`)!;

@@ -107,11 +107,12 @@ describe("report units: the same results in US and SI", () => {
     expect(usAxes.some((t) => t.includes("(psig)"))).toBe(true);
     expect(usAxes.join("|")).not.toMatch(/°C|\(bar\)/);
     expect(siAxes.some((t) => t.includes("(°C)"))).toBe(true);
-    expect(siAxes.some((t) => t.includes("(bar)"))).toBe(true);
+    // SI gauge pressures say "bar gauge" (README, Method: absolute vs gauge explicit).
+    expect(siAxes.some((t) => t.includes("(bar gauge)"))).toBe(true);
     expect(siAxes.join("|")).not.toMatch(/°F|psig/);
     for (const t of [...usAxes, ...siAxes]) {
       if (/temperature|swing/i.test(t)) expect(t).toMatch(/\((°F|°C)\)$/);
-      if (/pressure|precharge/i.test(t)) expect(t).toMatch(/\((psig|bar)\)$/);
+      if (/pressure|precharge/i.test(t)) expect(t).toMatch(/\((psig|bar gauge)\)$/);
     }
   });
 
@@ -128,6 +129,25 @@ describe("report units: the same results in US and SI", () => {
     expect(usHeads.filter((h) => h.includes("(°F)")).length).toBe(
       siHeads.filter((h) => h.includes("(°C)")).length,
     );
+  });
+
+  it("says gauge for gauge pressures and not for pressure differences", () => {
+    const heads = (r: Rendered) =>
+      r.els.filter((e) => e.name === "th" && e.attrs["scope"] === "col").map((e) => text(r, e));
+    const usHeads = heads(us);
+    const siHeads = heads(si);
+    // A gauge pressure (precharge, morning pressure): psig / bar gauge. A drop is a difference: psi / bar.
+    for (const [list, gauge, diff] of [
+      [usHeads, "(psig)", "(psi)"],
+      [siHeads, "(bar gauge)", "(bar)"],
+    ] as const) {
+      const pressures = list.filter((h) => /pressure|precharge(?! checks)/i.test(h) && !/drop/i.test(h));
+      const drops = list.filter((h) => /pressure drop/i.test(h));
+      expect(pressures.length).toBeGreaterThan(3);
+      expect(drops.length).toBeGreaterThan(0);
+      for (const h of pressures) expect(h.endsWith(gauge), h).toBe(true);
+      for (const h of drops) expect(h.endsWith(diff), h).toBe(true);
+    }
   });
 
   it("converts temperatures consistently: °F = °C × 9/5 + 32 within display rounding", () => {
@@ -182,8 +202,9 @@ describe("report units: the same results in US and SI", () => {
       const scf = parseShown(usRows[1]![col]!);
       const nm3 = parseShown(siRows[1]![col]!);
       // Both are the same mass: scf × 0.028316846592 m³ × 1.1604 kg/m³ = normal m³ × 1.2504 kg/m³.
+      // Display rounding: scf to 0.05 scf (0.05 × 0.0329 kg), normal m³ to 0.005 m³ (0.005 × 1.2504 kg).
       expect(Math.abs(scf * 0.028316846592 * 1.1604 - nm3 * 1.2504)).toBeLessThanOrEqual(
-        0.5 * 0.0328 + 0.005 * 1.2504,
+        0.05 * 0.0329 + 0.005 * 1.2504,
       );
     }
   });
