@@ -672,7 +672,16 @@ async function buildBase(
         formatNumber(n.cylindersP95, 0),
       ],
     },
-    { cells: ["Carts", "count", "–", "–", formatNumber(n.cartsP95, 0)] },
+    // cartsP50/P90 are absent only in older result files: shown as "–" there.
+    {
+      cells: [
+        "Carts",
+        "count",
+        formatNumber(n.cartsP50, 0),
+        formatNumber(n.cartsP90, 0),
+        formatNumber(n.cartsP95, 0),
+      ],
+    },
   ];
   const nitrogenStays = n.stays.map((s) => ({
     cells: [
@@ -747,6 +756,11 @@ function shortUtc(iso: string): string {
   return m ? `${m[1]} ${m[2]}` : iso;
 }
 
+/** A date-time kept on one line: no-break space and non-breaking hyphens (U+00A0, U+2011). */
+function unbroken(text: string): string {
+  return text.replace(/ /g, "\u00a0").replace(/-/g, "\u2011");
+}
+
 function nullable(f: (v: number) => number, v: number | null): number | null {
   return v === null ? null : f(v);
 }
@@ -809,7 +823,7 @@ export async function buildView(results: Results, options: ViewOptions): Promise
           `${formatNumber(s.lat, 3)}, ${formatNumber(s.lon, 3)}`,
           show(u.length, s.elevationM),
           s.timeZone,
-          `${shortUtc(s.firstUtc)} to ${shortUtc(s.lastUtc)}`.replace(/ (?=\d\d:)/g, "\u00a0"),
+          `${unbroken(shortUtc(s.firstUtc))} to ${unbroken(shortUtc(s.lastUtc))}`,
           formatNumber(s.hours, 0),
           formatNumber(s.filledHours, 0),
           pct(s.completeness * 100),
