@@ -32,7 +32,7 @@ export function registerPdf(program: Command): void {
         "  coldsoak pdf out/demo/report.html                  writes out/demo/report.pdf\n" +
         "  coldsoak pdf out/demo/report.html --paper letter --out demo-letter.pdf\n" +
         "\nNeeds Chromium: Debian's `apt-get install chromium`, or set COLDSOAK_CHROMIUM to its binary.\n" +
-        "Exit codes: 0 success, 2 bad input or usage, 1 anything else (no browser included).",
+        "Exit codes: 0 success, 2 bad input or usage, 1 anything else, such as no browser.",
     )
     .action(async (report: string, opts: { out?: string; paper: string }) => {
       const paper = checkPdfInputs(report, opts.paper);
