@@ -21,11 +21,9 @@ export async function readInputText(file: string, what: string): Promise<string>
   try {
     return await readFile(file, "utf8");
   } catch (err) {
-    throw inputError(
-      file,
-      undefined,
-      undefined,
-      `cannot read ${what} (${(err as NodeJS.ErrnoException).code ?? "error"})`,
-    );
+    const code = (err as NodeJS.ErrnoException).code;
+    const why =
+      code === "ENOENT" ? "no such file" : code === "EISDIR" ? "is a folder, not a file" : (code ?? "error");
+    throw inputError(file, undefined, undefined, `cannot read ${what}: ${why}`);
   }
 }

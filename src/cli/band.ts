@@ -128,6 +128,7 @@ Examples:
   coldsoak band plan.yaml --profile standard --from -40 --to 100 --step 5
   coldsoak band plan.yaml --json
 
+Exit codes: 0 success, 2 bad input or usage (the message names file:line:field), 1 anything else.
 Planning estimates, not maintenance data: service from the approved maintenance data.`,
     )
     .action(async (planFile: string, opts: BandCliOptions) => {

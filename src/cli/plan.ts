@@ -12,7 +12,7 @@ import type { Command } from "commander";
 import { inputError } from "../errors.js";
 import { runPlan } from "../plan/engine.js";
 import { loadPlan, type Plan } from "../plan/planFile.js";
-import { formatTemp } from "../plan/quantities.js";
+import { formatMass, formatTemp } from "../plan/quantities.js";
 import type { Results } from "../plan/results.js";
 import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
@@ -80,11 +80,17 @@ export function summaryText(r: Results): string {
       }
       if (parts.length > 0) items.push(`    ${MONTHS[m.month - 1]}: ${parts.join("; ")}`);
     }
+    if (b.yearsUsed.length === 0) {
+      lines.push(
+        `  ${b.name}: no usable climate years, so no results (see the warnings and the data coverage)`,
+      );
+      continue;
+    }
     const cold = b.coldestMorningC === null ? "—" : formatTemp(b.coldestMorningC + 273.15, u);
     const cold10 = b.coldest1in10C === null ? "—" : formatTemp(b.coldest1in10C + 273.15, u);
     const n2 = b.nitrogen;
     lines.push(
-      `  ${b.name}: coldest preflight ${cold} (1-in-10-year ${cold10}); nitrogen P95 ${n2.kgP95.toFixed(2)} kg, ${n2.cylindersP95} cylinder(s), ${n2.cartsP95} cart(s)`,
+      `  ${b.name}: coldest preflight ${cold} (1-in-10-year ${cold10}); nitrogen P95 ${formatMass(n2.kgP95, u)}, ${n2.cylindersP95} cylinder(s), ${n2.cartsP95} cart(s)`,
     );
     lines.push(...(items.length > 0 ? items : ["    no month needs action"]));
   }

@@ -38,7 +38,13 @@ export async function listClimateFiles(paths: string[]): Promise<string[]> {
         if (!e.isFile() || rel.split(/[\\/]/).some((part) => part.startsWith("."))) continue;
         out.add(resolve(full));
       }
-      if (out.size === before) throw inputError(p, undefined, undefined, "folder holds no climate files");
+      if (out.size === before)
+        throw inputError(
+          p,
+          undefined,
+          undefined,
+          "folder holds no climate files; expected NOAA ISD files (full, ISD-Lite or CSV layout, plain or .gz) in it or its sub-folders",
+        );
     } else out.add(resolve(p));
   }
   return [...out].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));

@@ -13,7 +13,7 @@
  * Conversion factors are exact definitions (NIST SP 811, appendix B): psi = 6894.757293168 Pa,
  * in = 0.0254 m, lbf = 4.4482216152605 N, US gallon = 231 in³; °F → K by (F − 32)·5/9 + 273.15.
  */
-import { M3_PER_IN3, M3_PER_US_GALLON, PA_PER_PSI } from "../physics/units.js";
+import { KG_PER_LB, M3_PER_IN3, M3_PER_US_GALLON, PA_PER_PSI } from "../physics/units.js";
 
 /** Thrown for a malformed quantity; the plan reader adds file, line and YAML path. */
 export class QuantityError extends Error {
@@ -237,9 +237,8 @@ function round(x: number, digits: number): string {
 
 /** Temperature in the output unit: °F (us) or °C (si). */
 export function formatTemp(tempK: number, units: OutputUnits): string {
-  return units === "us"
-    ? `${round(((tempK - 273.15) * 9) / 5 + 32, 1)} °F`
-    : `${round(tempK - 273.15, 1)} °C`;
+  const v = Number(tempFromK(tempK, units).toFixed(1));
+  return `${(Object.is(v, -0) ? 0 : v).toFixed(1)} ${units === "us" ? "°F" : "°C"}`;
 }
 export function tempFromK(tempK: number, units: OutputUnits): number {
   return units === "us" ? ((tempK - 273.15) * 9) / 5 + 32 : tempK - 273.15;
@@ -248,7 +247,7 @@ export function tempToK(value: number, units: OutputUnits): number {
   return units === "us" ? ((value - 32) * 5) / 9 + 273.15 : value + 273.15;
 }
 export function formatPressureGauge(gaugePa: number, units: OutputUnits): string {
-  return units === "us" ? `${round(gaugePa / PSI_PA, 0)} psig` : `${round(gaugePa / 1e5, 2)} bar`;
+  return units === "us" ? `${round(gaugePa / PSI_PA, 0)} psig` : `${round(gaugePa / 1e5, 2)} bar gauge`;
 }
 export function formatPressureAbs(absPa: number, units: OutputUnits): string {
   return units === "us" ? `${round(absPa / PSI_PA, 1)} psia` : `${round(absPa / 1e5, 3)} bara`;
@@ -263,6 +262,10 @@ export function formatTime(s: number): string {
   if (s >= 3600) return `${round(s / 3600, 2)} h`;
   if (s >= 60) return `${round(s / 60, 2)} min`;
   return `${round(s, 1)} s`;
+}
+/** Mass of gas in the output unit: lb (us) or kg (si). */
+export function formatMass(kg: number, units: OutputUnits): string {
+  return units === "us" ? `${(kg / KG_PER_LB).toFixed(2)} lb` : `${kg.toFixed(2)} kg`;
 }
 export function formatEnergy(j: number): string {
   return `${round(j / 1e3, 2)} kJ`;
