@@ -174,7 +174,6 @@ export interface NitrogenStay {
 /**
  * Nitrogen of one base: every quantile is taken over climate years of the base's yearly total (the
  * stays at the base summed within each year, cylinders from one shared cascade), not summed quantiles.
- * The engine always sets every field; the optional ones are optional only for older result files.
  */
 export interface NitrogenBase {
   /** Gas drawn from the cylinders (into accumulators plus hose vents), kg. */
@@ -182,16 +181,16 @@ export interface NitrogenBase {
   kgP90: number;
   kgP95: number;
   /** Gas that ended in the accumulators, kg. */
-  kgAddedP50?: number;
+  kgAddedP50: number;
   /** Gas vented: hose at each disconnect plus precharges lowered, kg. */
-  kgVentedP50?: number;
-  servicingEventsP50?: number;
+  kgVentedP50: number;
+  servicingEventsP50: number;
   cylindersP50: number;
   cylindersP90: number;
   cylindersP95: number;
   /** ceil(cylinders / cylindersPerCart) at each quantile. */
-  cartsP50?: number;
-  cartsP90?: number;
+  cartsP50: number;
+  cartsP90: number;
   cartsP95: number;
   stays: NitrogenStay[];
 }

@@ -653,7 +653,15 @@ async function buildBase(
   const M = u.mass;
   const G = u.gasVolume;
   const nitrogenTotals: TableRow[] = [
-    { cells: ["Nitrogen mass", M.unit, show(M, n.kgP50), show(M, n.kgP90), show(M, n.kgP95)] },
+    {
+      cells: [
+        "Nitrogen mass drawn from cylinders",
+        M.unit,
+        show(M, n.kgP50),
+        show(M, n.kgP90),
+        show(M, n.kgP95),
+      ],
+    },
     {
       cells: [
         "Nitrogen at standard conditions",
@@ -672,7 +680,6 @@ async function buildBase(
         formatNumber(n.cylindersP95, 0),
       ],
     },
-    // cartsP50/P90 are absent only in older result files: shown as "–" there.
     {
       cells: [
         "Carts",
@@ -682,6 +689,9 @@ async function buildBase(
         formatNumber(n.cartsP95, 0),
       ],
     },
+    { cells: ["Nitrogen left in accumulators", M.unit, show(M, n.kgAddedP50), "–", "–"] },
+    { cells: ["Nitrogen vented (hose, lowered precharges)", M.unit, show(M, n.kgVentedP50), "–", "–"] },
+    { cells: ["Servicing events", "count", formatNumber(n.servicingEventsP50, 1), "–", "–"] },
   ];
   const nitrogenStays = n.stays.map((s) => ({
     cells: [
