@@ -26,14 +26,7 @@ export function mulberry32(seed: number): Uniform {
 }
 
 /** FNV-1a 32-bit hash of a string's UTF-16 code units (Fowler, Noll, Vo), used to derive seeds. */
-export function fnv1a32(text: string): number {
-  let hash = 0x811c9dc5;
-  for (let i = 0; i < text.length; i++) {
-    hash ^= text.charCodeAt(i);
-    hash = Math.imul(hash, 0x01000193) >>> 0;
-  }
-  return hash >>> 0;
-}
+export { fnv1a as fnv1a32 } from "../plan/random.js";
 
 /**
  * Standard normal deviate by the Box–Muller transform (Box and Muller, 1958). Uses two uniforms and

@@ -50,6 +50,7 @@ import {
 } from "../physics/accumulator.js";
 import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
 import { type DayPlan, HOUR_MS, localHourOf } from "./days.js";
+import type { TracePoint } from "./results.js";
 
 export type OutOfBandPolicy = "log" | "adjust-precharge";
 
@@ -109,15 +110,8 @@ export interface NitrogenEvent {
   units: number;
 }
 
-export interface TraceSample {
-  utcMs: number;
-  ambientC: number;
-  accumulatorC: number;
-  gasKPaGauge: number;
-  readingPct: number;
-  bandLowPct: number;
-  bandHighPct: number;
-}
+/** One hour of a trace as simulated (UTC instant); the engine adds the local time for the results. */
+export type TraceSample = Omit<TracePoint, "hour" | "localTime"> & { utcMs: number };
 
 export interface SimOutcome {
   preflights: PreflightRecord[];
