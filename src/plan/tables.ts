@@ -3,7 +3,7 @@
  * table). Units are fixed like the JSON: °C, kPa gauge, kg, %; column names carry their unit.
  * Empty cells mean "no value" (a month without preflights). RFC 4180 quoting.
  */
-import type { Results } from "./results.js";
+import type { BaseResult, ProfileResult, Results } from "./results.js";
 
 export type Cell = string | number | boolean | null;
 export interface Table {
@@ -30,339 +30,238 @@ export function toCsv(t: Table): string {
   return `${[t.columns, ...t.rows].map((r) => r.map(cell).join(",")).join("\r\n")}\r\n`;
 }
 
+/** A column: its CSV header (unit in the name) and how to read its cell from a row's source. */
+type Column<T> = [header: string, value: (row: T) => Cell];
+
+function table<T>(name: string, rows: T[], columns: Column<T>[]): Table {
+  return { name, columns: columns.map((c) => c[0]), rows: rows.map((row) => columns.map((c) => c[1](row))) };
+}
+
+/** Rows of every base's items, each paired with its base. */
+function perBase<T>(r: Results, items: (b: BaseResult) => T[]): { b: BaseResult; x: T }[] {
+  return r.bases.flatMap((b) => items(b).map((x) => ({ b, x })));
+}
+
+/** Rows of every profile's items, each paired with its profile. */
+function perProfile<T>(r: Results, items: (p: ProfileResult) => T[]): { p: ProfileResult; x: T }[] {
+  return r.profiles.flatMap((p) => items(p).map((x) => ({ p, x })));
+}
+
 /** Every table of the results, in a fixed order. */
 export function resultTables(r: Results): Table[] {
-  const tables: Table[] = [];
-  tables.push({
-    name: "bases",
-    columns: [
-      "base",
-      "stations",
-      "time_zone",
-      "years_used",
-      "years_skipped",
-      "coldest_morning_c",
-      "coldest_1in10_c",
-      "nitrogen_kg_p50",
-      "nitrogen_kg_p90",
-      "nitrogen_kg_p95",
-      "cylinders_p50",
-      "cylinders_p90",
-      "cylinders_p95",
-      "carts_p95",
-      "nitrogen_kg_added_p50",
-      "nitrogen_kg_vented_p50",
-      "servicing_events_p50",
-      "carts_p50",
-      "carts_p90",
-    ],
-    rows: r.bases.map((b) => [
-      b.name,
-      b.stations.map((s) => s.id).join(" "),
-      b.timeZone,
-      b.yearsUsed.join(" "),
-      b.yearsSkipped.map((y) => y.year).join(" "),
-      b.coldestMorningC,
-      b.coldest1in10C,
-      b.nitrogen.kgP50,
-      b.nitrogen.kgP90,
-      b.nitrogen.kgP95,
-      b.nitrogen.cylindersP50,
-      b.nitrogen.cylindersP90,
-      b.nitrogen.cylindersP95,
-      b.nitrogen.cartsP95,
-      b.nitrogen.kgAddedP50 ?? null,
-      b.nitrogen.kgVentedP50 ?? null,
-      b.nitrogen.servicingEventsP50 ?? null,
-      b.nitrogen.cartsP50 ?? null,
-      b.nitrogen.cartsP90 ?? null,
+  const baseName: Column<{ b: BaseResult }> = ["base", ({ b }) => b.name];
+  const profileName: Column<{ p: ProfileResult }> = ["profile", ({ p }) => p.name];
+  const traces = r.bases.flatMap((b) =>
+    (["typical", "worst"] as const).flatMap((kind) => {
+      const t = b.traces[kind];
+      return t === null ? [] : t.points.map((x) => ({ b, kind, t, x }));
+    }),
+  );
+  return [
+    table("bases", r.bases, [
+      ["base", (b) => b.name],
+      ["stations", (b) => b.stations.map((s) => s.id).join(" ")],
+      ["time_zone", (b) => b.timeZone],
+      ["years_used", (b) => b.yearsUsed.join(" ")],
+      ["years_skipped", (b) => b.yearsSkipped.map((y) => y.year).join(" ")],
+      ["coldest_morning_c", (b) => b.coldestMorningC],
+      ["coldest_1in10_c", (b) => b.coldest1in10C],
+      ["nitrogen_kg_p50", (b) => b.nitrogen.kgP50],
+      ["nitrogen_kg_p90", (b) => b.nitrogen.kgP90],
+      ["nitrogen_kg_p95", (b) => b.nitrogen.kgP95],
+      ["cylinders_p50", (b) => b.nitrogen.cylindersP50],
+      ["cylinders_p90", (b) => b.nitrogen.cylindersP90],
+      ["cylinders_p95", (b) => b.nitrogen.cylindersP95],
+      ["carts_p95", (b) => b.nitrogen.cartsP95],
+      ["nitrogen_kg_added_p50", (b) => b.nitrogen.kgAddedP50],
+      ["nitrogen_kg_vented_p50", (b) => b.nitrogen.kgVentedP50],
+      ["servicing_events_p50", (b) => b.nitrogen.servicingEventsP50],
+      ["carts_p50", (b) => b.nitrogen.cartsP50],
+      ["carts_p90", (b) => b.nitrogen.cartsP90],
     ]),
-  });
-  tables.push({
-    name: "months",
-    columns: [
-      "base",
-      "month",
-      "preflights",
-      "below_band_pct",
-      "above_band_pct",
-      "starts",
-      "short_pct_one",
-      "short_pct_two",
-      "energy_margin_one_p10_pct",
-      "energy_margin_one_p50_pct",
-      "energy_margin_two_p10_pct",
-      "energy_margin_two_p50_pct",
-      "morning_kpa_gauge_p10",
-      "morning_kpa_gauge_p50",
-      "morning_kpa_gauge_p90",
-      "morning_reading_pct_p10",
-      "morning_reading_pct_p50",
-      "morning_reading_pct_p90",
-      "overnight_drop_temp_mean_c",
-      "overnight_drop_temp_p90_c",
-      "overnight_drop_kpa_mean",
-      "overnight_drop_kpa_p90",
-      "overnight_drop_reading_mean_pct",
-      "overnight_drop_reading_p90_pct",
-      "daily_range_mean_c",
-      "daily_range_p90_c",
-    ],
-    rows: r.bases.flatMap((b) =>
-      b.months.map((m) => [
-        b.name,
-        m.month,
-        m.preflights,
-        m.belowBandPct,
-        m.aboveBandPct,
-        m.starts,
-        m.shortPctOne,
-        m.shortPctTwo,
-        m.energyMarginOneP10Pct,
-        m.energyMarginOneP50Pct,
-        m.energyMarginTwoP10Pct,
-        m.energyMarginTwoP50Pct,
-        m.morningKPaGaugeP10,
-        m.morningKPaGaugeP50,
-        m.morningKPaGaugeP90,
-        m.morningReadingPctP10,
-        m.morningReadingPctP50,
-        m.morningReadingPctP90,
-        m.overnightDropTempMeanC,
-        m.overnightDropTempP90C,
-        m.overnightDropKPaMean,
-        m.overnightDropKPaP90,
-        m.overnightDropReadingMeanPct,
-        m.overnightDropReadingP90Pct,
-        m.dailyRangeMeanC,
-        m.dailyRangeP90C,
-      ]),
+    table(
+      "months",
+      perBase(r, (b) => b.months),
+      [
+        baseName,
+        ["month", ({ x }) => x.month],
+        ["preflights", ({ x }) => x.preflights],
+        ["below_band_pct", ({ x }) => x.belowBandPct],
+        ["above_band_pct", ({ x }) => x.aboveBandPct],
+        ["starts", ({ x }) => x.starts],
+        ["short_pct_one", ({ x }) => x.shortPctOne],
+        ["short_pct_two", ({ x }) => x.shortPctTwo],
+        ["energy_margin_one_p10_pct", ({ x }) => x.energyMarginOneP10Pct],
+        ["energy_margin_one_p50_pct", ({ x }) => x.energyMarginOneP50Pct],
+        ["energy_margin_two_p10_pct", ({ x }) => x.energyMarginTwoP10Pct],
+        ["energy_margin_two_p50_pct", ({ x }) => x.energyMarginTwoP50Pct],
+        ["morning_kpa_gauge_p10", ({ x }) => x.morningKPaGaugeP10],
+        ["morning_kpa_gauge_p50", ({ x }) => x.morningKPaGaugeP50],
+        ["morning_kpa_gauge_p90", ({ x }) => x.morningKPaGaugeP90],
+        ["morning_reading_pct_p10", ({ x }) => x.morningReadingPctP10],
+        ["morning_reading_pct_p50", ({ x }) => x.morningReadingPctP50],
+        ["morning_reading_pct_p90", ({ x }) => x.morningReadingPctP90],
+        ["overnight_drop_temp_mean_c", ({ x }) => x.overnightDropTempMeanC],
+        ["overnight_drop_temp_p90_c", ({ x }) => x.overnightDropTempP90C],
+        ["overnight_drop_kpa_mean", ({ x }) => x.overnightDropKPaMean],
+        ["overnight_drop_kpa_p90", ({ x }) => x.overnightDropKPaP90],
+        ["overnight_drop_reading_mean_pct", ({ x }) => x.overnightDropReadingMeanPct],
+        ["overnight_drop_reading_p90_pct", ({ x }) => x.overnightDropReadingP90Pct],
+        ["daily_range_mean_c", ({ x }) => x.dailyRangeMeanC],
+        ["daily_range_p90_c", ({ x }) => x.dailyRangeP90C],
+      ],
     ),
-  });
-  tables.push({
-    name: "advice",
-    columns: ["base", "month", "fit_cold_start_option", "short_pct_one", "short_pct_two", "improvement_pct"],
-    rows: r.bases.flatMap((b) =>
-      b.advice.map((a) => [
-        b.name,
-        a.month,
-        a.fitColdStartOption,
-        a.shortPctOne,
-        a.shortPctTwo,
-        a.improvementPct,
-      ]),
+    table(
+      "advice",
+      perBase(r, (b) => b.advice),
+      [
+        baseName,
+        ["month", ({ x }) => x.month],
+        ["fit_cold_start_option", ({ x }) => x.fitColdStartOption],
+        ["short_pct_one", ({ x }) => x.shortPctOne],
+        ["short_pct_two", ({ x }) => x.shortPctTwo],
+        ["improvement_pct", ({ x }) => x.improvementPct],
+      ],
     ),
-  });
-  tables.push({
-    name: "out_of_band_by_hour",
-    columns: ["base", "local_hour", "hourly_readings", "out_of_band_pct"],
-    rows: r.bases.flatMap((b) =>
-      b.outOfBandByHour.map((h) => [b.name, h.hour, h.preflights, h.outOfBandPct]),
+    table(
+      "out_of_band_by_hour",
+      perBase(r, (b) => b.outOfBandByHour),
+      [
+        baseName,
+        ["local_hour", ({ x }) => x.hour],
+        ["hourly_readings", ({ x }) => x.preflights],
+        ["out_of_band_pct", ({ x }) => x.outOfBandPct],
+      ],
     ),
-  });
-  tables.push({
-    name: "coldest_mornings",
-    columns: ["base", "year", "coldest_preflight_ambient_c"],
-    rows: r.bases.flatMap((b) => b.coldestMorningByYear.map((c) => [b.name, c.year, c.tempC])),
-  });
-  tables.push({
-    name: "climate_months",
-    columns: ["base", "month", "min_c", "mean_c", "max_c", "mean_daily_range_c", "p90_daily_range_c"],
-    rows: r.bases.flatMap((b) =>
-      b.climateMonths.map((m) => [
-        b.name,
-        m.month,
-        m.minC,
-        m.meanC,
-        m.maxC,
-        m.meanDailyRangeC,
-        m.p90DailyRangeC,
-      ]),
+    table(
+      "coldest_mornings",
+      perBase(r, (b) => b.coldestMorningByYear),
+      [baseName, ["year", ({ x }) => x.year], ["coldest_preflight_ambient_c", ({ x }) => x.tempC]],
     ),
-  });
-  tables.push({
-    name: "daily_range_histogram",
-    columns: ["base", "range_low_c", "range_high_c", "days"],
-    rows: r.bases.flatMap((b) => b.dailyRangeHistogram.map((h) => [b.name, h.lowC, h.highC, h.days])),
-  });
-  tables.push({
-    name: "nitrogen_stays",
-    columns: [
-      "base",
-      "aircraft",
-      "arrive",
-      "depart",
-      "profile",
-      "cold_start_option",
-      "servicing_events_p50",
-      "precharge_checks_p50",
-      "hand_pump_strokes_p50",
-      "kg_added_p50",
-      "kg_vented_p50",
-      "kg_p50",
-      "kg_p90",
-      "kg_p95",
-    ],
-    rows: r.bases.flatMap((b) =>
-      b.nitrogen.stays.map((s) => [
-        b.name,
-        s.aircraft,
-        s.arrive,
-        s.depart,
-        s.profile,
-        s.coldStartOption,
-        s.servicingEventsP50,
-        s.prechargeChecksP50,
-        s.handPumpStrokesP50,
-        s.kgAddedP50,
-        s.kgVentedP50,
-        s.kgP50,
-        s.kgP90,
-        s.kgP95,
-      ]),
+    table(
+      "climate_months",
+      perBase(r, (b) => b.climateMonths),
+      [
+        baseName,
+        ["month", ({ x }) => x.month],
+        ["min_c", ({ x }) => x.minC],
+        ["mean_c", ({ x }) => x.meanC],
+        ["max_c", ({ x }) => x.maxC],
+        ["mean_daily_range_c", ({ x }) => x.meanDailyRangeC],
+        ["p90_daily_range_c", ({ x }) => x.p90DailyRangeC],
+      ],
     ),
-  });
-  tables.push({
-    name: "traces",
-    columns: [
-      "base",
-      "trace",
-      "year",
-      "hour",
-      "local_time",
-      "ambient_c",
-      "accumulator_c",
-      "gas_kpa_gauge",
-      "reading_pct",
-      "band_low_pct",
-      "band_high_pct",
-    ],
-    rows: r.bases.flatMap((b) =>
-      (["typical", "worst"] as const).flatMap((k) => {
-        const t = b.traces[k];
-        if (t === null) return [];
-        return t.points.map((p) => [
-          b.name,
-          k,
-          t.year,
-          p.hour,
-          p.localTime,
-          p.ambientC,
-          p.accumulatorC,
-          p.gasKPaGauge,
-          p.readingPct,
-          p.bandLowPct,
-          p.bandHighPct,
-        ]);
-      }),
+    table(
+      "daily_range_histogram",
+      perBase(r, (b) => b.dailyRangeHistogram),
+      [
+        baseName,
+        ["range_low_c", ({ x }) => x.lowC],
+        ["range_high_c", ({ x }) => x.highC],
+        ["days", ({ x }) => x.days],
+      ],
     ),
-  });
-  tables.push({
-    name: "stations",
-    columns: [
-      "base",
-      "station",
-      "name",
-      "lat",
-      "lon",
-      "elevation_m",
-      "time_zone",
-      "first_utc",
-      "last_utc",
-      "hours",
-      "filled_hours",
-      "completeness",
-      "qc_read",
-      "qc_kept",
-      "qc_malformed",
-      "qc_summary",
-      "qc_other_site",
-      "qc_missing",
-      "qc_range",
-      "qc_erroneous",
-      "qc_suspect",
-      "qc_duplicate",
-    ],
-    rows: r.bases.flatMap((b) =>
-      b.stations.map((s) => [
-        b.name,
-        s.id,
-        s.name,
-        s.lat,
-        s.lon,
-        s.elevationM,
-        s.timeZone,
-        s.firstUtc,
-        s.lastUtc,
-        s.hours,
-        s.filledHours,
-        s.completeness,
-        s.qc.read,
-        s.qc.kept,
-        s.qc.dropped.malformed,
-        s.qc.dropped.summary,
-        s.qc.dropped.otherSite,
-        s.qc.dropped.missing,
-        s.qc.dropped.range,
-        s.qc.dropped.erroneous,
-        s.qc.dropped.suspect,
-        s.qc.dropped.duplicate,
-      ]),
+    table(
+      "nitrogen_stays",
+      perBase(r, (b) => b.nitrogen.stays),
+      [
+        baseName,
+        ["aircraft", ({ x }) => x.aircraft],
+        ["arrive", ({ x }) => x.arrive],
+        ["depart", ({ x }) => x.depart],
+        ["profile", ({ x }) => x.profile],
+        ["cold_start_option", ({ x }) => x.coldStartOption],
+        ["servicing_events_p50", ({ x }) => x.servicingEventsP50],
+        ["precharge_checks_p50", ({ x }) => x.prechargeChecksP50],
+        ["hand_pump_strokes_p50", ({ x }) => x.handPumpStrokesP50],
+        ["kg_added_p50", ({ x }) => x.kgAddedP50],
+        ["kg_vented_p50", ({ x }) => x.kgVentedP50],
+        ["kg_p50", ({ x }) => x.kgP50],
+        ["kg_p90", ({ x }) => x.kgP90],
+        ["kg_p95", ({ x }) => x.kgP95],
+      ],
     ),
-  });
-  tables.push({
-    name: "precharge_line",
-    columns: [
-      "profile",
-      "temp_c",
-      "precharge_kpa_gauge",
-      "precharge_low_kpa_gauge",
-      "precharge_high_kpa_gauge",
-      "ideal_precharge_kpa_gauge",
-    ],
-    rows: r.profiles.flatMap((p) =>
-      p.prechargeLine.map((x) => [
-        p.name,
-        x.tempC,
-        x.prechargeKPaGauge,
-        x.prechargeLowKPaGauge,
-        x.prechargeHighKPaGauge,
-        x.idealPrechargeKPaGauge,
-      ]),
+    table("traces", traces, [
+      baseName,
+      ["trace", ({ kind }) => kind],
+      ["year", ({ t }) => t.year],
+      ["hour", ({ x }) => x.hour],
+      ["local_time", ({ x }) => x.localTime],
+      ["ambient_c", ({ x }) => x.ambientC],
+      ["accumulator_c", ({ x }) => x.accumulatorC],
+      ["gas_kpa_gauge", ({ x }) => x.gasKPaGauge],
+      ["reading_pct", ({ x }) => x.readingPct],
+      ["band_low_pct", ({ x }) => x.bandLowPct],
+      ["band_high_pct", ({ x }) => x.bandHighPct],
+    ]),
+    table(
+      "stations",
+      perBase(r, (b) => b.stations),
+      [
+        baseName,
+        ["station", ({ x }) => x.id],
+        ["name", ({ x }) => x.name],
+        ["lat", ({ x }) => x.lat],
+        ["lon", ({ x }) => x.lon],
+        ["elevation_m", ({ x }) => x.elevationM],
+        ["time_zone", ({ x }) => x.timeZone],
+        ["first_utc", ({ x }) => x.firstUtc],
+        ["last_utc", ({ x }) => x.lastUtc],
+        ["hours", ({ x }) => x.hours],
+        ["filled_hours", ({ x }) => x.filledHours],
+        ["completeness", ({ x }) => x.completeness],
+        ["qc_read", ({ x }) => x.qc.read],
+        ["qc_kept", ({ x }) => x.qc.kept],
+        ["qc_malformed", ({ x }) => x.qc.dropped.malformed],
+        ["qc_summary", ({ x }) => x.qc.dropped.summary],
+        ["qc_other_site", ({ x }) => x.qc.dropped.otherSite],
+        ["qc_missing", ({ x }) => x.qc.dropped.missing],
+        ["qc_range", ({ x }) => x.qc.dropped.range],
+        ["qc_erroneous", ({ x }) => x.qc.dropped.erroneous],
+        ["qc_suspect", ({ x }) => x.qc.dropped.suspect],
+        ["qc_duplicate", ({ x }) => x.qc.dropped.duplicate],
+      ],
     ),
-  });
-  tables.push({
-    name: "band",
-    columns: [
-      "profile",
-      "temp_c",
-      "reading_low_pct",
-      "reading_nominal_pct",
-      "reading_high_pct",
-      "ideal_reading_nominal_pct",
-    ],
-    rows: r.profiles.flatMap((p) =>
-      p.band.map((x) => [
-        p.name,
-        x.tempC,
-        x.readingLowPct,
-        x.readingNominalPct,
-        x.readingHighPct,
-        x.idealReadingNominalPct,
-      ]),
+    table(
+      "precharge_line",
+      perProfile(r, (p) => p.prechargeLine),
+      [
+        profileName,
+        ["temp_c", ({ x }) => x.tempC],
+        ["precharge_kpa_gauge", ({ x }) => x.prechargeKPaGauge],
+        ["precharge_low_kpa_gauge", ({ x }) => x.prechargeLowKPaGauge],
+        ["precharge_high_kpa_gauge", ({ x }) => x.prechargeHighKPaGauge],
+        ["ideal_precharge_kpa_gauge", ({ x }) => x.idealPrechargeKPaGauge],
+      ],
     ),
-  });
-  tables.push({
-    name: "stays",
-    columns: ["aircraft", "base", "arrive", "depart", "profile", "cold_start_option"],
-    rows: r.stays.map((s) => [s.aircraft, s.base, s.arrive, s.depart, s.profile, s.coldStartOption]),
-  });
-  tables.push({
-    name: "assumptions",
-    columns: ["key", "label", "value", "unit", "origin"],
-    rows: r.assumptions.map((a) => [a.key, a.label, a.value, a.unit, a.origin]),
-  });
-  return tables;
+    table(
+      "band",
+      perProfile(r, (p) => p.band),
+      [
+        profileName,
+        ["temp_c", ({ x }) => x.tempC],
+        ["reading_low_pct", ({ x }) => x.readingLowPct],
+        ["reading_nominal_pct", ({ x }) => x.readingNominalPct],
+        ["reading_high_pct", ({ x }) => x.readingHighPct],
+        ["ideal_reading_nominal_pct", ({ x }) => x.idealReadingNominalPct],
+      ],
+    ),
+    table("stays", r.stays, [
+      ["aircraft", (s) => s.aircraft],
+      ["base", (s) => s.base],
+      ["arrive", (s) => s.arrive],
+      ["depart", (s) => s.depart],
+      ["profile", (s) => s.profile],
+      ["cold_start_option", (s) => s.coldStartOption],
+    ]),
+    table("assumptions", r.assumptions, [
+      ["key", (a) => a.key],
+      ["label", (a) => a.label],
+      ["value", (a) => a.value],
+      ["unit", (a) => a.unit],
+      ["origin", (a) => a.origin],
+    ]),
+  ];
 }
 
 /** results.json text: fixed key order (as built), numbers with at most 6 decimals, no wall-clock time. */
