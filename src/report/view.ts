@@ -7,6 +7,7 @@ import type {
   AdviceRow,
   BaseResult,
   MonthRow,
+  PrechargeRow,
   ProfileResult,
   Results,
   StationResult,
@@ -409,6 +410,9 @@ async function buildBase(
     const figures: Figure[] = [];
     const P = u.pressure.unit;
     const temps = p.prechargeLine.map((r) => r.tempC);
+    /** Chart points of one precharge line (temperature, gauge pressure) in the report's units. */
+    const lineOf = (kPaGauge: (r: PrechargeRow) => number) =>
+      p.prechargeLine.map((r) => ({ x: u.temp.convert(r.tempC), y: u.pressure.convert(kPaGauge(r)) }));
     const xDomain: [number, number] | undefined =
       temps.length > 1 ? [u.temp.convert(Math.min(...temps)), u.temp.convert(Math.max(...temps))] : undefined;
     figures.push(
@@ -423,37 +427,25 @@ async function buildBase(
             {
               name: "Real gas (Span et al. 2000)",
               color: PALETTE.blue,
-              points: p.prechargeLine.map((r) => ({
-                x: u.temp.convert(r.tempC),
-                y: u.pressure.convert(r.prechargeKPaGauge),
-              })),
+              points: lineOf((r) => r.prechargeKPaGauge),
             },
             {
               name: "Tolerance, upper",
               color: PALETTE.orange,
               dash: [6, 3],
-              points: p.prechargeLine.map((r) => ({
-                x: u.temp.convert(r.tempC),
-                y: u.pressure.convert(r.prechargeHighKPaGauge),
-              })),
+              points: lineOf((r) => r.prechargeHighKPaGauge),
             },
             {
               name: "Tolerance, lower",
               color: PALETTE.vermillion,
               dash: [6, 3],
-              points: p.prechargeLine.map((r) => ({
-                x: u.temp.convert(r.tempC),
-                y: u.pressure.convert(r.prechargeLowKPaGauge),
-              })),
+              points: lineOf((r) => r.prechargeLowKPaGauge),
             },
             {
               name: "Ideal gas",
               color: PALETTE.black,
               dash: [2, 2],
-              points: p.prechargeLine.map((r) => ({
-                x: u.temp.convert(r.tempC),
-                y: u.pressure.convert(r.idealPrechargeKPaGauge),
-              })),
+              points: lineOf((r) => r.idealPrechargeKPaGauge),
             },
           ],
         }),
