@@ -12,10 +12,6 @@ export interface CivilDate {
   day: number;
 }
 
-export function parseCivil(iso: string): CivilDate {
-  return { year: Number(iso.slice(0, 4)), month: Number(iso.slice(5, 7)), day: Number(iso.slice(8, 10)) };
-}
-
 export function civilIso(d: CivilDate): string {
   return `${String(d.year).padStart(4, "0")}-${String(d.month).padStart(2, "0")}-${String(d.day).padStart(2, "0")}`;
 }
@@ -50,18 +46,4 @@ export function climateDate(d: CivilDate, arriveYear: number, climateYear: numbe
   const year = climateYear + (d.year - arriveYear);
   if (d.month === 2 && d.day === 29 && !isLeapYear(year)) return { year, month: 2, day: 28 };
   return { year, month: d.month, day: d.day };
-}
-
-/** Number of extra calendar years a stay runs into after its arrival year (0 for most stays). */
-export function yearSpan(arrive: string, depart: string): number {
-  const days = stayDays(arrive, depart);
-  const last = days[days.length - 1]!;
-  return last.year - Number(arrive.slice(0, 4));
-}
-
-/** Climate years Y such that Y … Y + span all lie in [from, to]. */
-export function candidateYears(from: number, to: number, span: number): number[] {
-  const out: number[] = [];
-  for (let y = from; y + span <= to; y++) out.push(y);
-  return out;
 }

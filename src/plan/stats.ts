@@ -19,11 +19,6 @@ export function quantile(values: ArrayLike<number>, p: number): number | null {
   return quantileSorted(sortedCopy(values), p);
 }
 
-/** Quantile of an already sorted sample, or null when empty. */
-export function quantileOfSorted(sorted: number[], p: number): number | null {
-  return sorted.length === 0 ? null : quantileSorted(sorted, p);
-}
-
 export function mean(values: ArrayLike<number>): number | null {
   return values.length === 0 ? null : ssMean(Array.from(values));
 }
