@@ -61,7 +61,7 @@ export const METHODS: MethodNote[] = [
     source:
       "Gumbel (1958) Statistics of Extremes; method of moments as in Chow, Maidment & Mays (1988) Applied Hydrology §12.2",
     description:
-      "Gumbel distribution fitted by the method of moments to the negated annual minima of the first-preflight ambient temperature (one value per climate year the stays map onto); needs two or more years.",
+      "Gumbel distribution fitted by the method of moments to the negated annual minima of the first-preflight ambient temperature (one value per climate year the stays map onto); needs two or more years. With n years of record the coldest observed morning is itself roughly a 1-in-n-year value, so the fitted 1-in-10-year value may lie a little above or below it.",
   },
   {
     name: "Nitrogen cylinders",
