@@ -1,4 +1,4 @@
-/** The methods the report lists (product brief §3–§5), each with its published source. */
+/** The methods the report lists (product brief §3–§5), each with its published source or where it is defined. */
 import type { MethodNote } from "./results.js";
 import { QUANTILE_METHOD } from "./stats.js";
 
@@ -23,31 +23,33 @@ export const METHODS: MethodNote[] = [
   },
   {
     name: "Trapped charge",
-    source: "Product brief §3 fluid model",
+    source:
+      "Linear thermal expansion and bulk modulus of the trapped fluid (textbook fluid mechanics); gas from Span et al. (2000)",
     description:
       "Between recharges the fluid is trapped: V_f = V_f,c·(1 + α(T − T_c) − (P − P_c)/K); gas volume plus fluid volume constant; gas loss lowers the amount continuously.",
   },
   {
     name: "Preflight and servicing",
-    source: "Product brief §5",
+    source: "coldsoak servicing model (README, Method and assumptions)",
     description:
       "The reading (physics at the lagged accumulator temperature) is compared with the band for the ambient temperature a technician reads. Servicing sets the gas, on the fluid-side stop, to the precharge line for the ambient temperature while the gas is at the lagged temperature; the hand pump then recharges to nominal system pressure.",
   },
   {
     name: "Start energy",
-    source: "Isentropic real-gas expansion (Span et al. 2000) or isothermal, brief §3",
+    source:
+      "Isentropic real-gas expansion (Span et al. 2000) or isothermal; first law, gas work = internal-energy drop",
     description:
       "Hydraulic energy ∫(P − P_return) dV until the piston reaches its stop or the pressure falls to the starter's minimum; n identical units deliver n times one unit's energy. The requirement is interpolated linearly in ambient temperature and held beyond the table's ends. Every stay is judged in both configurations: “one accumulator” is a single unit recharged within the pump's own timer, “two accumulators” is the cold-start option (its count of units sharing the pump, within the option's timer). The configuration the stay has fitted is simulated; the other follows it as a shadow charge with the same accumulator temperature, gas amount and servicing but its own discharges and timer-limited recharges. The two energies differ by more than the unit count only when a timer stops a recharge short.",
   },
   {
     name: "Recharge",
-    source: "Pump flow-versus-pressure table, isothermal compression, brief §3",
+    source: "Pump flow-versus-pressure table, isothermal compression (Span et al. 2000 for the gas)",
     description:
       "The pump recharges within its run timer (the option's timer when fitted); the charge stays where the timer leaves it.",
   },
   {
     name: "Overnight drop",
-    source: "Product brief §5",
+    source: "coldsoak definition (README, Method and assumptions)",
     description:
       "Value at the day's last recharge − value at the next day's first preflight (only when the next calendar day is flown), assigned to the morning's local month, for accumulator temperature, gas pressure and reading.",
   },
@@ -65,13 +67,13 @@ export const METHODS: MethodNote[] = [
   },
   {
     name: "Nitrogen cylinders",
-    source: "Cascade transfer, brief §3",
+    source: "Cascade transfer between cylinders and accumulator, isothermal (Span et al. 2000 for the gas)",
     description:
       "Per base and climate year the servicings of all stays draw, in time order, from one pool of cylinders, lowest pressure first, isothermal at the site temperature; a new full cylinder is opened when the pool cannot reach the target; the hose is vented at each disconnect. Quantiles are over climate years.",
   },
   {
     name: "Climate years",
-    source: "Product brief §4–§5",
+    source: "Past years of NOAA Integrated Surface Data as samples of the weather a stay may meet",
     description:
       "Each stay's month-day window is mapped onto every year of record (a window across 31 December runs into the next year; a real 29 February folds onto 28 February when the climate year has none). All stays at a base share one mapping: the earliest arrival year there maps onto the sample year and each later real year onto the following climate year, so stays that overlap in real time see the same weather in every sample. A sample is labelled by the climate year its earliest real year maps onto. A year counts at a base when every stay there has at least the plan's share of its window hours present after gap filling.",
   },
