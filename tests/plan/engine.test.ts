@@ -3,13 +3,10 @@ import { describe, expect, it } from "vitest";
 import { chargedState, startDischarge } from "../../src/physics/accumulator.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { realGas } from "../../src/physics/nitrogen.js";
-import { stayDays } from "../../src/plan/calendar.js";
 import { profileContext } from "../../src/plan/context.js";
-import { buildDays } from "../../src/plan/days.js";
 import { runPlan } from "../../src/plan/engine.js";
 import type { Stay } from "../../src/plan/schedule.js";
-import { simulateStayYear } from "../../src/plan/simulate.js";
-import { fixturePlan, HOUR_MS, syntheticClimate, type Tree } from "./helpers.js";
+import { fixturePlan, HOUR_MS, simulateUtcStay, syntheticClimate, type Tree } from "./helpers.js";
 
 const ATM = 101325;
 const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
@@ -50,23 +47,13 @@ describe("energy with one and with two accumulators (brief §1, §5)", () => {
   });
   const model = tabulatedGas(realGas);
   const climate = syntheticClimate(() => 5, Date.UTC(2014, 0, 1), Date.UTC(2014, 0, 6));
-  const days = buildDays(stayDays("2027-01-01", "2027-01-04"), 2014, {
-    timeZone: "UTC",
-    startMinutes: plan.operations.startTimes,
-    flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
-    hangar: null,
-  });
   const simulate = (fitted: boolean) =>
-    simulateStayYear({
-      ctx: profileContext(plan.profiles[0]!, model, ATM, fitted, undefined, { exactDischarge: true }),
-      series: climate.series,
-      timeZone: "UTC",
-      days,
-      gasLossFactor: 1,
-      hangarTempK: null,
-      prechargeCheckDays: 30,
-      policy: "log",
-    }).starts;
+    simulateUtcStay(
+      plan,
+      climate.series,
+      { arrive: "2027-01-01", depart: "2027-01-04", climateYear: 2014 },
+      { ctx: profileContext(plan.profiles[0]!, model, ATM, fitted, undefined, { exactDischarge: true }) },
+    ).starts;
 
   it("two: the option's count × a fully recharged unit; one: the single unit the short timer leaves", () => {
     // Reference: the physics module's exact discharge (Span et al. 2000 isentropic) of one unit charged
@@ -204,22 +191,10 @@ describe("29 February (brief §5)", () => {
       Date.UTC(2014, 0, 1),
       Date.UTC(2014, 3, 1),
     );
-    const ctx = profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM, false);
-    const days = buildDays(stayDays("2028-02-27", "2028-03-02"), 2014, {
-      timeZone: "UTC",
-      startMinutes: plan.operations.startTimes,
-      flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
-      hangar: null,
-    });
-    const out = simulateStayYear({
-      ctx,
-      series: climate.series,
-      timeZone: "UTC",
-      days,
-      gasLossFactor: 1,
-      hangarTempK: null,
-      prechargeCheckDays: 30,
-      policy: "log",
+    const out = simulateUtcStay(plan, climate.series, {
+      arrive: "2028-02-27",
+      depart: "2028-03-02",
+      climateYear: 2014,
     });
     expect(out.preflights.map((p) => p.ambientC)).toEqual([0, -10, -10, 0]); // 27, 28, 29→28 Feb, 1 Mar
     // The folded morning follows a recharge at −10 °C and a night at −10 °C (lag 0, no gas loss): the

@@ -2,9 +2,18 @@
 import { readFileSync } from "node:fs";
 import { parse, stringify } from "yaml";
 import { emptyQc } from "../../src/climate/qc.js";
-import type { StationClimate } from "../../src/climate/types.js";
+import type { HourlySeries, StationClimate } from "../../src/climate/types.js";
+import { tabulatedGas } from "../../src/physics/gasTable.js";
+import { realGas } from "../../src/physics/nitrogen.js";
+import { stayDays } from "../../src/plan/calendar.js";
+import { type ProfileContext, profileContext } from "../../src/plan/context.js";
+import { buildDays } from "../../src/plan/days.js";
 import type { BaseClimate } from "../../src/plan/engine.js";
 import { type Plan, parsePlanText } from "../../src/plan/planFile.js";
+import { type SimOutcome, simulateStayYear } from "../../src/plan/simulate.js";
+
+/** Standard sea-level atmosphere, Pa (ISO 2533). */
+export const ATM_PA = 101325;
 
 export const FIXTURE_DIR = new URL("../fixtures/plan/", import.meta.url);
 export const FIXTURE_TEXT = readFileSync(new URL("minimal-plan.yaml", FIXTURE_DIR), "utf8");
@@ -49,4 +58,35 @@ export function syntheticClimate(
     malformedExamples: [],
   };
   return { stations: [station], series, timeZone: opts.timeZone ?? "UTC", atmPa: opts.atmPa ?? 101325 };
+}
+
+/**
+ * One stay simulated on UTC days of one climate year, every weekday flown, checks every 30 days and
+ * the "log" policy (the setting of the hand-checked simulation tests), with the real gas table.
+ */
+export function simulateUtcStay(
+  plan: Plan,
+  series: HourlySeries,
+  stay: { arrive: string; depart: string; climateYear: number },
+  options: {
+    ctx?: ProfileContext;
+    hangar?: { inMin: number; outMin: number; tempK: number };
+  } = {},
+): SimOutcome {
+  const days = buildDays(stayDays(stay.arrive, stay.depart), stay.climateYear, {
+    timeZone: "UTC",
+    startMinutes: plan.operations.startTimes,
+    flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
+    hangar: options.hangar ? { inMin: options.hangar.inMin, outMin: options.hangar.outMin } : null,
+  });
+  return simulateStayYear({
+    ctx: options.ctx ?? profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM_PA, false),
+    series,
+    timeZone: "UTC",
+    days,
+    gasLossFactor: 1,
+    hangarTempK: options.hangar?.tempK ?? null,
+    prechargeCheckDays: 30,
+    policy: "log",
+  });
 }

@@ -1,15 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { tabulatedGas } from "../../src/physics/gasTable.js";
-import { realGas } from "../../src/physics/nitrogen.js";
-import { stayDays } from "../../src/plan/calendar.js";
-import { profileContext } from "../../src/plan/context.js";
-import { buildDays } from "../../src/plan/days.js";
 import { runPlan } from "../../src/plan/engine.js";
 import { PSI_PA } from "../../src/plan/quantities.js";
-import { simulateStayYear } from "../../src/plan/simulate.js";
-import { fixturePlan, HOUR_MS, syntheticClimate, type Tree } from "./helpers.js";
+import { fixturePlan, HOUR_MS, simulateUtcStay, syntheticClimate, type Tree } from "./helpers.js";
 
-const ATM = 101325;
+const _ATM = 101325;
 
 /** The 1 L unit of the physics tests (issue 4): 1450 psig at 70 °F, 3000 psig, α 8e-4/K, K 1.5 GPa, 0.2 L line. */
 function oneLitreUnit(t: Tree) {
@@ -85,22 +79,10 @@ describe("simulation physics identities", () => {
       Date.UTC(2014, 0, 1),
       Date.UTC(2014, 0, 4),
     );
-    const ctx = profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM, false);
-    const days = buildDays(stayDays("2027-01-01", "2027-01-03"), 2014, {
-      timeZone: "UTC",
-      startMinutes: plan.operations.startTimes,
-      flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
-      hangar: null,
-    });
-    const out = simulateStayYear({
-      ctx,
-      series: climate.series,
-      timeZone: "UTC",
-      days,
-      gasLossFactor: 1,
-      hangarTempK: null,
-      prechargeCheckDays: 30,
-      policy: "log",
+    const out = simulateUtcStay(plan, climate.series, {
+      arrive: "2027-01-01",
+      depart: "2027-01-03",
+      climateYear: 2014,
     });
     expect(out.preflights).toHaveLength(2);
     const morning = out.preflights[1]!;
@@ -124,23 +106,12 @@ describe("hangar hours and the accumulator lag", () => {
       t.operations.startTimes = ["07:00", "12:00"];
     });
     const climate = syntheticClimate(() => -20, Date.UTC(2014, 0, 1), Date.UTC(2014, 0, 5));
-    const ctx = profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM, false);
-    const days = buildDays(stayDays("2027-01-01", "2027-01-04"), 2014, {
-      timeZone: "UTC",
-      startMinutes: plan.operations.startTimes,
-      flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
-      hangar: { inMin: 18 * 60, outMin: 6 * 60 },
-    });
-    const out = simulateStayYear({
-      ctx,
-      series: climate.series,
-      timeZone: "UTC",
-      days,
-      gasLossFactor: 1,
-      hangarTempK: 288.15,
-      prechargeCheckDays: 30,
-      policy: "log",
-    });
+    const out = simulateUtcStay(
+      plan,
+      climate.series,
+      { arrive: "2027-01-01", depart: "2027-01-04", climateYear: 2014 },
+      { hangar: { inMin: 18 * 60, outMin: 6 * 60, tempK: 288.15 } },
+    );
     const p = out.preflights[1]!;
     expect(p.ambientC).toBe(-20);
     // Arrival at midnight in the hangar (15 °C) until 06:00, outside until 18:00, in the hangar
