@@ -105,23 +105,36 @@ function buildTable(base: GasModel, grid: GasTableGrid): GasModel {
 
   const scratch = new Float64Array(2);
 
-  /** Bilinear P and ∂P/∂ρ from the (T, ρ) table; returns false outside the grid. */
-  function lookupP(rho: number, tempK: number, out: Float64Array): boolean {
+  // The grid cell of the last successful lookup: index of its (T_i, ρ_j) corner and the fractions
+  // within it. Kept in closure variables so the hot path allocates nothing.
+  let cellA = 0;
+  let cellFx = 0;
+  let cellFy = 0;
+
+  /** Finds the grid cell of (ρ, T) into cellA/cellFx/cellFy; false outside the grid. */
+  function locate(rho: number, tempK: number): boolean {
     if (!(tempK >= t0 && tempK <= tMax && rho >= 0 && rho <= rhoMax)) return false;
     const x = (tempK - t0) * invHT;
     let i = Math.floor(x);
     if (i >= nT - 1) i = nT - 2;
-    const fx = x - i;
     const y = rho * invHRho;
     let j = Math.floor(y);
     if (j >= nRho - 1) j = nRho - 2;
-    const fy = y - j;
-    const a = i * nRho + j;
+    cellA = i * nRho + j;
+    cellFx = x - i;
+    cellFy = y - j;
+    return true;
+  }
+
+  /** Bilinear P and ∂P/∂ρ from the (T, ρ) table; returns false outside the grid. */
+  function lookupP(rho: number, tempK: number, out: Float64Array): boolean {
+    if (!locate(rho, tempK)) return false;
+    const a = cellA;
     const b = a + nRho;
-    const z0 = zRho[a]! + (zRho[b]! - zRho[a]!) * fx; // at ρ_j
-    const z1 = zRho[a + 1]! + (zRho[b + 1]! - zRho[a + 1]!) * fx; // at ρ_j+1
+    const z0 = zRho[a]! + (zRho[b]! - zRho[a]!) * cellFx; // at ρ_j
+    const z1 = zRho[a + 1]! + (zRho[b + 1]! - zRho[a + 1]!) * cellFx; // at ρ_j+1
     const dz = (z1 - z0) * invHRho;
-    const z = z0 + (z1 - z0) * fy;
+    const z = z0 + (z1 - z0) * cellFy;
     const rt = R * tempK;
     out[0] = rho * rt * z;
     out[1] = rt * (z + rho * dz);
@@ -133,17 +146,11 @@ function buildTable(base: GasModel, grid: GasTableGrid): GasModel {
    * outside the grid or at zero density.
    */
   function lookupState(rho: number, tempK: number, out: Float64Array): boolean {
-    if (!(rho > 0 && lookupP(rho, tempK, out))) return false;
-    const x = (tempK - t0) * invHT;
-    let i = Math.floor(x);
-    if (i >= nT - 1) i = nT - 2;
-    const fx = x - i;
-    const y = rho * invHRho;
-    let j = Math.floor(y);
-    if (j >= nRho - 1) j = nRho - 2;
-    const fy = y - j;
-    const a = i * nRho + j;
+    if (!(rho > 0 && lookupP(rho, tempK, out))) return false; // lookupP located the cell
+    const a = cellA;
     const b = a + nRho;
+    const fx = cellFx;
+    const fy = cellFy;
     const w00 = (1 - fx) * (1 - fy);
     const w01 = (1 - fx) * fy;
     const w10 = fx * (1 - fy);
