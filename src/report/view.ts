@@ -644,46 +644,21 @@ async function buildBase(
   const n = base.nitrogen;
   const M = u.mass;
   const G = u.gasVolume;
+  /** One totals row: label, unit, then P50/P90/P95 ("–" where only the median is computed). */
+  const row = (label: string, unit: string, ...values: string[]): TableRow => ({
+    cells: [label, unit, ...values, ...Array(3 - values.length).fill("–")],
+  });
+  const mass = (kg: number) => show(M, kg);
+  const gas = (kg: number) => show(G, kg);
+  const count = (x: number) => formatNumber(x, 0);
   const nitrogenTotals: TableRow[] = [
-    {
-      cells: [
-        "Nitrogen mass drawn from cylinders",
-        M.unit,
-        show(M, n.kgP50),
-        show(M, n.kgP90),
-        show(M, n.kgP95),
-      ],
-    },
-    {
-      cells: [
-        "Nitrogen at standard conditions",
-        G.unit,
-        show(G, n.kgP50),
-        show(G, n.kgP90),
-        show(G, n.kgP95),
-      ],
-    },
-    {
-      cells: [
-        "Cylinders",
-        "count",
-        formatNumber(n.cylindersP50, 0),
-        formatNumber(n.cylindersP90, 0),
-        formatNumber(n.cylindersP95, 0),
-      ],
-    },
-    {
-      cells: [
-        "Carts",
-        "count",
-        formatNumber(n.cartsP50, 0),
-        formatNumber(n.cartsP90, 0),
-        formatNumber(n.cartsP95, 0),
-      ],
-    },
-    { cells: ["Nitrogen left in accumulators", M.unit, show(M, n.kgAddedP50), "–", "–"] },
-    { cells: ["Nitrogen vented (hose, lowered precharges)", M.unit, show(M, n.kgVentedP50), "–", "–"] },
-    { cells: ["Servicing events", "count", formatNumber(n.servicingEventsP50, 1), "–", "–"] },
+    row("Nitrogen mass drawn from cylinders", M.unit, mass(n.kgP50), mass(n.kgP90), mass(n.kgP95)),
+    row("Nitrogen at standard conditions", G.unit, gas(n.kgP50), gas(n.kgP90), gas(n.kgP95)),
+    row("Cylinders", "count", count(n.cylindersP50), count(n.cylindersP90), count(n.cylindersP95)),
+    row("Carts", "count", count(n.cartsP50), count(n.cartsP90), count(n.cartsP95)),
+    row("Nitrogen left in accumulators", M.unit, mass(n.kgAddedP50)),
+    row("Nitrogen vented (hose, lowered precharges)", M.unit, mass(n.kgVentedP50)),
+    row("Servicing events", "count", formatNumber(n.servicingEventsP50, 1)),
   ];
   const nitrogenStays = n.stays.map((s) => ({
     cells: [
