@@ -38,9 +38,12 @@ describe("demo outputs against the committed digest", () => {
     const folder = join(dir, "out", "demo");
     digest = {};
     for (const f of readdirSync(folder).sort()) {
-      digest[f] = createHash("sha256").update(readFileSync(join(folder, f))).digest("hex");
+      digest[f] = createHash("sha256")
+        .update(readFileSync(join(folder, f)))
+        .digest("hex");
     }
-    if (process.env["UPDATE_DEMO_DIGEST"] === "1") writeFileSync(DIGEST, `${JSON.stringify(digest, null, 2)}\n`);
+    if (process.env["UPDATE_DEMO_DIGEST"] === "1")
+      writeFileSync(DIGEST, `${JSON.stringify(digest, null, 2)}\n`);
   });
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
