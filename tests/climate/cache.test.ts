@@ -4,7 +4,7 @@
  */
 import { copyFileSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { cacheStats, loadClimate, resetCacheStats } from "../../src/climate/index.js";
 import { HAVE_SAMPLES, sample, sampleLines, tempDir, writeLines } from "./helpers.js";
 
@@ -15,7 +15,7 @@ beforeEach(() => resetCacheStats());
 describe.skipIf(!HAVE_SAMPLES)("climate cache", () => {
   const cacheDir = join(tmp.dir, "cache");
   const file = join(tmp.dir, "726430-14920-2015.gz");
-  copyFileSync(sample("726430-14920-2015.gz"), file);
+  beforeAll(() => copyFileSync(sample("726430-14920-2015.gz"), file));
 
   it("serves a second read of the same files from the cache, with the same result", async () => {
     const first = await loadClimate([file], { gapHours: 3, cacheDir });
