@@ -3,26 +3,31 @@
  * and completeness, and the quality-control counts by drop reason. Reads `BaseResult.stations`
  * (`qc` counts included), `yearsUsed` and `yearsSkipped`.
  */
-import type { Results } from "../../plan/results.js";
+import type { Results, StationResult } from "../../plan/results.js";
 import { baseAnchor, type TableRow, yearsSkippedText, yearsText } from "../shared.js";
 import { formatNumber, pct, show, type UnitSystem } from "../units.js";
 
-/** Drop reasons in the order the quality-control rules apply them (the order of `qc.dropped`). */
-export const QC_REASONS = [
-  "malformed",
-  "summary",
-  "otherSite",
-  "missing",
-  "range",
-  "erroneous",
-  "suspect",
-  "duplicate",
-] as const;
+type DropReason = keyof StationResult["qc"]["dropped"];
+
+/** Column headers of the quality-control table, one per drop reason of the results, in column order. */
+const QC_COLUMNS: Record<DropReason, string> = {
+  malformed: "Malformed",
+  summary: "Summary",
+  otherSite: "Other site",
+  missing: "Missing",
+  range: "Range",
+  erroneous: "Erroneous",
+  suspect: "Suspect",
+  duplicate: "Duplicate",
+};
+const QC_REASONS = Object.keys(QC_COLUMNS) as DropReason[];
 
 export interface CoverageView {
   base: string;
   anchor: string;
   stations: TableRow[];
+  /** Headers of the drop-reason columns of the quality-control table. */
+  qcColumns: string[];
   qc: TableRow[];
   yearsUsed: string;
   yearsSkipped: string;
@@ -56,6 +61,7 @@ export function coverageSection(results: Results, u: UnitSystem): CoverageView[]
         pct(s.completeness * 100),
       ],
     })),
+    qcColumns: QC_REASONS.map((r) => QC_COLUMNS[r]),
     qc: b.stations.map((s) => ({
       cells: [
         s.id,

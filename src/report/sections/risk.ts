@@ -39,34 +39,41 @@ export interface RiskView {
   advice: AdviceView[];
 }
 
+/** A row of a table by month: the month, a count, then the month's values. */
+function monthRow(m: MonthRow, count: number, ...values: string[]): TableRow {
+  return { cells: [monthName(m.month), formatNumber(count, 0), ...values] };
+}
+
+/** Several statistics of one quantity in one cell: "P10 / P50 / P90", "mean / P90". */
+function stats(...values: string[]): string {
+  return values.join(" / ");
+}
+
 function readingRow(m: MonthRow, u: UnitSystem): TableRow {
-  return {
-    cells: [
-      monthName(m.month),
-      formatNumber(m.preflights, 0),
-      pct(m.belowBandPct),
-      pct(m.aboveBandPct),
-      `${show(u.pressure, m.morningKPaGaugeP10)} / ${show(u.pressure, m.morningKPaGaugeP50)} / ${show(u.pressure, m.morningKPaGaugeP90)}`,
-      `${pct(m.morningReadingPctP10)} / ${pct(m.morningReadingPctP50)} / ${pct(m.morningReadingPctP90)}`,
-      `${show(u.tempDelta, m.overnightDropTempMeanC)} / ${show(u.tempDelta, m.overnightDropTempP90C)}`,
-      `${show(u.pressureDelta, m.overnightDropKPaMean)} / ${show(u.pressureDelta, m.overnightDropKPaP90)}`,
-      `${pct(m.overnightDropReadingMeanPct)} / ${pct(m.overnightDropReadingP90Pct)}`,
-    ],
-  };
+  const p = (kPa: number | null) => show(u.pressure, kPa);
+  return monthRow(
+    m,
+    m.preflights,
+    pct(m.belowBandPct),
+    pct(m.aboveBandPct),
+    stats(p(m.morningKPaGaugeP10), p(m.morningKPaGaugeP50), p(m.morningKPaGaugeP90)),
+    stats(pct(m.morningReadingPctP10), pct(m.morningReadingPctP50), pct(m.morningReadingPctP90)),
+    stats(show(u.tempDelta, m.overnightDropTempMeanC), show(u.tempDelta, m.overnightDropTempP90C)),
+    stats(show(u.pressureDelta, m.overnightDropKPaMean), show(u.pressureDelta, m.overnightDropKPaP90)),
+    stats(pct(m.overnightDropReadingMeanPct), pct(m.overnightDropReadingP90Pct)),
+  );
 }
 
 function energyRow(m: MonthRow, u: UnitSystem): TableRow {
-  return {
-    cells: [
-      monthName(m.month),
-      formatNumber(m.starts, 0),
-      pct(m.shortPctOne),
-      pct(m.shortPctTwo),
-      `${pct(m.energyMarginOneP10Pct)} / ${pct(m.energyMarginOneP50Pct)}`,
-      `${pct(m.energyMarginTwoP10Pct)} / ${pct(m.energyMarginTwoP50Pct)}`,
-      `${show(u.tempDelta, m.dailyRangeMeanC)} / ${show(u.tempDelta, m.dailyRangeP90C)}`,
-    ],
-  };
+  return monthRow(
+    m,
+    m.starts,
+    pct(m.shortPctOne),
+    pct(m.shortPctTwo),
+    stats(pct(m.energyMarginOneP10Pct), pct(m.energyMarginOneP50Pct)),
+    stats(pct(m.energyMarginTwoP10Pct), pct(m.energyMarginTwoP50Pct)),
+    stats(show(u.tempDelta, m.dailyRangeMeanC), show(u.tempDelta, m.dailyRangeP90C)),
+  );
 }
 
 /** Risk chart by month: out-of-band shares and short-start shares, with the threshold; null without preflights. */
