@@ -27,8 +27,6 @@ import {
 } from "./shared.js";
 import { pct, type UnitSystem, unitSystem } from "./units.js";
 
-export type { Status } from "./shared.js";
-
 /**
  * The sections of each base, in report order. A section is a builder in `sections/<partial>.ts`
  * returning its view, laid out by `templates/partials/<partial>.hbs`; figures number in this order.
