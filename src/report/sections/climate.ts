@@ -3,6 +3,7 @@
  * table, the daily-swing histogram, and the coldest mornings. Reads `BaseResult.climateMonths`,
  * `dailyRangeHistogram`, `coldestMorningC`, `coldest1in10C` and `coldestMorningByYear`.
  */
+import type { ClimateMonthRow } from "../../plan/results.js";
 import { barChart, PALETTE, xyChart } from "../charts.js";
 import { type BaseContext, type Figure, monthName, nullable, type TableRow } from "../shared.js";
 import { show } from "../units.js";
@@ -20,7 +21,7 @@ export async function climateSection({ base, anchor, u, figs }: BaseContext): Pr
     name: string,
     color: string,
     shape: string,
-    tempC: (m: (typeof months)[number]) => number | null,
+    tempC: (m: ClimateMonthRow) => number | null,
     dash?: number[],
   ) => ({
     name,

@@ -5,7 +5,7 @@
  * month. Reads `BaseResult.months`, `outOfBandByHour`, `advice`, `Results.thresholds.shortPct` and the
  * base's hangar assumptions (`Results.assumptions`).
  */
-import type { BaseResult, MonthRow } from "../../plan/results.js";
+import type { BaseResult, HourRow, MonthRow } from "../../plan/results.js";
 import { barChart, PALETTE, xyChart } from "../charts.js";
 import {
   type BaseContext,
@@ -129,7 +129,7 @@ async function riskFigure(
 /** Out-of-band share by local hour of day; null when no hour has a reading. */
 async function hourFigure(
   { results, base, anchor, figs }: BaseContext,
-  hours: BaseResult["outOfBandByHour"],
+  hours: HourRow[],
 ): Promise<Figure | null> {
   if (hours.length === 0) return null;
   const hangar = hangarText(results, base.name);
