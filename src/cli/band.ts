@@ -6,11 +6,11 @@
  */
 import type { Command } from "commander";
 import { InputError } from "../errors.js";
+import { formatNumber } from "../output/tables.js";
 import { STANDARD_ATMOSPHERE_PA } from "../physics/units.js";
 import { bandCurves } from "../plan/bandCurves.js";
 import { loadPlan } from "../plan/planFile.js";
 import { PSI_PA, tempFromK, tempToK } from "../plan/quantities.js";
-import { formatNumber } from "../plan/tables.js";
 
 export interface BandCliOptions {
   profile?: string;

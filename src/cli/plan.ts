@@ -10,13 +10,13 @@ import { join, resolve } from "node:path";
 import { SingleBar } from "cli-progress";
 import type { Command } from "commander";
 import { inputError } from "../errors.js";
+import { resultsJson, resultTables, toCsv } from "../output/tables.js";
 import { runPlan } from "../plan/engine.js";
 import { loadPlan, type Plan } from "../plan/planFile.js";
 import { formatMass, formatTemp } from "../plan/quantities.js";
 import type { Results } from "../plan/results.js";
 import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
-import { resultsJson, resultTables, toCsv } from "../plan/tables.js";
 import { renderReport, writePdf } from "../report/index.js";
 
 export interface PlanCliOptions {

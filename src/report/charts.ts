@@ -20,7 +20,8 @@ export const PALETTE = {
   purple: "#CC79A7",
 } as const;
 
-const FONT = "Liberation Sans, DejaVu Sans, Arial, Helvetica, sans-serif";
+/** System font keywords only (CSS Fonts Level 4 generic families): the reader's own sans-serif face. */
+const FONT = "system-ui, sans-serif";
 
 /** A rendered chart: escaped-by-construction SVG markup and its plain-text title. */
 export interface Chart {

@@ -1,5 +1,5 @@
 /**
- * The self-contained HTML planning report, rendered from `results.json` alone (issue 5). Templates,
+ * The self-contained HTML planning report, rendered from `results.json` alone. Templates,
  * CSS and partials are read at run time from `templates/` at the package root, which sits two folders
  * above this file both in `src/report/` (tests) and in `dist/report/` (built tool).
  */
@@ -8,7 +8,8 @@ import Handlebars from "handlebars";
 import { InputError } from "../errors.js";
 import type { Results } from "../plan/results.js";
 import type { Chart } from "./charts.js";
-import { buildView, type Status } from "./view.js";
+import type { Status } from "./shared.js";
+import { buildView } from "./view.js";
 
 export { writePdf } from "./pdf.js";
 

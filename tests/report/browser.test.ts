@@ -163,7 +163,7 @@ describe("PDF without a browser, and pdf command errors", () => {
   });
 
   it("exits 2 for a missing report, a folder, a file that is not HTML, or an unknown paper size", async () => {
-    // Exit codes: product brief, section 6 (2 for input or usage errors), each with its own message.
+    // Exit codes as the README documents them (2 for input or usage errors), each with its own message.
     mkdirSync(OUT, { recursive: true });
     const html = `${OUT}paper-check.html`;
     writeFileSync(html, "<!doctype html><title>t</title>");

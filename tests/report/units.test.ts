@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import type { Results } from "../../src/plan/results.js";
 import { renderReport } from "../../src/report/index.js";
+import { localTimeText } from "../../src/report/shared.js";
 import {
   formatNumber,
   N2_KG_PER_NORMAL_M3,
@@ -8,7 +9,6 @@ import {
   SI_UNITS,
   US_UNITS,
 } from "../../src/report/units.js";
-import { localTimeText } from "../../src/report/view.js";
 import { makeResults } from "../fixtures/report/results.js";
 import { type Element, elements, inner, parseShown, type Token, textOf, tokenize } from "./html.js";
 

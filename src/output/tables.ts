@@ -1,9 +1,13 @@
 /**
- * The CSV tables written beside `results.json` (product brief §6: one CSV per table, named after the
- * table). Units are fixed like the JSON: °C, kPa gauge, kg, %; column names carry their unit.
- * Empty cells mean "no value" (a month without preflights). RFC 4180 quoting.
+ * The files written beside the report from the results alone: the `results.json` text and the CSV
+ * tables, one CSV per table, named after the table. Every column is declared once, with its header and
+ * how to read its value. Units are fixed like the JSON: °C, kPa gauge, kg, %; column names carry their
+ * unit. Empty cells mean "no value" (a month without preflights). Quoting follows RFC 4180.
+ *
+ * Like `report/`, this folder reads only the `Results` types of `plan/results.ts`: cli → output →
+ * plan/results (types), never the engine, the climate or the physics code.
  */
-import type { BaseResult, ProfileResult, Results } from "./results.js";
+import type { BaseResult, ProfileResult, Results } from "../plan/results.js";
 
 export type Cell = string | number | boolean | null;
 export interface Table {

@@ -1,0 +1,111 @@
+/**
+ * Small pieces shared by the report's sections and by `view.ts`: the context a base's section is
+ * built from, the figure counter, table rows, the month status of the fleet summary, and the text
+ * helpers for months, years and local times. Reads only the `Results` types.
+ */
+import type { BaseResult, Results } from "../plan/results.js";
+import type { Chart } from "./charts.js";
+import { pct, type UnitSystem } from "./units.js";
+
+export const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+
+export function monthName(month: number): string {
+  return MONTHS[month - 1] ?? String(month);
+}
+
+/** Status of one base and month in the fleet summary. */
+export type Status = "act" | "watch" | "ok" | "none";
+
+export const STATUS_LABEL: Record<Status, string> = {
+  act: "Act",
+  watch: "Watch",
+  ok: "OK",
+  none: "No stay",
+};
+
+export interface Figure {
+  chart: Chart;
+  number: number;
+  caption: string;
+}
+
+/** One table row of display strings; the first cell is the row header. */
+export interface TableRow {
+  cells: string[];
+}
+
+/** Counts figures across the whole report so captions read "Figure 1", "Figure 2", … in order. */
+export class FigureCounter {
+  n = 0;
+  next(chart: Chart, caption: string): Figure {
+    this.n += 1;
+    return { chart, number: this.n, caption };
+  }
+}
+
+/** What a base's section is built from. Sections are built in report order, so figures number in order. */
+export interface BaseContext {
+  results: Results;
+  base: BaseResult;
+  /** Fragment id of the base's part of the report ("base-1", …), also the prefix of its chart ids. */
+  anchor: string;
+  u: UnitSystem;
+  figs: FigureCounter;
+}
+
+/** Fragment id of the i-th base (0-based) in the report. */
+export function baseAnchor(index: number): string {
+  return `base-${index + 1}`;
+}
+
+/**
+ * "hangar air at 59 °F from 19:00 to 06:30" from the plan's hangar assumptions of a base (keys
+ * `bases.<name>.hangar.{in,out,temperature}`, values already in the plan's units), or null without one.
+ */
+export function hangarText(results: Results, baseName: string): string | null {
+  const get = (k: string) => results.assumptions.find((a) => a.key === `bases.${baseName}.hangar.${k}`);
+  const from = get("in");
+  const to = get("out");
+  const temp = get("temperature");
+  if (!from || !to || !temp) return null;
+  return `hangar air at ${temp.value.replace(/^-/, "\u2212")} ${temp.unit} from ${from.value} to ${to.value}`;
+}
+
+/** "2015–2017, 2019 (4 years)": runs of consecutive years joined, then the count; "none" when empty. */
+export function yearsText(years: number[]): string {
+  if (years.length === 0) return "none";
+  const sorted = [...years].sort((a, b) => a - b);
+  const parts: string[] = [];
+  let start = sorted[0]!;
+  let prev = start;
+  for (const y of [...sorted.slice(1), Number.NaN]) {
+    if (y === prev + 1) {
+      prev = y;
+      continue;
+    }
+    parts.push(start === prev ? String(start) : `${start}–${prev}`);
+    start = y;
+    prev = y;
+  }
+  return `${parts.join(", ")} (${sorted.length} year${sorted.length === 1 ? "" : "s"})`;
+}
+
+/** "2016 (61.2 % complete), …": the climate years a base skipped, or "none". */
+export function yearsSkippedText(base: BaseResult): string {
+  return base.yearsSkipped.length === 0
+    ? "none"
+    : base.yearsSkipped.map((y) => `${y.year} (${pct(y.completenessPct)} % complete)`).join(", ");
+}
+
+/** "2018-12-01T15:00:00-06:00" → "2018-12-01 15:00 (UTC−06:00)"; anything else is shown as given. */
+export function localTimeText(iso: string): string {
+  const m = /^(\d{4}-\d{2}-\d{2})T(\d{2}:\d{2})(?::\d{2}(?:\.\d+)?)?(Z|[+-]\d{2}:\d{2})?$/.exec(iso);
+  if (!m) return iso;
+  const zone = m[3] === undefined ? "" : m[3] === "Z" ? " (UTC)" : ` (UTC${m[3].replace("-", "\u2212")})`;
+  return `${m[1]} ${m[2]}${zone}`;
+}
+
+/** Applies a conversion to a value that may be missing. */
+export function nullable(f: (v: number) => number, v: number | null): number | null {
+  return v === null ? null : f(v);
+}

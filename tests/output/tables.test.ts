@@ -1,0 +1,82 @@
+import { parse } from "csv-parse/sync";
+import { describe, expect, it } from "vitest";
+import { resultsJson, resultTables, toCsv } from "../../src/output/tables.js";
+import { makeResults, SCRIPT_PAYLOAD } from "../fixtures/report/results.js";
+
+// Structure of the exported files; the fixture's numbers are made up, so no physics value is asserted.
+
+describe("CSV text", () => {
+  it("quotes fields with commas, quotes, line breaks or outer spaces and ends every record with CRLF", () => {
+    const csv = toCsv({
+      name: "t",
+      columns: ["a", "b", "c", "d", "e"],
+      rows: [['say "hi"', "x,y", "two\nlines", " padded", "plain"]],
+    });
+    // RFC 4180, section 2, rules 1, 6 and 7: CRLF line breaks; fields holding commas, quotes or line
+    // breaks are enclosed in double quotes, and a double quote inside is written twice.
+    expect(csv).toBe('a,b,c,d,e\r\n"say ""hi""","x,y","two\nlines"," padded",plain\r\n');
+  });
+
+  it("writes no value as an empty cell, booleans as yes/no, and numbers with at most 6 decimals", () => {
+    const csv = toCsv({
+      name: "t",
+      columns: ["a", "b", "c", "d", "e"],
+      rows: [[null, true, false, 1 / 3, -1e-9]],
+    });
+    // 1/3 = 0.333333… and −1e−9 rounds to 0 at 6 decimals (arithmetic, no outside source).
+    expect(csv).toBe("a,b,c,d,e\r\n,yes,no,0.333333,0\r\n");
+    expect(toCsv({ name: "t", columns: ["a"], rows: [[Number.NaN]] })).toBe("a\r\n\r\n");
+  });
+});
+
+describe("result tables", () => {
+  const results = makeResults({ units: "si", hostile: true });
+  const tables = resultTables(results);
+
+  it("names every table and column once, in snake_case, with as many cells per row as columns", () => {
+    const names = tables.map((t) => t.name);
+    expect(new Set(names).size).toBe(names.length);
+    for (const t of tables) {
+      expect(t.name).toMatch(/^[a-z][a-z0-9_]*$/);
+      expect(new Set(t.columns).size, t.name).toBe(t.columns.length);
+      for (const c of t.columns) expect(c, t.name).toMatch(/^[a-z][a-z0-9_]*$/);
+      for (const row of t.rows) expect(row, t.name).toHaveLength(t.columns.length);
+    }
+  });
+
+  it("has one row per item of the results it lists", () => {
+    const rows = (name: string) => tables.find((t) => t.name === name)!.rows.length;
+    const perBase = (items: (b: (typeof results.bases)[number]) => unknown[]) =>
+      results.bases.reduce((n, b) => n + items(b).length, 0);
+    expect(rows("bases")).toBe(results.bases.length);
+    expect(rows("months")).toBe(perBase((b) => b.months));
+    expect(rows("nitrogen_stays")).toBe(perBase((b) => b.nitrogen.stays));
+    expect(rows("stations")).toBe(perBase((b) => b.stations));
+    expect(rows("stays")).toBe(results.stays.length);
+    expect(rows("assumptions")).toBe(results.assumptions.length);
+  });
+
+  it("reads back through a CSV parser to the same cells, hostile text included", () => {
+    for (const t of tables) {
+      const [header, ...records] = parse(toCsv(t), { relax_column_count: false }) as string[][];
+      expect(header).toEqual(t.columns);
+      expect(records).toHaveLength(t.rows.length);
+    }
+    const stays = tables.find((t) => t.name === "stays")!;
+    const parsed = parse(toCsv(stays)) as string[][];
+    expect(parsed.flat().some((cell) => cell.includes(SCRIPT_PAYLOAD))).toBe(true);
+  });
+});
+
+describe("results.json text", () => {
+  it("parses back to the results with numbers kept to 6 decimals and a final newline", () => {
+    const results = makeResults({ units: "us" });
+    const text = resultsJson(results);
+    expect(text.endsWith("}\n")).toBe(true);
+    const back = JSON.parse(text) as typeof results;
+    expect(back.plan).toBe(results.plan);
+    expect(back.bases.map((b) => b.name)).toEqual(results.bases.map((b) => b.name));
+    const decimals = text.match(/\d+\.(\d+)/g) ?? [];
+    for (const d of decimals) expect(d.split(".")[1]!.length).toBeLessThanOrEqual(6);
+  });
+});
