@@ -11,8 +11,7 @@
  * above zero each aircraft has its own rate, so only stays of one aircraft with equal windows share.
  */
 import { DateTime } from "luxon";
-import { stationCoverage } from "../climate/index.js";
-import { localDays, MIN_HOURS_FOR_DAILY_RANGE } from "../climate/localTime.js";
+import { localClimatology, stationCoverage } from "../climate/index.js";
 import type { HourlySeries, StationClimate } from "../climate/types.js";
 import { tabulatedGas } from "../physics/gasTable.js";
 import { N2_MOLAR_MASS_KG_MOL, realGas } from "../physics/nitrogen.js";
@@ -119,44 +118,6 @@ function dataYears(series: HourlySeries): [number, number] | null {
 function stationResult(s: StationClimate): StationResult {
   const c = stationCoverage(s);
   return { ...c, firstUtc: c.firstUtc ?? "", lastUtc: c.lastUtc ?? "" };
-}
-
-/**
- * Local-time climatology of the merged series in one pass (the climate module's rules, brief §4):
- * per local month the min, mean and max of the hourly values, and the daily ranges (local-day max −
- * min for days with at least 20 hours present), each range tagged with its local year and month.
- */
-function localClimatology(series: HourlySeries, timeZone: string) {
-  const { day, month } = localDays(series, timeZone);
-  const lo = new Array<number>(13).fill(Number.POSITIVE_INFINITY);
-  const hi = new Array<number>(13).fill(Number.NEGATIVE_INFINITY);
-  const sum = new Array<number>(13).fill(0);
-  const cnt = new Array<number>(13).fill(0);
-  const ranges: { iso: string; month: number; rangeC: number }[] = [];
-  const n = series.tempC.length;
-  let i = 0;
-  while (i < n) {
-    const d = day[i]!;
-    const m = month[i]!;
-    let dlo = Number.POSITIVE_INFINITY;
-    let dhi = Number.NEGATIVE_INFINITY;
-    let count = 0;
-    for (; i < n && day[i] === d; i++) {
-      const v = series.tempC[i]!;
-      if (Number.isNaN(v)) continue;
-      count++;
-      if (v < dlo) dlo = v;
-      if (v > dhi) dhi = v;
-      if (v < lo[m]!) lo[m] = v;
-      if (v > hi[m]!) hi[m] = v;
-      sum[m]! += v;
-      cnt[m]!++;
-    }
-    if (count >= MIN_HOURS_FOR_DAILY_RANGE) {
-      ranges.push({ iso: new Date(d * 86_400_000).toISOString().slice(0, 10), month: m, rangeC: dhi - dlo });
-    }
-  }
-  return { lo, hi, sum, cnt, ranges };
 }
 
 /** Runs the whole plan on loaded climate data. Pure: the same inputs give the same Results. */
@@ -464,26 +425,13 @@ function aggregateBase(
   for (const days of p.daysOf.values()) for (const d of days) windowDays.add(d.climateIso);
   const clim = localClimatology(p.clim.series, tz);
   const rangeByMonth = Array.from({ length: 13 }, () => [] as number[]);
-  const rangeByMonthAll = Array.from({ length: 13 }, () => [] as number[]);
   const allRanges: number[] = [];
-  for (const r of clim.ranges) {
-    rangeByMonthAll[r.month]!.push(r.rangeC);
-    if (!windowDays.has(r.iso)) continue;
+  for (const r of clim.dailyRanges) {
+    if (!windowDays.has(r.localDate)) continue;
     rangeByMonth[r.month]!.push(r.rangeC);
     allRanges.push(r.rangeC);
   }
-  const climateMonths: ClimateMonthRow[] = [];
-  for (let month = 1; month <= 12; month++) {
-    const has = clim.cnt[month]! > 0;
-    climateMonths.push({
-      month,
-      minC: has ? clim.lo[month]! : null,
-      meanC: has ? clim.sum[month]! / clim.cnt[month]! : null,
-      maxC: has ? clim.hi[month]! : null,
-      meanDailyRangeC: mean(rangeByMonthAll[month]!),
-      p90DailyRangeC: quantile(rangeByMonthAll[month]!, 0.9),
-    });
-  }
+  const climateMonths: ClimateMonthRow[] = clim.months;
   const histogram: { lowC: number; highC: number; days: number }[] = [];
   if (allRanges.length > 0) {
     const top = Math.max(...allRanges);
