@@ -92,8 +92,11 @@ export interface DropRecord {
   month: number;
   /** Day index of the morning. */
   day: number;
+  /** Drop in accumulator temperature, K (°C difference). */
   tempC: number;
-  kPa: number;
+  /** Drop in gas pressure, kPa. */
+  gasKPa: number;
+  /** Drop in the fill reading, percentage points. */
   readingPct: number;
   /** Instant of the evening's last recharge (UTC ms, climate time). */
   rechargeUtcMs: number;
@@ -360,7 +363,7 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
               month: day.month,
               day: di,
               tempC: lastRecharge.accC - (accK - K0),
-              kPa: lastRecharge.kPa - gasKPa,
+              gasKPa: lastRecharge.kPa - gasKPa,
               readingPct: lastRecharge.reading - reading,
               rechargeUtcMs: lastRecharge.utcMs,
             });
