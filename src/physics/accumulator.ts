@@ -173,14 +173,38 @@ export function readingBand(
 }
 
 /**
- * Accumulator temperature as a first-order lag behind ambient, updated exactly over a step:
- * T ← Ta + (T − Ta)·exp(−Δt/τ); τ = 0 gives Ta (product brief, section 3).
+ * The air around the accumulator over one time step. The ambient is held at its end-of-step value
+ * over the whole step; a start-of-step value (for an ambient changing linearly across the step) is the
+ * field this shape leaves room for.
  */
-export function lagTempK(tempK: number, ambientK: number, dtS: number, tauS: number): number {
-  requireNonNegative("dtS", dtS, "s");
+export interface AmbientStep {
+  /** Length of the step, s (≥ 0). */
+  dtS: number;
+  /** Ambient temperature at the end of the step, K. */
+  endK: number;
+}
+
+/**
+ * Accumulator temperature after one step of a first-order lag behind the ambient (lumped
+ * capacitance), dT/dt = (Ta − T)/τ, solved exactly with Ta held over the step:
+ * T ← Ta + (T − Ta)·exp(−Δt/τ); τ = 0 gives Ta.
+ *
+ * @param tempK accumulator temperature at the start of the step, K
+ * @param step the step's length `dtS` (s) and its ambient `endK` (K)
+ * @param tauS thermal time constant τ, s (≥ 0)
+ * @returns accumulator temperature at the end of the step, K
+ *
+ * References: Incropera, F. P., DeWitt, D. P. et al., "Fundamentals of Heat and Mass Transfer",
+ * the lumped capacitance method (transient conduction); docs/methods.md, "Accumulator temperature".
+ *
+ * @example
+ * lagTempK(270, { dtS: 7200, endK: 280 }, 7200); // 280 − 10·e⁻¹ ≈ 276.32 K
+ */
+export function lagTempK(tempK: number, step: AmbientStep, tauS: number): number {
+  requireNonNegative("dtS", step.dtS, "s");
   requireNonNegative("tauS", tauS, "s");
-  if (tauS === 0) return ambientK;
-  return ambientK + (tempK - ambientK) * Math.exp(-dtS / tauS);
+  if (tauS === 0) return step.endK;
+  return step.endK + (tempK - step.endK) * Math.exp(-step.dtS / tauS);
 }
 
 /** Seconds in an average month (365.25 days / 12), the unit of the gas-loss rate. */

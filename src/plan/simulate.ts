@@ -1,10 +1,12 @@
 /**
  * The hour-by-hour simulation of one stay on one climate year (product brief §5).
  *
- * State: accumulator temperature (first-order lag behind ambient, exact update over each step with
- * the ambient at the step's end, so τ = 0 gives the ambient itself), gas amount per unit (falls
- * continuously by the aircraft's gas-loss rate), and the charged state at the end of the last
- * recharge (the fluid is trapped until the next start, brief §3).
+ * State: accumulator temperature (first-order lag behind ambient, `lagTempK` of the physics module:
+ * exact update over each step with the ambient at the step's end, so τ = 0 gives the ambient itself;
+ * the outdoor ambient between grid hours is the climate module's `tempAtUtcMs`), gas amount per unit
+ * (falls continuously by the aircraft's gas-loss rate, the profile context's `gasLossMolS`), and the
+ * charged state at the end of the last recharge (the fluid is trapped until the next start;
+ * docs/methods.md, "Trapped charge").
  *
  * The aircraft arrives serviced: gas amount on the precharge reference, charged to nominal system
  * pressure at the arrival-day midnight temperature. Then, on each flown day, at each start time:
@@ -35,14 +37,17 @@
  * physics, and starts without an ambient value are simulated but not counted in the statistics.
  */
 
+import { tempAtUtcMs } from "../climate/hourly.js";
 import type { HourlySeries } from "../climate/types.js";
 import {
+  type AmbientStep,
   type ChargedState,
   chargedState,
   gasAmountMol,
   gasVolumeM3,
   handPumpStrokes,
   interpolateClamped,
+  lagTempK,
   readingPct,
   recharge,
   startDischarge,
@@ -142,22 +147,15 @@ function inHangarAt(day: DayPlan, utcMs: number): boolean {
   return false;
 }
 
-/** Ambient temperature (K) at an instant: the series linearly between grid hours; hangar replaces it. */
-function ambientK(inp: SimInputs, day: DayPlan, utcMs: number): number {
-  if (inp.hangarTempK !== null && inHangarAt(day, utcMs)) return inp.hangarTempK;
-  return seriesK(inp.series, utcMs);
+/** Outdoor temperature (K) at an instant, linear between grid hours (the climate module's rule); NaN where missing. */
+function outdoorK(series: HourlySeries, utcMs: number): number {
+  return tempAtUtcMs(series, utcMs) + K0;
 }
 
-/** Outdoor temperature (K) at an instant, linear between grid hours; NaN where missing. */
-function seriesK(s: HourlySeries, utcMs: number): number {
-  const x = (utcMs - s.startUtcMs) / HOUR_MS;
-  const i = Math.floor(x);
-  if (i < 0 || i >= s.tempC.length) return Number.NaN;
-  const f = x - i;
-  const a = s.tempC[i]!;
-  if (f === 0) return a + K0;
-  if (i + 1 >= s.tempC.length) return Number.NaN;
-  return a + f * (s.tempC[i + 1]! - a) + K0;
+/** Ambient temperature (K) at an instant: the outdoor temperature, or the hangar's while inside. */
+function ambientK(inp: SimInputs, day: DayPlan, utcMs: number): number {
+  if (inp.hangarTempK !== null && inHangarAt(day, utcMs)) return inp.hangarTempK;
+  return outdoorK(inp.series, utcMs);
 }
 
 export function simulateStayYear(inp: SimInputs): SimOutcome {
@@ -183,8 +181,9 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
   const lossMolS = ctx.gasLossMolS * inp.gasLossFactor;
   const grid = ctx.dischargeGrid;
   const dischargeOut = new Float64Array(2);
-  const tau = ctx.tauS;
-  const decayHour = tau > 0 ? Math.exp(-HOUR_MS / 1000 / tau) : 0;
+  const tauS = ctx.tauS;
+  /** The step the lag advances over (one object reused in the hot loop). */
+  const step: AmbientStep = { dtS: 0, endK: 0 };
 
   // Initial state: serviced on arrival, charged at nominal system pressure at the first known ambient.
   let cur = days[0]!.midnightUtcMs;
@@ -197,7 +196,13 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
   let amountMol = ctx.nominalMol;
   let charged: ChargedState = chargedState(model, geometry, fluid, amountMol, accK, ctx.systemNominalAbsPa);
   let lastCheckDay = 0;
-  let lastRecharge: { day: number; accC: number; kPa: number; reading: number; utcMs: number } | null = null;
+  let lastRecharge: {
+    day: number;
+    accumulatorC: number;
+    gasKPaGauge: number;
+    readingPct: number;
+    utcMs: number;
+  } | null = null;
   const traceFrom = inp.trace?.fromUtcMs ?? Number.POSITIVE_INFINITY;
   const traceTo = inp.trace ? traceFrom + inp.trace.hours * HOUR_MS : Number.NEGATIVE_INFINITY;
 
@@ -211,16 +216,15 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
     const mid = (cur + t) / 2;
     const inHangar =
       inp.hangarTempK !== null && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
-    const stepAmb = inHangar ? inp.hangarTempK! : seriesK(inp.series, t);
+    const stepAmb = inHangar ? inp.hangarTempK! : outdoorK(inp.series, t);
     if (Number.isFinite(stepAmb)) lastAmbK = stepAmb;
     const dtS = (t - cur) / 1000;
-    if (dtS > 0) {
-      const decay = tau <= 0 ? 0 : dtS === 3600 ? decayHour : Math.exp(-dtS / tau);
-      accK = lastAmbK + (accK - lastAmbK) * decay;
-      amountMol = Math.max(amountMol - lossMolS * dtS, 1e-9);
-    } else if (tau <= 0) {
-      accK = lastAmbK;
+    if (dtS > 0 || tauS === 0) {
+      step.dtS = Math.max(dtS, 0);
+      step.endK = lastAmbK;
+      accK = lagTempK(accK, step, tauS);
     }
+    if (dtS > 0) amountMol = Math.max(amountMol - lossMolS * dtS, 1e-9);
     cur = t;
     return amb;
   };
@@ -345,7 +349,7 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
         const high = bandAt(bandTable, ambK, "high");
         const below = reading < low;
         const above = reading > high;
-        const gasKPa = (st.gasPressureAbsPa - atmPa) / 1000;
+        const gasKPaGauge = (st.gasPressureAbsPa - atmPa) / 1000;
         if (counted) {
           out.preflights.push({
             day: di,
@@ -353,7 +357,7 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
             hour: day.startHours[0]!,
             ambientC: ambK - K0,
             accumulatorC: accK - K0,
-            gasKPaGauge: gasKPa,
+            gasKPaGauge,
             readingPct: reading,
             below,
             above,
@@ -362,9 +366,9 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
             out.drops.push({
               month: day.month,
               day: di,
-              tempC: lastRecharge.accC - (accK - K0),
-              gasKPa: lastRecharge.kPa - gasKPa,
-              readingPct: lastRecharge.reading - reading,
+              tempC: lastRecharge.accumulatorC - (accK - K0),
+              gasKPa: lastRecharge.gasKPaGauge - gasKPaGauge,
+              readingPct: lastRecharge.readingPct - reading,
               rechargeUtcMs: lastRecharge.utcMs,
             });
           }
@@ -441,9 +445,9 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
       }
       lastRecharge = {
         day: di,
-        accC: accK - K0,
-        kPa: (r.gasPressureAbsPa - atmPa) / 1000,
-        reading: readingPct(geometry, r.gasVolumeM3),
+        accumulatorC: accK - K0,
+        gasKPaGauge: (r.gasPressureAbsPa - atmPa) / 1000,
+        readingPct: readingPct(geometry, r.gasVolumeM3),
         utcMs: t,
       };
       si++;

@@ -317,12 +317,13 @@ describe("gas loss", () => {
 describe("lagged temperature", () => {
   it("exact first-order update; τ = 0 follows ambient; one τ reaches 1 − e⁻¹ of a step", () => {
     // Brief, section 3: T ← Ta + (T − Ta)·exp(−Δt/τ); first-order step response (textbook).
-    expect(lagTempK(250, 280, 3600, 0)).toBe(280);
-    expect((lagTempK(270, 280, 7200, 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
+    expect(lagTempK(250, { dtS: 3600, endK: 280 }, 0)).toBe(280);
+    expect((lagTempK(270, { dtS: 7200, endK: 280 }, 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
     // Exactness: two half steps equal one whole step.
-    const half = lagTempK(lagTempK(300, 260, 1800, 5000), 260, 1800, 5000);
-    expect(half).toBeCloseTo(lagTempK(300, 260, 3600, 5000), 12);
-    expect(() => lagTempK(300, 260, 3600, -1)).toThrow(/tauS: -1/);
+    const halfStep = { dtS: 1800, endK: 260 };
+    const half = lagTempK(lagTempK(300, halfStep, 5000), halfStep, 5000);
+    expect(half).toBeCloseTo(lagTempK(300, { dtS: 3600, endK: 260 }, 5000), 12);
+    expect(() => lagTempK(300, { dtS: 3600, endK: 260 }, -1)).toThrow(/tauS: -1/);
   });
 });
 
