@@ -207,13 +207,30 @@ export function lagTempK(tempK: number, step: AmbientStep, tauS: number): number
   return step.endK + (tempK - step.endK) * Math.exp(-step.dtS / tauS);
 }
 
-/** Seconds in an average month (365.25 days / 12), the unit of the gas-loss rate. */
-export const SECONDS_PER_MONTH = (365.25 / 12) * 86400;
+/**
+ * Seconds in a mean Gregorian month, 365.2425 days / 12 (the Gregorian calendar's 146 097 days in
+ * 400 years): the month of every rate given "per month", in the plan file and in the physics.
+ */
+export const SECONDS_PER_MONTH = (365.2425 / 12) * 86400;
 
 /**
- * Slow gas loss (product brief, section 3): a precharge pressure drop per month, stated at the reference
- * temperature with the piston on the fluid-side stop, converted to an amount lost per second:
+ * Slow gas loss: a precharge pressure drop per month, stated at the reference temperature with the
+ * piston on the fluid-side stop, converted to an amount lost per second:
  * [ρ(P_ref, T_ref) − ρ(P_ref − ΔP, T_ref)]·V0 / month.
+ *
+ * @param model gas model (density from pressure and temperature)
+ * @param refAbsPa precharge reference pressure, Pa absolute
+ * @param refTempK reference temperature, K
+ * @param v0M3 gas volume on the fluid-side stop V0, m³
+ * @param lossPaPerMonth pressure drop per month at the reference, Pa (≥ 0, below refAbsPa)
+ * @returns amount lost per unit, mol/s
+ *
+ * References: Span, R. et al. (2000), "A reference equation of state for the thermodynamic properties
+ * of nitrogen ...", J. Phys. Chem. Ref. Data 29(6) (the density); docs/methods.md, "Slow gas loss".
+ *
+ * @example
+ * // Ideal gas, 10 psi a month at 1450 psig and 70 °F in 5 L: ΔP·V0/(R·T)/month
+ * gasLossMolPerS(idealGas, 10.099e6, 294.26, 5e-3, 68_948); // ≈ 5.36e-8 mol/s
  */
 export function gasLossMolPerS(
   model: GasModel,

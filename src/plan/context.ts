@@ -8,9 +8,11 @@ import {
   type BandInputs,
   type FluidProps,
   gasAmountMol,
+  gasLossMolPerS,
   type PumpSpec,
   prechargePressureAbsPa,
   readingBand,
+  SECONDS_PER_MONTH,
   type StarterSpec,
 } from "../physics/accumulator.js";
 import type { GasModel } from "../physics/nitrogen.js";
@@ -65,7 +67,7 @@ export interface ProfileContext {
   altPump: PumpSpec;
   handPump: { displacementM3: number; efficiency: number };
   tauS: number;
-  /** Nominal gas loss per unit, mol/s (the profile's pressure rate at the reference temperature and V0). */
+  /** Nominal gas loss per unit, mol/s (the profile's monthly pressure drop at the reference and V0). */
   gasLossMolS: number;
   /** Interpolated start discharges (null: exact physics at every start). */
   dischargeGrid: DischargeGrid | null;
@@ -146,12 +148,6 @@ export function profileContext(
   const nominalMol = gasAmountMol(model, refAbs, ref.tempK, geometry.v0M3);
   const lowMol = gasAmountMol(model, Math.max(refAbs - tol, 1), ref.tempK, geometry.v0M3);
   const highMol = gasAmountMol(model, refAbs + tol, ref.tempK, geometry.v0M3);
-  // Gas loss: a pressure per second at the reference temperature, as an amount (central difference).
-  const dP = Math.min(1e5, refAbs / 10);
-  const molPerPa =
-    (gasAmountMol(model, refAbs + dP, ref.tempK, geometry.v0M3) -
-      gasAmountMol(model, refAbs - dP, ref.tempK, geometry.v0M3)) /
-    (2 * dP);
   const band = bandInputsOf(profile, atmPa);
   const bandTable = options.tablesOf?.bandTable ?? buildBandTable(model, geometry, band);
   const count = coldStartOption ? profile.coldStartOption.count : 1;
@@ -193,7 +189,14 @@ export function profileContext(
     altPump: coldStartOption ? pumpOne : pumpOption,
     handPump: { displacementM3: profile.handPump.displacement, efficiency: profile.handPump.efficiency },
     tauS: profile.thermalTimeConstant,
-    gasLossMolS: profile.gasLoss.rate * molPerPa,
+    // The plan's rate is a pressure per second; the physics takes the month's drop at the reference.
+    gasLossMolS: gasLossMolPerS(
+      model,
+      refAbs,
+      ref.tempK,
+      geometry.v0M3,
+      profile.gasLoss.rate * SECONDS_PER_MONTH,
+    ),
     dischargeGrid: grid,
   };
 }

@@ -305,9 +305,10 @@ describe("trapped charge", () => {
 
 describe("gas loss", () => {
   it("a pressure drop per month at the reference temperature becomes ΔP·V0/(R·T_ref) per month (ideal mode)", () => {
-    // Ideal gas law (textbook); month = 365.25/12 days (common practice, no source).
+    // Ideal gas law (textbook); month = 365.2425/12 days, the mean Gregorian month (146 097 days in
+    // 400 years, the Gregorian calendar).
     const rate = gasLossMolPerS(idealGas, psigToAbs(1450), fToK(70), 5e-3, psiToPa(10));
-    const expected = (psiToPa(10) * 5e-3) / (8.31451 * fToK(70)) / ((365.25 / 12) * 86400);
+    const expected = (psiToPa(10) * 5e-3) / (8.31451 * fToK(70)) / ((365.2425 / 12) * 86400);
     expect(rate / expected).toBeCloseTo(1, 9);
     expect(gasLossMolPerS(realGas, psigToAbs(1450), fToK(70), 5e-3, 0)).toBe(0);
     expect(() => gasLossMolPerS(realGas, psigToAbs(1450), fToK(70), 5e-3, -1)).toThrow(/lossPaPerMonth: -1/);
