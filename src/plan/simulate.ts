@@ -51,6 +51,7 @@ import {
   readingPct,
   recharge,
   startDischarge,
+  type TrappedState,
   trappedState,
 } from "../physics/accumulator.js";
 import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
@@ -158,10 +159,17 @@ function ambientK(inp: SimInputs, day: DayPlan, utcMs: number): number {
   return outdoorK(inp.series, utcMs);
 }
 
-export function simulateStayYear(inp: SimInputs): SimOutcome {
-  const { ctx } = inp;
-  const { model, geometry, fluid, atmPa, bandTable } = ctx;
-  const out: SimOutcome = {
+/** The last recharge of a day: what the next morning's overnight drop is measured from. */
+interface RechargeMark {
+  day: number;
+  accumulatorC: number;
+  gasKPaGauge: number;
+  readingPct: number;
+  utcMs: number;
+}
+
+function emptyOutcome(): SimOutcome {
+  return {
     preflights: [],
     starts: [],
     drops: [],
@@ -176,116 +184,85 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
     accumulatorHours: 0,
     trace: [],
   };
-  const days = inp.days;
-  if (days.length === 0) return out;
-  const lossMolS = ctx.gasLossMolS * inp.gasLossFactor;
-  const grid = ctx.dischargeGrid;
-  const dischargeOut = new Float64Array(2);
-  const tauS = ctx.tauS;
+}
+
+/** Simulates one stay on one climate year (see the header for what happens when). */
+export function simulateStayYear(inp: SimInputs): SimOutcome {
+  if (inp.days.length === 0) return emptyOutcome();
+  const run = new StayRun(inp);
+  for (let di = 0; di < inp.days.length; di++) run.day(di);
+  return run.out;
+}
+
+/** The state of one stay on one climate year, advanced event by event through its days. */
+class StayRun {
+  readonly out = emptyOutcome();
+  private readonly ctx: ProfileContext;
+  /** Gas loss of this aircraft, mol/s per unit. */
+  private readonly lossMolS: number;
   /** The step the lag advances over (one object reused in the hot loop). */
-  const step: AmbientStep = { dtS: 0, endK: 0 };
+  private readonly step: AmbientStep = { dtS: 0, endK: 0 };
+  private readonly dischargeOut = new Float64Array(2);
+  private readonly traceFrom: number;
+  private readonly traceTo: number;
+  /** Instant the state stands at, UTC ms. */
+  private cur: number;
+  /** Last known ambient, K (held through missing hours). */
+  private lastAmbK: number;
+  /** Accumulator (lagged) temperature, K. */
+  private accK: number;
+  /** Gas amount per unit, mol. */
+  private amountMol: number;
+  private charged: ChargedState;
+  /** The other configuration's charge (see the header); equal to `charged` while altSame. */
+  private chargedAlt: ChargedState;
+  private altSame = true;
+  private lastCheckDay = 0;
+  private lastRecharge: RechargeMark | null = null;
+  private prevDay: DayPlan | null = null;
+  /** Per-unit discharge of the last `discharge` call: energy, J, and end gas volume, m³. */
+  private dischargeJ = 0;
+  private dischargeEndM3 = 0;
 
-  // Initial state: serviced on arrival, charged at nominal system pressure at the first known ambient.
-  let cur = days[0]!.midnightUtcMs;
-  let lastAmbK = ambientK(inp, days[0]!, cur);
-  for (let k = 1; !Number.isFinite(lastAmbK) && k < 24 * days.length; k++) {
-    lastAmbK = ambientK(inp, days[Math.min(days.length - 1, Math.floor(k / 24))]!, cur + k * HOUR_MS);
+  constructor(private readonly inp: SimInputs) {
+    const ctx = inp.ctx;
+    const days = inp.days;
+    this.ctx = ctx;
+    this.lossMolS = ctx.gasLossMolS * inp.gasLossFactor;
+    this.traceFrom = inp.trace?.fromUtcMs ?? Number.POSITIVE_INFINITY;
+    this.traceTo = inp.trace ? this.traceFrom + inp.trace.hours * HOUR_MS : Number.NEGATIVE_INFINITY;
+    // Initial state: serviced on arrival, charged at nominal system pressure at the first known ambient.
+    this.cur = days[0]!.midnightUtcMs;
+    let ambK = ambientK(inp, days[0]!, this.cur);
+    for (let k = 1; !Number.isFinite(ambK) && k < 24 * days.length; k++) {
+      ambK = ambientK(inp, days[Math.min(days.length - 1, Math.floor(k / 24))]!, this.cur + k * HOUR_MS);
+    }
+    this.lastAmbK = Number.isFinite(ambK) ? ambK : ctx.refTempK;
+    this.accK = this.lastAmbK;
+    this.amountMol = ctx.nominalMol;
+    this.charged = this.chargedAt(ctx.systemNominalAbsPa);
+    this.chargedAlt = this.charged;
   }
-  if (!Number.isFinite(lastAmbK)) lastAmbK = ctx.refTempK;
-  let accK = lastAmbK;
-  let amountMol = ctx.nominalMol;
-  let charged: ChargedState = chargedState(model, geometry, fluid, amountMol, accK, ctx.systemNominalAbsPa);
-  let lastCheckDay = 0;
-  let lastRecharge: {
-    day: number;
-    accumulatorC: number;
-    gasKPaGauge: number;
-    readingPct: number;
-    utcMs: number;
-  } | null = null;
-  const traceFrom = inp.trace?.fromUtcMs ?? Number.POSITIVE_INFINITY;
-  const traceTo = inp.trace ? traceFrom + inp.trace.hours * HOUR_MS : Number.NEGATIVE_INFINITY;
 
-  /**
-   * Advances lag and gas loss from `cur` to `t` with the ambient at `t` (the hangar's when the step's
-   * midpoint is in the hangar; steps never straddle a hangar boundary). Returns the ambient a
-   * technician reads at `t` (NaN if missing).
-   */
-  const advance = (day: DayPlan, t: number): number => {
-    const amb = ambientK(inp, day, t);
-    const mid = (cur + t) / 2;
-    const inHangar =
-      inp.hangarTempK !== null && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
-    const stepAmb = inHangar ? inp.hangarTempK! : outdoorK(inp.series, t);
-    if (Number.isFinite(stepAmb)) lastAmbK = stepAmb;
-    const dtS = (t - cur) / 1000;
-    if (dtS > 0 || tauS === 0) {
-      step.dtS = Math.max(dtS, 0);
-      step.endK = lastAmbK;
-      accK = lagTempK(accK, step, tauS);
-    }
-    if (dtS > 0) amountMol = Math.max(amountMol - lossMolS * dtS, 1e-9);
-    cur = t;
-    return amb;
-  };
+  /** The charged state of the current gas amount and temperature at a gas pressure. */
+  private chargedAt(gasPressureAbsPa: number): ChargedState {
+    const { model, geometry, fluid } = this.ctx;
+    return chargedState(model, geometry, fluid, this.amountMol, this.accK, gasPressureAbsPa);
+  }
 
-  const service = (ambK: number, day: number, t: number) => {
-    // Gas on the fluid-side stop at V0 and the lagged temperature, set to the line at ambient.
-    const targetAbs = prechargeLineAbsPa(ctx, ambK);
-    const targetMol = gasAmountMol(model, targetAbs, accK, geometry.v0M3);
-    if (targetMol > amountMol) {
-      out.nitrogen.push({
-        day,
-        utcMs: t,
-        fromMol: amountMol,
-        toMol: targetMol,
-        tempK: ambK,
-        units: ctx.count,
-      });
-    } else {
-      out.ventedMol += (amountMol - targetMol) * ctx.count;
-    }
-    amountMol = targetMol;
-    out.servicings++;
-  };
+  /** The trapped state of a charge now. */
+  private trapped(charge: ChargedState): TrappedState {
+    const { model, geometry, fluid } = this.ctx;
+    return trappedState(model, geometry, fluid, charge, this.accK, this.amountMol);
+  }
 
-  // The other configuration's charge (see the header); equal to `charged` while altSame.
-  let chargedAlt: ChargedState = charged;
-  let altSame = true;
-  /** Per-unit discharge from the gas volume at the start: sets dischargeJ and dischargeEndM3. */
-  let dischargeJ = 0;
-  let dischargeEndM3 = 0;
-  const discharge = (gasVolM3: number): void => {
-    if (grid !== null) {
-      grid.lookup(amountMol, accK, gasVolM3, dischargeOut);
-      dischargeJ = dischargeOut[0]!;
-      dischargeEndM3 = dischargeOut[1]!;
-    } else {
-      const d = startDischarge(model, geometry, 1, amountMol, accK, gasVolM3, ctx.starter);
-      dischargeJ = d.hydraulicEnergyJ;
-      dischargeEndM3 = d.end.gasVolumeM3;
-    }
-  };
-
-  const handPumpToSystem = () => {
-    const vGas = Math.max(geometry.vminM3, gasVolumeM3(model, amountMol, accK, ctx.systemNominalAbsPa));
-    out.handPumpStrokes += handPumpStrokes(
-      (geometry.v0M3 - Math.min(vGas, geometry.v0M3)) * ctx.count,
-      ctx.handPump.displacementM3,
-      ctx.handPump.efficiency,
-    );
-    charged = chargedState(model, geometry, fluid, amountMol, accK, ctx.systemNominalAbsPa);
-    chargedAlt = charged;
-    altSame = true;
-  };
-
-  let prevDay: DayPlan | null = null;
-  for (let di = 0; di < days.length; di++) {
-    const day = days[di]!;
-    prevDay = di > 0 ? days[di - 1]! : null;
+  /** Day `di`: its grid hours, hangar boundaries and starts in time order. */
+  day(di: number): void {
+    const day = this.inp.days[di]!;
+    this.prevDay = di > 0 ? this.inp.days[di - 1]! : null;
     // A 29 February fold or a skipped leap day breaks the calendar: the state carries over as it is.
-    if (prevDay !== null && prevDay.nextMidnightUtcMs !== day.midnightUtcMs) cur = day.midnightUtcMs;
-    const monthIdx = (day.month - 1) * 24;
+    if (this.prevDay !== null && this.prevDay.nextMidnightUtcMs !== day.midnightUtcMs)
+      this.cur = day.midnightUtcMs;
     let si = 0;
     let g = Math.ceil(day.midnightUtcMs / HOUR_MS) * HOUR_MS;
     const breaks = day.hangar
@@ -297,161 +274,261 @@ export function simulateStayYear(inp: SimInputs): SimOutcome {
       const nextStart = si < day.startsUtcMs.length ? day.startsUtcMs[si]! : Number.POSITIVE_INFINITY;
       const nextGrid = g < day.nextMidnightUtcMs ? g : Number.POSITIVE_INFINITY;
       // A hangar boundary between grid hours ends a step there (no reading is taken).
-      while (hb < breaks.length && breaks[hb]! <= cur) hb++;
+      while (hb < breaks.length && breaks[hb]! <= this.cur) hb++;
       const nextBreak = hb < breaks.length ? breaks[hb]! : Number.POSITIVE_INFINITY;
       if (nextBreak < nextGrid && nextBreak < nextStart) {
-        advance(day, nextBreak);
+        this.advance(day, nextBreak);
         hb++;
-        continue;
-      }
-      if (nextStart === Number.POSITIVE_INFINITY && nextGrid === Number.POSITIVE_INFINITY) break;
-      if (nextGrid <= nextStart) {
-        // Grid hour: what-if reading of the trapped charge against the band at ambient.
-        const amb = advance(day, nextGrid);
-        out.accumulatorHours += ctx.count;
-        const inTrace = nextGrid >= traceFrom && nextGrid <= traceTo;
-        if (Number.isFinite(amb) || inTrace) {
-          const st = trappedState(model, geometry, fluid, charged, accK, amountMol);
-          const reading = readingPct(geometry, st.gasVolumeM3);
-          const ambForBand = Number.isFinite(amb) ? amb : lastAmbK;
-          const low = bandAt(bandTable, ambForBand, "low");
-          const high = bandAt(bandTable, ambForBand, "high");
-          if (Number.isFinite(amb)) {
-            const idx = monthIdx + localHourOf(day, nextGrid, inp.timeZone);
-            out.hourlyReadings[idx]!++;
-            if (reading < low || reading > high) out.hourlyOutOfBand[idx]!++;
-          }
-          if (inTrace) {
-            out.trace.push({
-              utcMs: nextGrid,
-              ambientC: ambForBand - K0,
-              accumulatorC: accK - K0,
-              gasKPaGauge: (st.gasPressureAbsPa - atmPa) / 1000,
-              readingPct: reading,
-              bandLowPct: low,
-              bandHighPct: high,
-            });
-          }
-        }
+      } else if (nextStart === Number.POSITIVE_INFINITY && nextGrid === Number.POSITIVE_INFINITY) {
+        break;
+      } else if (nextGrid <= nextStart) {
+        this.gridHour(day, nextGrid);
         g += HOUR_MS;
-        continue;
-      }
-      // A start.
-      const t = nextStart;
-      const amb = advance(day, t);
-      const ambK = Number.isFinite(amb) ? amb : lastAmbK;
-      const counted = Number.isFinite(amb);
-      if (!counted) out.startsWithoutAmbient++;
-      let st = trappedState(model, geometry, fluid, charged, accK, amountMol);
-      if (si === 0) {
-        const reading = readingPct(geometry, st.gasVolumeM3);
-        const low = bandAt(bandTable, ambK, "low");
-        const high = bandAt(bandTable, ambK, "high");
-        const below = reading < low;
-        const above = reading > high;
-        const gasKPaGauge = (st.gasPressureAbsPa - atmPa) / 1000;
-        if (counted) {
-          out.preflights.push({
-            day: di,
-            month: day.month,
-            hour: day.startHours[0]!,
-            ambientC: ambK - K0,
-            accumulatorC: accK - K0,
-            gasKPaGauge,
-            readingPct: reading,
-            below,
-            above,
-          });
-          if (lastRecharge !== null && lastRecharge.day === di - 1) {
-            out.drops.push({
-              month: day.month,
-              day: di,
-              tempC: lastRecharge.accumulatorC - (accK - K0),
-              gasKPa: lastRecharge.gasKPaGauge - gasKPaGauge,
-              readingPct: lastRecharge.readingPct - reading,
-              rechargeUtcMs: lastRecharge.utcMs,
-            });
-          }
-        }
-        // Servicing: precharge check when due, and the out-of-band policy.
-        const checkDue = di - lastCheckDay >= inp.prechargeCheckDays;
-        const policyDue = inp.policy === "adjust-precharge" && (below || above);
-        if (checkDue || policyDue) {
-          if (checkDue) {
-            out.checks++;
-            lastCheckDay = di;
-          }
-          const gasAtV0AbsPa = model.pressurePa(amountMol / geometry.v0M3, accK);
-          const outOfTolerance =
-            gasAtV0AbsPa < prechargeLineAbsPa(ctx, ambK, ctx.lowMol) ||
-            gasAtV0AbsPa > prechargeLineAbsPa(ctx, ambK, ctx.highMol);
-          if (policyDue || outOfTolerance) service(ambK, di, t);
-          handPumpToSystem();
-          st = trappedState(model, geometry, fluid, charged, accK, amountMol);
-        }
-      }
-      // Start discharge of one unit; n identical units deliver n times as much.
-      discharge(st.gasVolumeM3);
-      const energyJ = dischargeJ;
-      const endVolumeM3 = dischargeEndM3;
-      let energyAltJ = energyJ;
-      let endAltM3 = endVolumeM3;
-      if (!altSame) {
-        const stAlt = trappedState(model, geometry, fluid, chargedAlt, accK, amountMol);
-        discharge(stAlt.gasVolumeM3);
-        energyAltJ = dischargeJ;
-        endAltM3 = dischargeEndM3;
-      }
-      if (counted) {
-        const oneJ = ctx.fitted ? energyAltJ : energyJ;
-        const optionUnitJ = ctx.fitted ? energyJ : energyAltJ;
-        out.starts.push({
-          month: day.month,
-          ambientC: ambK - K0,
-          energyOneJ: oneJ,
-          energyTwoJ: optionUnitJ * ctx.optionCount,
-          requiredJ: interpolateClamped(ctx.energyTable, ambK),
-        });
-      }
-      // Recharge within the timer, isothermal at the accumulator temperature; then trapped.
-      const r = recharge(
-        model,
-        geometry,
-        ctx.count,
-        amountMol,
-        accK,
-        endVolumeM3,
-        ctx.systemNominalAbsPa,
-        ctx.pump,
-      );
-      charged = chargedState(model, geometry, fluid, amountMol, accK, r.gasPressureAbsPa);
-      if (altSame && r.reachedSystem && (r.timeS * ctx.altCount) / ctx.count <= ctx.altPump.timerS) {
-        chargedAlt = charged;
       } else {
-        const rAlt = recharge(
-          model,
-          geometry,
-          ctx.altCount,
-          amountMol,
-          accK,
-          endAltM3,
-          ctx.systemNominalAbsPa,
-          ctx.altPump,
-        );
-        altSame = r.reachedSystem && rAlt.reachedSystem;
-        chargedAlt = altSame
-          ? charged
-          : chargedState(model, geometry, fluid, amountMol, accK, rAlt.gasPressureAbsPa);
+        this.start(day, di, si, nextStart);
+        si++;
       }
-      lastRecharge = {
-        day: di,
-        accumulatorC: accK - K0,
-        gasKPaGauge: (r.gasPressureAbsPa - atmPa) / 1000,
-        readingPct: readingPct(geometry, r.gasVolumeM3),
-        utcMs: t,
-      };
-      si++;
     }
   }
-  return out;
+
+  /**
+   * Advances lag and gas loss from `cur` to `t` with the ambient at `t` (the hangar's when the step's
+   * midpoint is in the hangar; steps never straddle a hangar boundary). Returns the ambient a
+   * technician reads at `t` (NaN if missing).
+   */
+  private advance(day: DayPlan, t: number): number {
+    const { inp, prevDay } = this;
+    const amb = ambientK(inp, day, t);
+    const mid = (this.cur + t) / 2;
+    const inHangar =
+      inp.hangarTempK !== null && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
+    const stepAmb = inHangar ? inp.hangarTempK! : outdoorK(inp.series, t);
+    if (Number.isFinite(stepAmb)) this.lastAmbK = stepAmb;
+    const dtS = (t - this.cur) / 1000;
+    const tauS = this.ctx.tauS;
+    if (dtS > 0 || tauS === 0) {
+      this.step.dtS = Math.max(dtS, 0);
+      this.step.endK = this.lastAmbK;
+      this.accK = lagTempK(this.accK, this.step, tauS);
+    }
+    if (dtS > 0) this.amountMol = Math.max(this.amountMol - this.lossMolS * dtS, 1e-9);
+    this.cur = t;
+    return amb;
+  }
+
+  /** Grid hour: what-if reading of the trapped charge against the band at ambient; the trace. */
+  private gridHour(day: DayPlan, g: number): void {
+    const { ctx, out } = this;
+    const amb = this.advance(day, g);
+    out.accumulatorHours += ctx.count;
+    const inTrace = g >= this.traceFrom && g <= this.traceTo;
+    if (!(Number.isFinite(amb) || inTrace)) return;
+    const st = this.trapped(this.charged);
+    const reading = readingPct(ctx.geometry, st.gasVolumeM3);
+    const ambForBand = Number.isFinite(amb) ? amb : this.lastAmbK;
+    const low = bandAt(ctx.bandTable, ambForBand, "low");
+    const high = bandAt(ctx.bandTable, ambForBand, "high");
+    if (Number.isFinite(amb)) {
+      const idx = (day.month - 1) * 24 + localHourOf(day, g, this.inp.timeZone);
+      out.hourlyReadings[idx]!++;
+      if (reading < low || reading > high) out.hourlyOutOfBand[idx]!++;
+    }
+    if (inTrace) {
+      out.trace.push({
+        utcMs: g,
+        ambientC: ambForBand - K0,
+        accumulatorC: this.accK - K0,
+        gasKPaGauge: (st.gasPressureAbsPa - ctx.atmPa) / 1000,
+        readingPct: reading,
+        bandLowPct: low,
+        bandHighPct: high,
+      });
+    }
+  }
+
+  /** Start `si` of day `di` at `t`: the preflight first in the day, then discharge and recharge. */
+  private start(day: DayPlan, di: number, si: number, t: number): void {
+    const amb = this.advance(day, t);
+    const ambK = Number.isFinite(amb) ? amb : this.lastAmbK;
+    const counted = Number.isFinite(amb);
+    if (!counted) this.out.startsWithoutAmbient++;
+    const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.trapped(this.charged);
+    const { endM3, endAltM3 } = this.discharge(day, ambK, counted, st);
+    this.recharge(di, t, endM3, endAltM3);
+  }
+
+  /**
+   * The first start of a day: the reading against the band at ambient, the overnight drop since the
+   * last evening's recharge, and servicing (precharge check when due, out-of-band policy). Returns the
+   * trapped state the start discharges from.
+   */
+  private preflight(day: DayPlan, di: number, t: number, ambK: number, counted: boolean): TrappedState {
+    const { ctx, inp, out } = this;
+    const st = this.trapped(this.charged);
+    const reading = readingPct(ctx.geometry, st.gasVolumeM3);
+    const below = reading < bandAt(ctx.bandTable, ambK, "low");
+    const above = reading > bandAt(ctx.bandTable, ambK, "high");
+    const gasKPaGauge = (st.gasPressureAbsPa - ctx.atmPa) / 1000;
+    if (counted) {
+      const accumulatorC = this.accK - K0;
+      const [hour] = day.startHours;
+      out.preflights.push({
+        day: di,
+        month: day.month,
+        hour: hour!,
+        ambientC: ambK - K0,
+        accumulatorC,
+        gasKPaGauge,
+        readingPct: reading,
+        below,
+        above,
+      });
+      const last = this.lastRecharge;
+      if (last !== null && last.day === di - 1) {
+        out.drops.push({
+          month: day.month,
+          day: di,
+          tempC: last.accumulatorC - accumulatorC,
+          gasKPa: last.gasKPaGauge - gasKPaGauge,
+          readingPct: last.readingPct - reading,
+          rechargeUtcMs: last.utcMs,
+        });
+      }
+    }
+    const checkDue = di - this.lastCheckDay >= inp.prechargeCheckDays;
+    const policyDue = inp.policy === "adjust-precharge" && (below || above);
+    if (!(checkDue || policyDue)) return st;
+    if (checkDue) {
+      out.checks++;
+      this.lastCheckDay = di;
+    }
+    const gasAtV0AbsPa = ctx.model.pressurePa(this.amountMol / ctx.geometry.v0M3, this.accK);
+    const outOfTolerance =
+      gasAtV0AbsPa < prechargeLineAbsPa(ctx, ambK, ctx.lowMol) ||
+      gasAtV0AbsPa > prechargeLineAbsPa(ctx, ambK, ctx.highMol);
+    if (policyDue || outOfTolerance) this.service(ambK, di, t);
+    this.handPumpToSystem();
+    return this.trapped(this.charged);
+  }
+
+  /** Gas on the fluid-side stop at V0 and the lagged temperature, set to the precharge line at ambient. */
+  private service(ambK: number, day: number, t: number): void {
+    const { ctx, out } = this;
+    const targetAbs = prechargeLineAbsPa(ctx, ambK);
+    const targetMol = gasAmountMol(ctx.model, targetAbs, this.accK, ctx.geometry.v0M3);
+    if (targetMol > this.amountMol) {
+      out.nitrogen.push({
+        day,
+        utcMs: t,
+        fromMol: this.amountMol,
+        toMol: targetMol,
+        tempK: ambK,
+        units: ctx.count,
+      });
+    } else {
+      out.ventedMol += (this.amountMol - targetMol) * ctx.count;
+    }
+    this.amountMol = targetMol;
+    out.servicings++;
+  }
+
+  /** After servicing, the hand pump brings the fluid side to nominal system pressure (both configurations). */
+  private handPumpToSystem(): void {
+    const { ctx } = this;
+    const { geometry } = ctx;
+    const vGas = Math.max(
+      geometry.vminM3,
+      gasVolumeM3(ctx.model, this.amountMol, this.accK, ctx.systemNominalAbsPa),
+    );
+    this.out.handPumpStrokes += handPumpStrokes(
+      (geometry.v0M3 - Math.min(vGas, geometry.v0M3)) * ctx.count,
+      ctx.handPump.displacementM3,
+      ctx.handPump.efficiency,
+    );
+    this.charged = this.chargedAt(ctx.systemNominalAbsPa);
+    this.chargedAlt = this.charged;
+    this.altSame = true;
+  }
+
+  /** Per-unit discharge from a gas volume at the start: sets dischargeJ and dischargeEndM3. */
+  private dischargeUnit(gasVolM3: number): void {
+    const { ctx } = this;
+    const grid = ctx.dischargeGrid;
+    if (grid !== null) {
+      grid.lookup(this.amountMol, this.accK, gasVolM3, this.dischargeOut);
+      this.dischargeJ = this.dischargeOut[0]!;
+      this.dischargeEndM3 = this.dischargeOut[1]!;
+    } else {
+      const d = startDischarge(ctx.model, ctx.geometry, 1, this.amountMol, this.accK, gasVolM3, ctx.starter);
+      this.dischargeJ = d.hydraulicEnergyJ;
+      this.dischargeEndM3 = d.end.gasVolumeM3;
+    }
+  }
+
+  /**
+   * The start discharge of both configurations (n identical units deliver n times one unit's energy),
+   * recorded against the requirement at ambient when counted. Returns each one's end gas volume.
+   */
+  private discharge(
+    day: DayPlan,
+    ambK: number,
+    counted: boolean,
+    st: TrappedState,
+  ): { endM3: number; endAltM3: number } {
+    const { ctx } = this;
+    this.dischargeUnit(st.gasVolumeM3);
+    const energyJ = this.dischargeJ;
+    const endM3 = this.dischargeEndM3;
+    let energyAltJ = energyJ;
+    let endAltM3 = endM3;
+    if (!this.altSame) {
+      this.dischargeUnit(this.trapped(this.chargedAlt).gasVolumeM3);
+      energyAltJ = this.dischargeJ;
+      endAltM3 = this.dischargeEndM3;
+    }
+    if (counted) {
+      const oneJ = ctx.fitted ? energyAltJ : energyJ;
+      const optionUnitJ = ctx.fitted ? energyJ : energyAltJ;
+      this.out.starts.push({
+        month: day.month,
+        ambientC: ambK - K0,
+        energyOneJ: oneJ,
+        energyTwoJ: optionUnitJ * ctx.optionCount,
+        requiredJ: interpolateClamped(ctx.energyTable, ambK),
+      });
+    }
+    return { endM3, endAltM3 };
+  }
+
+  /** Recharge of both configurations within their timers, isothermal at the accumulator temperature; then trapped. */
+  private recharge(di: number, t: number, endM3: number, endAltM3: number): void {
+    const { ctx } = this;
+    const { model, geometry } = ctx;
+    const p = ctx.systemNominalAbsPa;
+    const r = recharge(model, geometry, ctx.count, this.amountMol, this.accK, endM3, p, ctx.pump);
+    this.charged = this.chargedAt(r.gasPressureAbsPa);
+    if (this.altSame && r.reachedSystem && (r.timeS * ctx.altCount) / ctx.count <= ctx.altPump.timerS) {
+      this.chargedAlt = this.charged;
+    } else {
+      const rAlt = recharge(
+        model,
+        geometry,
+        ctx.altCount,
+        this.amountMol,
+        this.accK,
+        endAltM3,
+        p,
+        ctx.altPump,
+      );
+      this.altSame = r.reachedSystem && rAlt.reachedSystem;
+      this.chargedAlt = this.altSame ? this.charged : this.chargedAt(rAlt.gasPressureAbsPa);
+    }
+    this.lastRecharge = {
+      day: di,
+      accumulatorC: this.accK - K0,
+      gasKPaGauge: (r.gasPressureAbsPa - ctx.atmPa) / 1000,
+      readingPct: readingPct(geometry, r.gasVolumeM3),
+      utcMs: t,
+    };
+  }
 }
