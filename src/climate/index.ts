@@ -1,6 +1,14 @@
 /** Climate ingestion: NOAA ISD files in, cleaned hourly temperature series out (product brief, §2 and §4). */
 export { cacheStats, fileHash, READER_VERSION, resetCacheStats } from "./cache.js";
 export {
+  type DailyRange,
+  dailyRanges,
+  type LocalClimatology,
+  localClimatology,
+  MIN_HOURS_FOR_DAILY_RANGE,
+  monthlyClimate,
+} from "./climatology.js";
+export {
   emptySeries,
   filledHours,
   fillGaps,
@@ -12,7 +20,7 @@ export {
   yearCompleteness,
 } from "./hourly.js";
 export { buildStations, climateOptions, listClimateFiles, loadClimate, readClimateFiles } from "./load.js";
-export { dailyRanges, hourlyOffsetsMin, monthlyClimate, timeZoneFor } from "./localTime.js";
+export { hourlyOffsetsMin, localDays, timeZoneFor } from "./localTime.js";
 export { TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "./qc.js";
 export { detectFormat, readClimateFile } from "./source.js";
 export { isoUtc, type StationSummary, stationCoverage, stationSummary } from "./summary.js";

@@ -2,8 +2,9 @@
  * Per-station figures of `coldsoak climate --json` (product brief, section 6): period, hours with a
  * value, filled hours, completeness, QC counts, extremes and the monthly local-time climatology.
  */
+
+import { monthlyClimate } from "./climatology.js";
 import { filledHours, presentHours } from "./hourly.js";
-import { monthlyClimate } from "./localTime.js";
 import { type Extremes, HOUR_MS, type MonthClimate, type QcCounts, type StationClimate } from "./types.js";
 
 export interface StationSummary {

@@ -173,23 +173,64 @@ export function readingBand(
 }
 
 /**
- * Accumulator temperature as a first-order lag behind ambient, updated exactly over a step:
- * T ← Ta + (T − Ta)·exp(−Δt/τ); τ = 0 gives Ta (product brief, section 3).
+ * The air around the accumulator over one time step. The ambient is held at its end-of-step value
+ * over the whole step; a start-of-step value (for an ambient changing linearly across the step) is the
+ * field this shape leaves room for.
  */
-export function lagTempK(tempK: number, ambientK: number, dtS: number, tauS: number): number {
-  requireNonNegative("dtS", dtS, "s");
-  requireNonNegative("tauS", tauS, "s");
-  if (tauS === 0) return ambientK;
-  return ambientK + (tempK - ambientK) * Math.exp(-dtS / tauS);
+export interface AmbientStep {
+  /** Length of the step, s (≥ 0). */
+  dtS: number;
+  /** Ambient temperature at the end of the step, K. */
+  endK: number;
 }
 
-/** Seconds in an average month (365.25 days / 12), the unit of the gas-loss rate. */
-export const SECONDS_PER_MONTH = (365.25 / 12) * 86400;
+/**
+ * Accumulator temperature after one step of a first-order lag behind the ambient (lumped
+ * capacitance), dT/dt = (Ta − T)/τ, solved exactly with Ta held over the step:
+ * T ← Ta + (T − Ta)·exp(−Δt/τ); τ = 0 gives Ta.
+ *
+ * @param tempK accumulator temperature at the start of the step, K
+ * @param step the step's length `dtS` (s) and its ambient `endK` (K)
+ * @param tauS thermal time constant τ, s (≥ 0)
+ * @returns accumulator temperature at the end of the step, K
+ *
+ * References: Incropera, F. P., DeWitt, D. P. et al., "Fundamentals of Heat and Mass Transfer",
+ * the lumped capacitance method (transient conduction); docs/methods.md, "Accumulator temperature".
+ *
+ * @example
+ * lagTempK(270, { dtS: 7200, endK: 280 }, 7200); // 280 − 10·e⁻¹ ≈ 276.32 K
+ */
+export function lagTempK(tempK: number, step: AmbientStep, tauS: number): number {
+  requireNonNegative("dtS", step.dtS, "s");
+  requireNonNegative("tauS", tauS, "s");
+  if (tauS === 0) return step.endK;
+  return step.endK + (tempK - step.endK) * Math.exp(-step.dtS / tauS);
+}
 
 /**
- * Slow gas loss (product brief, section 3): a precharge pressure drop per month, stated at the reference
- * temperature with the piston on the fluid-side stop, converted to an amount lost per second:
+ * Seconds in a mean Gregorian month, 365.2425 days / 12 (the Gregorian calendar's 146 097 days in
+ * 400 years): the month of every rate given "per month", in the plan file and in the physics.
+ */
+export const SECONDS_PER_MONTH = (365.2425 / 12) * 86400;
+
+/**
+ * Slow gas loss: a precharge pressure drop per month, stated at the reference temperature with the
+ * piston on the fluid-side stop, converted to an amount lost per second:
  * [ρ(P_ref, T_ref) − ρ(P_ref − ΔP, T_ref)]·V0 / month.
+ *
+ * @param model gas model (density from pressure and temperature)
+ * @param refAbsPa precharge reference pressure, Pa absolute
+ * @param refTempK reference temperature, K
+ * @param v0M3 gas volume on the fluid-side stop V0, m³
+ * @param lossPaPerMonth pressure drop per month at the reference, Pa (≥ 0, below refAbsPa)
+ * @returns amount lost per unit, mol/s
+ *
+ * References: Span, R. et al. (2000), "A reference equation of state for the thermodynamic properties
+ * of nitrogen ...", J. Phys. Chem. Ref. Data 29(6) (the density); docs/methods.md, "Slow gas loss".
+ *
+ * @example
+ * // Ideal gas, 10 psi a month at 1450 psig and 70 °F in 5 L: ΔP·V0/(R·T)/month
+ * gasLossMolPerS(idealGas, 10.099e6, 294.26, 5e-3, 68_948); // ≈ 5.36e-8 mol/s
  */
 export function gasLossMolPerS(
   model: GasModel,

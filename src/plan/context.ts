@@ -8,9 +8,11 @@ import {
   type BandInputs,
   type FluidProps,
   gasAmountMol,
+  gasLossMolPerS,
   type PumpSpec,
   prechargePressureAbsPa,
   readingBand,
+  SECONDS_PER_MONTH,
   type StarterSpec,
 } from "../physics/accumulator.js";
 import type { GasModel } from "../physics/nitrogen.js";
@@ -65,7 +67,7 @@ export interface ProfileContext {
   altPump: PumpSpec;
   handPump: { displacementM3: number; efficiency: number };
   tauS: number;
-  /** Nominal gas loss per unit, mol/s (the profile's pressure rate at the reference temperature and V0). */
+  /** Nominal gas loss per unit, mol/s (the profile's monthly pressure drop at the reference and V0). */
   gasLossMolS: number;
   /** Interpolated start discharges (null: exact physics at every start). */
   dischargeGrid: DischargeGrid | null;
@@ -123,14 +125,21 @@ export function bandInputsOf(profile: ProfileInput, atmPa: number): BandInputs {
   };
 }
 
+/** Options of `profileContext`. */
+export interface ContextOptions {
+  /** Exact physics at every start instead of the interpolated discharge grid. */
+  exactDischarge?: boolean;
+  /** A context of the same profile, gas model and atmospheric pressure whose tables are reused. */
+  tablesOf?: ProfileContext;
+}
+
 /** Builds the context of one profile at a base whose atmospheric pressure is atmPa. */
 export function profileContext(
   profile: ProfileInput,
   model: GasModel,
   atmPa: number,
   coldStartOption: boolean,
-  bandTableCache?: Map<string, BandTable>,
-  options: { exactDischarge?: boolean; gridCache?: Map<string, DischargeGrid> } = {},
+  options: ContextOptions = {},
 ): ProfileContext {
   const geometry = { v0M3: profile.accumulator.gasVolumeEmpty, vminM3: profile.accumulator.gasVolumeFull };
   const ref = profile.precharge.reference;
@@ -139,19 +148,8 @@ export function profileContext(
   const nominalMol = gasAmountMol(model, refAbs, ref.tempK, geometry.v0M3);
   const lowMol = gasAmountMol(model, Math.max(refAbs - tol, 1), ref.tempK, geometry.v0M3);
   const highMol = gasAmountMol(model, refAbs + tol, ref.tempK, geometry.v0M3);
-  // Gas loss: a pressure per second at the reference temperature, as an amount (central difference).
-  const dP = Math.min(1e5, refAbs / 10);
-  const molPerPa =
-    (gasAmountMol(model, refAbs + dP, ref.tempK, geometry.v0M3) -
-      gasAmountMol(model, refAbs - dP, ref.tempK, geometry.v0M3)) /
-    (2 * dP);
   const band = bandInputsOf(profile, atmPa);
-  const bandKey = `${profile.name}|${atmPa}|${model.kind}`;
-  let bandTable = bandTableCache?.get(bandKey);
-  if (bandTable === undefined) {
-    bandTable = buildBandTable(model, geometry, band);
-    bandTableCache?.set(bandKey, bandTable);
-  }
+  const bandTable = options.tablesOf?.bandTable ?? buildBandTable(model, geometry, band);
   const count = coldStartOption ? profile.coldStartOption.count : 1;
   const starter = {
     minUsefulAbsPa: absPa(profile.starter.minUsefulPressure, atmPa),
@@ -161,12 +159,9 @@ export function profileContext(
   const pumpCurve = profile.pump.curve.map((r) => ({ gaugePa: gaugePa(r.pressure, atmPa), flowM3S: r.flow }));
   const pumpOne: PumpSpec = { curve: pumpCurve, timerS: profile.pump.timer, atmPa };
   const pumpOption: PumpSpec = { curve: pumpCurve, timerS: profile.coldStartOption.timer, atmPa };
-  let grid: DischargeGrid | null = null;
-  if (!options.exactDischarge) {
-    const gridKey = `${bandKey}|grid`;
-    grid = options.gridCache?.get(gridKey) ?? dischargeGrid(model, geometry, starter, nominalMol);
-    options.gridCache?.set(gridKey, grid);
-  }
+  const grid = options.exactDischarge
+    ? null
+    : (options.tablesOf?.dischargeGrid ?? dischargeGrid(model, geometry, starter, nominalMol));
   return {
     name: profile.name,
     model,
@@ -194,7 +189,43 @@ export function profileContext(
     altPump: coldStartOption ? pumpOne : pumpOption,
     handPump: { displacementM3: profile.handPump.displacement, efficiency: profile.handPump.efficiency },
     tauS: profile.thermalTimeConstant,
-    gasLossMolS: profile.gasLoss.rate * molPerPa,
+    // The plan's rate is a pressure per second; the physics takes the month's drop at the reference.
+    gasLossMolS: gasLossMolPerS(
+      model,
+      refAbs,
+      ref.tempK,
+      geometry.v0M3,
+      profile.gasLoss.rate * SECONDS_PER_MONTH,
+    ),
     dischargeGrid: grid,
   };
+}
+
+/**
+ * The contexts of one run, each built once per profile, atmospheric pressure and cold-start option;
+ * the two option variants of a profile at one pressure share their band table and discharge grid.
+ */
+export class ProfileContexts {
+  private readonly built = new Map<
+    ProfileInput,
+    Map<number, [ProfileContext | null, ProfileContext | null]>
+  >();
+
+  constructor(private readonly model: GasModel) {}
+
+  get(profile: ProfileInput, atmPa: number, coldStartOption: boolean): ProfileContext {
+    const byAtm =
+      this.built.get(profile) ?? new Map<number, [ProfileContext | null, ProfileContext | null]>();
+    this.built.set(profile, byAtm);
+    const pair = byAtm.get(atmPa) ?? [null, null];
+    byAtm.set(atmPa, pair);
+    const slot = coldStartOption ? 1 : 0;
+    let ctx = pair[slot];
+    if (ctx === null) {
+      const other = pair[1 - slot];
+      ctx = profileContext(profile, this.model, atmPa, coldStartOption, other ? { tablesOf: other } : {});
+      pair[slot] = ctx;
+    }
+    return ctx;
+  }
 }

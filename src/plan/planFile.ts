@@ -3,6 +3,7 @@ import { type Document, isMap, LineCounter, parseDocument } from "yaml";
 import { z } from "zod";
 import { inputError } from "../errors.js";
 import { readInputText } from "../fsutil.js";
+import { SECONDS_PER_MONTH } from "../physics/accumulator.js";
 import {
   type PointPressure,
   parseClockMinutes,
@@ -135,6 +136,13 @@ const profileSchema = z
         code: "custom",
         path: ["precharge", "reference"],
         message: "expected the precharge plus its tolerance below the lowest system pressure",
+      });
+    }
+    if (!(p.gasLoss.rate * SECONDS_PER_MONTH < ref)) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["gasLoss", "rate"],
+        message: "expected a loss per month smaller than the reference precharge",
       });
     }
     if (!(g(p.starter.returnPressure) < g(p.starter.minUsefulPressure))) {

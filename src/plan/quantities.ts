@@ -13,6 +13,7 @@
  * Conversion factors are exact definitions (NIST SP 811, appendix B): psi = 6894.757293168 Pa,
  * in = 0.0254 m, lbf = 4.4482216152605 N, US gallon = 231 in³; °F → K by (F − 32)·5/9 + 273.15.
  */
+import { SECONDS_PER_MONTH } from "../physics/accumulator.js";
 import { KG_PER_LB, M3_PER_IN3, M3_PER_US_GALLON, PA_PER_PSI } from "../physics/units.js";
 
 /** Thrown for a malformed quantity; the plan reader adds file, line and YAML path. */
@@ -24,9 +25,7 @@ export const PSI_PA = PA_PER_PSI;
 export const IN3_M3 = M3_PER_IN3;
 const US_GALLON_M3 = M3_PER_US_GALLON;
 const FT_LBF_J = 0.3048 * 4.4482216152605;
-/** Average Gregorian month (365.2425 d / 12), used for loss rates given "per month". */
-export const MONTH_S = (365.2425 / 12) * 86400;
-const YEAR_S = 365.2425 * 86400;
+const YEAR_S = 12 * SECONDS_PER_MONTH;
 
 const NUMBER_RE = /^\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*$/;
 
@@ -145,7 +144,7 @@ const TIME_UNITS: Record<string, number> = {
   d: 86400,
   day: 86400,
   days: 86400,
-  month: MONTH_S,
+  month: SECONDS_PER_MONTH,
   year: YEAR_S,
 };
 const TIME_EXPECTED = 'a duration such as "90 s", "3 min", "2 h"';
@@ -280,5 +279,5 @@ export function formatExpansion(perK: number, units: OutputUnits): string {
   return units === "us" ? `${(perK / 1.8).toExponential(3)} /°F` : `${perK.toExponential(3)} /K`;
 }
 export function formatRate(paS: number, units: OutputUnits): string {
-  return `${formatPressureDiff(paS * MONTH_S, units)}/month`;
+  return `${formatPressureDiff(paS * SECONDS_PER_MONTH, units)}/month`;
 }

@@ -86,7 +86,7 @@ describe("hourly grid (product brief §4)", () => {
     const start = Date.UTC(2015, 0, 1, 6);
     const values = [...Array.from({ length: 24 }, (_, i) => i), ...Array.from({ length: 19 }, () => 5)];
     const r = dailyRanges(series(values, start), "America/Chicago");
-    expect(r).toEqual([{ localDate: "2015-01-01", rangeC: 23 }]);
+    expect(r).toEqual([{ localDate: "2015-01-01", month: 1, rangeC: 23 }]);
     const months = monthlyClimate(series(values, start), "America/Chicago");
     expect(months[0]).toMatchObject({ month: 1, minC: 0, maxC: 23, meanDailyRangeC: 23, p90DailyRangeC: 23 });
     expect(months[1]!.meanC).toBeNull();

@@ -305,9 +305,10 @@ describe("trapped charge", () => {
 
 describe("gas loss", () => {
   it("a pressure drop per month at the reference temperature becomes ΔP·V0/(R·T_ref) per month (ideal mode)", () => {
-    // Ideal gas law (textbook); month = 365.25/12 days (common practice, no source).
+    // Ideal gas law (textbook); month = 365.2425/12 days, the mean Gregorian month (146 097 days in
+    // 400 years, the Gregorian calendar).
     const rate = gasLossMolPerS(idealGas, psigToAbs(1450), fToK(70), 5e-3, psiToPa(10));
-    const expected = (psiToPa(10) * 5e-3) / (8.31451 * fToK(70)) / ((365.25 / 12) * 86400);
+    const expected = (psiToPa(10) * 5e-3) / (8.31451 * fToK(70)) / ((365.2425 / 12) * 86400);
     expect(rate / expected).toBeCloseTo(1, 9);
     expect(gasLossMolPerS(realGas, psigToAbs(1450), fToK(70), 5e-3, 0)).toBe(0);
     expect(() => gasLossMolPerS(realGas, psigToAbs(1450), fToK(70), 5e-3, -1)).toThrow(/lossPaPerMonth: -1/);
@@ -317,12 +318,13 @@ describe("gas loss", () => {
 describe("lagged temperature", () => {
   it("exact first-order update; τ = 0 follows ambient; one τ reaches 1 − e⁻¹ of a step", () => {
     // Brief, section 3: T ← Ta + (T − Ta)·exp(−Δt/τ); first-order step response (textbook).
-    expect(lagTempK(250, 280, 3600, 0)).toBe(280);
-    expect((lagTempK(270, 280, 7200, 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
+    expect(lagTempK(250, { dtS: 3600, endK: 280 }, 0)).toBe(280);
+    expect((lagTempK(270, { dtS: 7200, endK: 280 }, 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
     // Exactness: two half steps equal one whole step.
-    const half = lagTempK(lagTempK(300, 260, 1800, 5000), 260, 1800, 5000);
-    expect(half).toBeCloseTo(lagTempK(300, 260, 3600, 5000), 12);
-    expect(() => lagTempK(300, 260, 3600, -1)).toThrow(/tauS: -1/);
+    const halfStep = { dtS: 1800, endK: 260 };
+    const half = lagTempK(lagTempK(300, halfStep, 5000), halfStep, 5000);
+    expect(half).toBeCloseTo(lagTempK(300, { dtS: 3600, endK: 260 }, 5000), 12);
+    expect(() => lagTempK(300, { dtS: 3600, endK: 260 }, -1)).toThrow(/tauS: -1/);
   });
 });
 

@@ -52,14 +52,14 @@ describe("energy with one and with two accumulators (brief §1, §5)", () => {
       plan,
       climate.series,
       { arrive: "2027-01-01", depart: "2027-01-04", climateYear: 2014 },
-      { ctx: profileContext(plan.profiles[0]!, model, ATM, fitted, undefined, { exactDischarge: true }) },
+      { ctx: profileContext(plan.profiles[0]!, model, ATM, fitted, { exactDischarge: true }) },
     ).starts;
 
   it("two: the option's count × a fully recharged unit; one: the single unit the short timer leaves", () => {
     // Reference: the physics module's exact discharge (Span et al. 2000 isentropic) of one unit charged
     // to nominal system pressure at 5 °C; with the option's timer every recharge completes, so every
     // start with two units delivers twice that (brief §3: n units deliver n times one unit's energy).
-    const ctx = profileContext(plan.profiles[0]!, model, ATM, false, undefined, { exactDischarge: true });
+    const ctx = profileContext(plan.profiles[0]!, model, ATM, false, { exactDischarge: true });
     const tempK = 278.15;
     const full = chargedState(model, ctx.geometry, ctx.fluid, ctx.nominalMol, tempK, ctx.systemNominalAbsPa);
     const fullJ = startDischarge(

@@ -52,5 +52,9 @@ describe("plan file", () => {
     expect(errorOf(text.replace('gasVolumeFull: "60 in3"', 'gasVolumeFull: "400 in3"'))).toMatch(
       /gasVolumeFull: expected a gas volume at 100 % fill smaller/,
     );
+    // A loss of the whole 1450 psig reference in a month leaves nothing to convert (definition).
+    expect(errorOf(text.replace('rate: "5 psi/month"', 'rate: "1500 psi/month"'))).toMatch(
+      /^plan\.yaml:\d+:profiles\[0\]\.gasLoss\.rate: expected a loss per month smaller than the reference precharge$/,
+    );
   });
 });

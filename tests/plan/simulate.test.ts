@@ -90,7 +90,7 @@ describe("simulation physics identities", () => {
     expect(Math.abs((morning.gasKPaGauge * 1000) / PSI_PA - 2311.6)).toBeLessThanOrEqual(1);
     // The overnight drop is 3000 psig at the recharge minus the morning value (definition, brief §5).
     expect(out.drops).toHaveLength(1);
-    expect(Math.abs((out.drops[0]!.kPa * 1000) / PSI_PA - (3000 - 2311.6))).toBeLessThanOrEqual(1);
+    expect(Math.abs((out.drops[0]!.gasKPa * 1000) / PSI_PA - (3000 - 2311.6))).toBeLessThanOrEqual(1);
     expect(out.drops[0]!.tempC).toBeCloseTo(40, 9);
   });
 });

@@ -1,0 +1,105 @@
+/**
+ * The results.json contract (`results.ts`) assembled from the bases' results: the plan's settings, the
+ * profiles' precharge lines and reading bands at the standard atmosphere, the stays, assumptions,
+ * methods, the random inputs drawn from the seed, and the warnings of the run.
+ */
+import { STANDARD_ATMOSPHERE_PA } from "../physics/units.js";
+import { TOOL_VERSION } from "../version.js";
+import { assumptionsOf } from "./assumptions.js";
+import { bandCurves } from "./bandCurves.js";
+import { METHODS } from "./methods.js";
+import type { Plan } from "./planFile.js";
+import type { BaseResult, ProfileResult, Results } from "./results.js";
+import { gasLossDraws } from "./samples.js";
+import type { Stay } from "./schedule.js";
+import { QUANTILE_METHOD } from "./stats.js";
+
+const K0 = 273.15;
+const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
+
+/** Temperatures of the profiles' curves: −50 °C to 60 °C in steps of 2 K. */
+function curveTempsK(): number[] {
+  const out: number[] = [];
+  for (let c = -50; c <= 60; c += 2) out.push(c + K0);
+  return out;
+}
+
+/** Each profile's precharge lines and reading band against temperature, at the standard atmosphere. */
+function profileCurves(plan: Plan): ProfileResult[] {
+  const temps = curveTempsK();
+  return plan.profiles.map((pr) => {
+    const rows = bandCurves(pr, temps, STANDARD_ATMOSPHERE_PA);
+    return {
+      name: pr.name,
+      prechargeLine: rows.map((r) => ({
+        tempC: r.tempC,
+        prechargeKPaGauge: r.prechargeKPaGauge,
+        prechargeLowKPaGauge: r.prechargeLowKPaGauge,
+        prechargeHighKPaGauge: r.prechargeHighKPaGauge,
+        idealPrechargeKPaGauge: r.idealPrechargeKPaGauge,
+      })),
+      band: rows.map((r) => ({
+        tempC: r.tempC,
+        readingLowPct: r.readingLowPct,
+        readingNominalPct: r.readingNominalPct,
+        readingHighPct: r.readingHighPct,
+        idealReadingNominalPct: r.idealReadingNominalPct,
+      })),
+    };
+  });
+}
+
+/** What was drawn from the seed, said in words for the report's back matter. */
+function randomInputs(plan: Plan, stays: Stay[], weekdays: number[]): Results["randomInputs"] {
+  const drawn = gasLossDraws(plan, stays)
+    .map((d) => `${d.aircraft} / ${d.profile} × ${d.factor.toFixed(3)}`)
+    .join("; ");
+  const out = [
+    {
+      name: "gas-loss rate per aircraft",
+      description:
+        "Log-normal multiplier of the profile's nominal rate, median 1, standard deviation of its logarithm = the profile's gas-loss spread; drawn per aircraft from the seed (SplitMix32 stream keyed by the aircraft id, Box–Muller normal). Drawn multipliers: " +
+        (drawn || "none"),
+    },
+  ];
+  if (typeof plan.operations.weekdays === "number") {
+    out.push({
+      name: "weekdays flown",
+      description: `${plan.operations.weekdays} of 7 weekdays drawn from the seed (Fisher–Yates shuffle): ${weekdays.map((d) => WEEKDAY_NAMES[d - 1]).join(", ")}`,
+    });
+  }
+  return out;
+}
+
+/** The whole results of a run. */
+export function assembleResults(
+  plan: Plan,
+  stays: Stay[],
+  weekdays: number[],
+  bases: BaseResult[],
+  warnings: string[],
+): Results {
+  return {
+    plan: plan.name,
+    generatedBy: `coldsoak ${TOOL_VERSION}`,
+    units: plan.units,
+    seed: plan.seed,
+    climateYears: [...new Set(bases.flatMap((b) => b.yearsUsed))].sort((a, b) => a - b),
+    quantileMethod: QUANTILE_METHOD,
+    thresholds: { shortPct: plan.thresholds.shortStartsPct },
+    profiles: profileCurves(plan),
+    bases,
+    stays: stays.map((s) => ({
+      aircraft: s.aircraft,
+      base: s.base,
+      arrive: s.arrive,
+      depart: s.depart,
+      profile: s.profile,
+      coldStartOption: s.coldStartOption,
+    })),
+    assumptions: assumptionsOf(plan, weekdays),
+    methods: METHODS,
+    randomInputs: randomInputs(plan, stays, weekdays),
+    warnings,
+  };
+}

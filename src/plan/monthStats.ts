@@ -1,0 +1,240 @@
+/**
+ * Statistics of one base, pooled over its climate years (docs/methods.md, "Statistics"): by local
+ * month the preflight shares below and above band, the morning gauge pressure and reading, the starts
+ * short of energy with one and with two accumulators and their energy margins, the overnight drops
+ * and the daily range over the days the stays cover; the cold-start advice; the out-of-band share by
+ * local hour of day; the coldest morning of each year and its 1-in-10-year value (Gumbel, method of
+ * moments); the monthly climate of the whole record.
+ */
+import { localClimatology } from "../climate/index.js";
+import type { Plan } from "./planFile.js";
+import type { AdviceRow, BaseResult, HourRow, MonthRow } from "./results.js";
+import type { BaseSamples } from "./samples.js";
+import type { BaseOutcomes } from "./simulateSamples.js";
+import { gumbelMinimumReturnLevel, mean, pct, quantile } from "./stats.js";
+
+const RETURN_PERIOD_YEARS = 10;
+/** Width of a bin of the daily-range histogram, °C. */
+const HISTOGRAM_BIN_C = 2;
+
+/** What one local month of a base gathers over its stays and years. */
+interface MonthTally {
+  preflights: number;
+  below: number;
+  above: number;
+  gasKPaGauge: number[];
+  readingPct: number[];
+  starts: number;
+  shortOne: number;
+  shortTwo: number;
+  marginOnePct: number[];
+  marginTwoPct: number[];
+  dropTempC: number[];
+  dropKPa: number[];
+  dropReadingPct: number[];
+}
+
+interface BaseTally {
+  /** Index 1–12: local month. */
+  months: MonthTally[];
+  /** Hourly what-if readings and those out of band, by local hour of day. */
+  hourReadings: number[];
+  hourOutOfBand: number[];
+  /** Coldest preflight ambient of each usable year (index as the base's years), °C. */
+  coldestC: (number | undefined)[];
+  startsWithoutAmbient: number;
+}
+
+function emptyMonth(): MonthTally {
+  return {
+    preflights: 0,
+    below: 0,
+    above: 0,
+    gasKPaGauge: [],
+    readingPct: [],
+    starts: 0,
+    shortOne: 0,
+    shortTwo: 0,
+    marginOnePct: [],
+    marginTwoPct: [],
+    dropTempC: [],
+    dropKPa: [],
+    dropReadingPct: [],
+  };
+}
+
+/** Every stay's records on every year, stay by stay in schedule order (each stay counts once). */
+function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
+  const t: BaseTally = {
+    months: Array.from({ length: 13 }, emptyMonth),
+    hourReadings: new Array<number>(24).fill(0),
+    hourOutOfBand: new Array<number>(24).fill(0),
+    coldestC: base.years.map(() => undefined),
+    startsWithoutAmbient: 0,
+  };
+  for (const gi of base.groupOfStay) {
+    for (let yi = 0; yi < base.years.length; yi++) {
+      const o = outcomes[yi]![gi]!;
+      t.startsWithoutAmbient += o.startsWithoutAmbient;
+      for (const r of o.preflights) {
+        const a = t.months[r.month]!;
+        a.preflights++;
+        if (r.below) a.below++;
+        if (r.above) a.above++;
+        a.gasKPaGauge.push(r.gasKPaGauge);
+        a.readingPct.push(r.readingPct);
+        const c = t.coldestC[yi];
+        if (c === undefined || r.ambientC < c) t.coldestC[yi] = r.ambientC;
+      }
+      for (const r of o.starts) {
+        const a = t.months[r.month]!;
+        a.starts++;
+        if (r.energyOneJ < r.requiredJ) a.shortOne++;
+        if (r.energyTwoJ < r.requiredJ) a.shortTwo++;
+        a.marginOnePct.push((100 * (r.energyOneJ - r.requiredJ)) / r.requiredJ);
+        a.marginTwoPct.push((100 * (r.energyTwoJ - r.requiredJ)) / r.requiredJ);
+      }
+      for (const d of o.drops) {
+        const a = t.months[d.month]!;
+        a.dropTempC.push(d.tempC);
+        a.dropKPa.push(d.gasKPa);
+        a.dropReadingPct.push(d.readingPct);
+      }
+      for (let i = 0; i < 12 * 24; i++) {
+        t.hourReadings[i % 24]! += o.hourlyReadings[i]!;
+        t.hourOutOfBand[i % 24]! += o.hourlyOutOfBand[i]!;
+      }
+    }
+  }
+  return t;
+}
+
+const q = (v: number[], p: number): number | null => (v.length > 0 ? quantile(v, p) : null);
+
+/** One month's row; the daily range only in months with preflights. */
+function monthRow(month: number, a: MonthTally, dailyRangesC: number[]): MonthRow {
+  const has = a.preflights > 0;
+  return {
+    month,
+    preflights: a.preflights,
+    belowBandPct: has ? pct(a.below, a.preflights) : null,
+    aboveBandPct: has ? pct(a.above, a.preflights) : null,
+    shortPctOne: pct(a.shortOne, a.starts),
+    shortPctTwo: pct(a.shortTwo, a.starts),
+    morningKPaGaugeP10: q(a.gasKPaGauge, 0.1),
+    morningKPaGaugeP50: q(a.gasKPaGauge, 0.5),
+    morningKPaGaugeP90: q(a.gasKPaGauge, 0.9),
+    morningReadingPctP10: q(a.readingPct, 0.1),
+    morningReadingPctP50: q(a.readingPct, 0.5),
+    morningReadingPctP90: q(a.readingPct, 0.9),
+    overnightDropTempMeanC: mean(a.dropTempC),
+    overnightDropTempP90C: q(a.dropTempC, 0.9),
+    overnightDropKPaMean: mean(a.dropKPa),
+    overnightDropKPaP90: q(a.dropKPa, 0.9),
+    overnightDropReadingMeanPct: mean(a.dropReadingPct),
+    overnightDropReadingP90Pct: q(a.dropReadingPct, 0.9),
+    dailyRangeMeanC: has ? mean(dailyRangesC) : null,
+    dailyRangeP90C: has ? q(dailyRangesC, 0.9) : null,
+    starts: a.starts,
+    energyMarginOneP10Pct: q(a.marginOnePct, 0.1),
+    energyMarginOneP50Pct: q(a.marginOnePct, 0.5),
+    energyMarginTwoP10Pct: q(a.marginTwoPct, 0.1),
+    energyMarginTwoP50Pct: q(a.marginTwoPct, 0.5),
+  };
+}
+
+/** The advice of every month with starts: fit the option where one accumulator falls short too often. */
+function adviceRows(plan: Plan, months: MonthRow[]): AdviceRow[] {
+  return months
+    .filter((m) => m.starts > 0)
+    .map((m) => ({
+      month: m.month,
+      fitColdStartOption: m.shortPctOne! > plan.thresholds.shortStartsPct,
+      shortPctOne: m.shortPctOne,
+      shortPctTwo: m.shortPctTwo,
+      improvementPct: m.shortPctOne! - m.shortPctTwo!,
+    }));
+}
+
+/**
+ * Daily ranges of the local days the stays' windows cover on the years used (each climate day once),
+ * so they describe the same days as the preflights: by local month (index 1–12) and all together.
+ */
+function windowDailyRanges(
+  base: BaseSamples,
+  ranges: { localDate: string; month: number; rangeC: number }[],
+): { byMonth: number[][]; all: number[] } {
+  const windowDays = new Set<string>();
+  for (const yearDays of base.days)
+    for (const days of yearDays) for (const d of days) windowDays.add(d.climateIso);
+  const byMonth = Array.from({ length: 13 }, () => [] as number[]);
+  const all: number[] = [];
+  for (const r of ranges) {
+    if (!windowDays.has(r.localDate)) continue;
+    byMonth[r.month]!.push(r.rangeC);
+    all.push(r.rangeC);
+  }
+  return { byMonth, all };
+}
+
+function histogram(rangesC: number[]): BaseResult["dailyRangeHistogram"] {
+  const out: BaseResult["dailyRangeHistogram"] = [];
+  if (rangesC.length === 0) return out;
+  const top = Math.max(...rangesC);
+  for (let lo = 0; lo <= top; lo += HISTOGRAM_BIN_C) {
+    const hi = lo + HISTOGRAM_BIN_C;
+    out.push({ lowC: lo, highC: hi, days: rangesC.filter((r) => r >= lo && r < hi).length });
+  }
+  return out;
+}
+
+export type BaseStatistics = Pick<
+  BaseResult,
+  | "climateMonths"
+  | "dailyRangeHistogram"
+  | "months"
+  | "outOfBandByHour"
+  | "coldestMorningC"
+  | "coldestMorningByYear"
+  | "coldest1in10C"
+  | "advice"
+>;
+
+/** The statistics of one base from its outcomes; a warning counts starts without temperature data. */
+export function baseStatistics(
+  plan: Plan,
+  base: BaseSamples,
+  outcomes: BaseOutcomes,
+  warnings: string[],
+): BaseStatistics {
+  const t = tallyOutcomes(base, outcomes);
+  if (t.startsWithoutAmbient > 0) {
+    warnings.push(
+      `base "${plan.bases[base.baseIndex]!.name}": ${t.startsWithoutAmbient} starts fell in hours without temperature data and are not counted`,
+    );
+  }
+  const climatology = localClimatology(base.climate.series, base.climate.timeZone);
+  const ranges = windowDailyRanges(base, climatology.dailyRanges);
+  const months: MonthRow[] = [];
+  for (let m = 1; m <= 12; m++) months.push(monthRow(m, t.months[m]!, ranges.byMonth[m]!));
+  const outOfBandByHour: HourRow[] = t.hourReadings.map((n, hour) => ({
+    hour,
+    preflights: n,
+    outOfBandPct: pct(t.hourOutOfBand[hour]!, n),
+  }));
+  const coldestMorningByYear = base.years.flatMap((year, yi) => {
+    const tempC = t.coldestC[yi];
+    return tempC === undefined ? [] : [{ year, tempC }];
+  });
+  const minima = coldestMorningByYear.map((c) => c.tempC);
+  return {
+    climateMonths: climatology.months,
+    dailyRangeHistogram: histogram(ranges.all),
+    months,
+    outOfBandByHour,
+    coldestMorningC: minima.length > 0 ? Math.min(...minima) : null,
+    coldestMorningByYear,
+    coldest1in10C: gumbelMinimumReturnLevel(minima, RETURN_PERIOD_YEARS),
+    advice: adviceRows(plan, months),
+  };
+}

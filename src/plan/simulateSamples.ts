@@ -1,0 +1,87 @@
+/**
+ * Simulating the samples: every group of identical stays of a base on every usable climate year, hour
+ * by hour (`simulate.ts`), with one gas table and one set of profile contexts for the whole run, and
+ * the run's counters for the benchmark and the progress bar.
+ */
+import { tabulatedGas } from "../physics/gasTable.js";
+import type { GasModel } from "../physics/nitrogen.js";
+import { realGas } from "../physics/nitrogen.js";
+import { ProfileContexts } from "./context.js";
+import type { Plan } from "./planFile.js";
+import type { BaseSamples } from "./samples.js";
+import { type SimInputs, type SimOutcome, simulateStayYear } from "./simulate.js";
+
+export interface RunOptions {
+  /** Called after each simulated stay-year: done of total. */
+  onProgress?: (done: number, total: number) => void;
+}
+
+/** Figures of a run for the benchmark and the terminal (not part of results.json). */
+export interface RunStats {
+  accumulatorHours: number;
+  stayYearsSimulated: number;
+  /** Seconds spent in the hour-by-hour loop (simulateStayYear) alone. */
+  simulationS: number;
+}
+
+/** What every simulation of one run shares. */
+export interface Simulator {
+  plan: Plan;
+  /** The interpolation table of the reference nitrogen equation used in the hot loop. */
+  model: GasModel;
+  contexts: ProfileContexts;
+  stats: RunStats;
+  /** Stay-years to simulate in the whole run, for the progress callback. */
+  total: number;
+  onProgress: RunOptions["onProgress"];
+}
+
+/** The outcome of each group on each usable year of a base: `outcomes[yearIndex][groupIndex]`. */
+export type BaseOutcomes = SimOutcome[][];
+
+export function simulator(plan: Plan, samples: BaseSamples[], opts: RunOptions): Simulator {
+  const model = tabulatedGas(realGas);
+  return {
+    plan,
+    model,
+    contexts: new ProfileContexts(model),
+    stats: { accumulatorHours: 0, stayYearsSimulated: 0, simulationS: 0 },
+    total: samples.reduce((n, b) => n + b.groups.length * b.years.length, 0),
+    onProgress: opts.onProgress,
+  };
+}
+
+/** Inputs of the simulation of group `gi` of a base on its usable year `yi`. */
+export function sampleInputs(sim: Simulator, base: BaseSamples, gi: number, yi: number): SimInputs {
+  const { plan } = sim;
+  const g = base.groups[gi]!;
+  const hangar = plan.bases[base.baseIndex]!.hangar;
+  return {
+    ctx: sim.contexts.get(plan.profiles[g.profileIndex]!, base.climate.atmPa, g.coldStartOption),
+    series: base.climate.series,
+    timeZone: base.climate.timeZone,
+    days: base.days[yi]![gi]!,
+    gasLossFactor: g.gasLossFactor,
+    hangarTempK: hangar ? hangar.temperature : null,
+    prechargeCheckDays: plan.operations.prechargeCheckDays,
+    policy: plan.operations.outOfBand,
+  };
+}
+
+/** Simulates every group of a base on every usable year, group by group. */
+export function simulateBase(sim: Simulator, base: BaseSamples): BaseOutcomes {
+  const outcomes: BaseOutcomes = base.years.map(() => []);
+  for (let gi = 0; gi < base.groups.length; gi++) {
+    for (let yi = 0; yi < base.years.length; yi++) {
+      const inputs = sampleInputs(sim, base, gi, yi);
+      const t0 = performance.now();
+      const o = simulateStayYear(inputs);
+      sim.stats.simulationS += (performance.now() - t0) / 1000;
+      outcomes[yi]![gi] = o;
+      sim.stats.accumulatorHours += o.accumulatorHours;
+      sim.stats.stayYearsSimulated++;
+      sim.onProgress?.(sim.stats.stayYearsSimulated, sim.total);
+    }
+  }
+  return outcomes;
+}

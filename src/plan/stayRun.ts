@@ -1,0 +1,409 @@
+/**
+ * One stay on one climate year as a small state object: accumulator temperature, gas amount, the
+ * trapped charge of both configurations, and the steps that advance them (advance, grid hour, start,
+ * preflight, service, discharge, recharge). What happens when is described in `simulate.ts`.
+ */
+import { tempAtUtcMs } from "../climate/hourly.js";
+import type { HourlySeries } from "../climate/types.js";
+import {
+  type AmbientStep,
+  type ChargedState,
+  chargedState,
+  gasAmountMol,
+  gasVolumeM3,
+  handPumpStrokes,
+  interpolateClamped,
+  lagTempK,
+  readingPct,
+  recharge,
+  startDischarge,
+  type TrappedState,
+  trappedState,
+} from "../physics/accumulator.js";
+import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
+import { type DayPlan, HOUR_MS, localHourOf } from "./days.js";
+import type { SimInputs, SimOutcome } from "./simulate.js";
+
+const K0 = 273.15;
+
+function inHangarAt(day: DayPlan, utcMs: number): boolean {
+  for (const [a, b] of day.hangar) if (utcMs >= a && utcMs < b) return true;
+  return false;
+}
+
+/** Outdoor temperature (K) at an instant, linear between grid hours (the climate module's rule); NaN where missing. */
+function outdoorK(series: HourlySeries, utcMs: number): number {
+  return tempAtUtcMs(series, utcMs) + K0;
+}
+
+/** Ambient temperature (K) at an instant: the outdoor temperature, or the hangar's while inside. */
+function ambientK(inp: SimInputs, day: DayPlan, utcMs: number): number {
+  if (inp.hangarTempK !== null && inHangarAt(day, utcMs)) return inp.hangarTempK;
+  return outdoorK(inp.series, utcMs);
+}
+
+/** The last recharge of a day: what the next morning's overnight drop is measured from. */
+interface RechargeMark {
+  day: number;
+  accumulatorC: number;
+  gasKPaGauge: number;
+  readingPct: number;
+  utcMs: number;
+}
+
+export function emptyOutcome(): SimOutcome {
+  return {
+    preflights: [],
+    starts: [],
+    drops: [],
+    hourlyReadings: new Int32Array(12 * 24),
+    hourlyOutOfBand: new Int32Array(12 * 24),
+    nitrogen: [],
+    ventedMol: 0,
+    servicings: 0,
+    checks: 0,
+    handPumpStrokes: 0,
+    startsWithoutAmbient: 0,
+    accumulatorHours: 0,
+    trace: [],
+  };
+}
+
+/** The state of one stay on one climate year, advanced event by event through its days. */
+export class StayRun {
+  readonly out = emptyOutcome();
+  private readonly ctx: ProfileContext;
+  /** Gas loss of this aircraft, mol/s per unit. */
+  private readonly lossMolS: number;
+  /** The step the lag advances over (one object reused in the hot loop). */
+  private readonly step: AmbientStep = { dtS: 0, endK: 0 };
+  private readonly dischargeOut = new Float64Array(2);
+  private readonly traceFrom: number;
+  private readonly traceTo: number;
+  /** Instant the state stands at, UTC ms. */
+  private cur: number;
+  /** Last known ambient, K (held through missing hours). */
+  private lastAmbK: number;
+  /** Accumulator (lagged) temperature, K. */
+  private accK: number;
+  /** Gas amount per unit, mol. */
+  private amountMol: number;
+  private charged: ChargedState;
+  /** The other configuration's charge (see the header); equal to `charged` while altSame. */
+  private chargedAlt: ChargedState;
+  private altSame = true;
+  private lastCheckDay = 0;
+  private lastRecharge: RechargeMark | null = null;
+  private prevDay: DayPlan | null = null;
+  /** Per-unit discharge of the last `discharge` call: energy, J, and end gas volume, m³. */
+  private dischargeJ = 0;
+  private dischargeEndM3 = 0;
+
+  constructor(private readonly inp: SimInputs) {
+    const ctx = inp.ctx;
+    const days = inp.days;
+    this.ctx = ctx;
+    this.lossMolS = ctx.gasLossMolS * inp.gasLossFactor;
+    this.traceFrom = inp.trace?.fromUtcMs ?? Number.POSITIVE_INFINITY;
+    this.traceTo = inp.trace ? this.traceFrom + inp.trace.hours * HOUR_MS : Number.NEGATIVE_INFINITY;
+    // Initial state: serviced on arrival, charged at nominal system pressure at the first known ambient.
+    this.cur = days[0]!.midnightUtcMs;
+    let ambK = ambientK(inp, days[0]!, this.cur);
+    for (let k = 1; !Number.isFinite(ambK) && k < 24 * days.length; k++) {
+      ambK = ambientK(inp, days[Math.min(days.length - 1, Math.floor(k / 24))]!, this.cur + k * HOUR_MS);
+    }
+    this.lastAmbK = Number.isFinite(ambK) ? ambK : ctx.refTempK;
+    this.accK = this.lastAmbK;
+    this.amountMol = ctx.nominalMol;
+    this.charged = this.chargedAt(ctx.systemNominalAbsPa);
+    this.chargedAlt = this.charged;
+  }
+
+  /** The charged state of the current gas amount and temperature at a gas pressure. */
+  private chargedAt(gasPressureAbsPa: number): ChargedState {
+    const { model, geometry, fluid } = this.ctx;
+    return chargedState(model, geometry, fluid, this.amountMol, this.accK, gasPressureAbsPa);
+  }
+
+  /** The trapped state of a charge now. */
+  private trapped(charge: ChargedState): TrappedState {
+    const { model, geometry, fluid } = this.ctx;
+    return trappedState(model, geometry, fluid, charge, this.accK, this.amountMol);
+  }
+
+  /** Day `di`: its grid hours, hangar boundaries and starts in time order. */
+  day(di: number): void {
+    const day = this.inp.days[di]!;
+    this.prevDay = di > 0 ? this.inp.days[di - 1]! : null;
+    // A 29 February fold or a skipped leap day breaks the calendar: the state carries over as it is.
+    if (this.prevDay !== null && this.prevDay.nextMidnightUtcMs !== day.midnightUtcMs)
+      this.cur = day.midnightUtcMs;
+    let si = 0;
+    let g = Math.ceil(day.midnightUtcMs / HOUR_MS) * HOUR_MS;
+    const breaks = day.hangar
+      .flat()
+      .filter((b) => b % HOUR_MS !== 0 && b > day.midnightUtcMs && b < day.nextMidnightUtcMs)
+      .sort((a, b) => a - b);
+    let hb = 0;
+    for (;;) {
+      const nextStart = si < day.startsUtcMs.length ? day.startsUtcMs[si]! : Number.POSITIVE_INFINITY;
+      const nextGrid = g < day.nextMidnightUtcMs ? g : Number.POSITIVE_INFINITY;
+      // A hangar boundary between grid hours ends a step there (no reading is taken).
+      while (hb < breaks.length && breaks[hb]! <= this.cur) hb++;
+      const nextBreak = hb < breaks.length ? breaks[hb]! : Number.POSITIVE_INFINITY;
+      if (nextBreak < nextGrid && nextBreak < nextStart) {
+        this.advance(day, nextBreak);
+        hb++;
+      } else if (nextStart === Number.POSITIVE_INFINITY && nextGrid === Number.POSITIVE_INFINITY) {
+        break;
+      } else if (nextGrid <= nextStart) {
+        this.gridHour(day, nextGrid);
+        g += HOUR_MS;
+      } else {
+        this.start(day, di, si, nextStart);
+        si++;
+      }
+    }
+  }
+
+  /**
+   * Advances lag and gas loss from `cur` to `t` with the ambient at `t` (the hangar's when the step's
+   * midpoint is in the hangar; steps never straddle a hangar boundary). Returns the ambient a
+   * technician reads at `t` (NaN if missing).
+   */
+  private advance(day: DayPlan, t: number): number {
+    const { inp, prevDay } = this;
+    const amb = ambientK(inp, day, t);
+    const mid = (this.cur + t) / 2;
+    const inHangar =
+      inp.hangarTempK !== null && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
+    const stepAmb = inHangar ? inp.hangarTempK! : outdoorK(inp.series, t);
+    if (Number.isFinite(stepAmb)) this.lastAmbK = stepAmb;
+    const dtS = (t - this.cur) / 1000;
+    const tauS = this.ctx.tauS;
+    if (dtS > 0 || tauS === 0) {
+      this.step.dtS = Math.max(dtS, 0);
+      this.step.endK = this.lastAmbK;
+      this.accK = lagTempK(this.accK, this.step, tauS);
+    }
+    if (dtS > 0) this.amountMol = Math.max(this.amountMol - this.lossMolS * dtS, 1e-9);
+    this.cur = t;
+    return amb;
+  }
+
+  /** Grid hour: what-if reading of the trapped charge against the band at ambient; the trace. */
+  private gridHour(day: DayPlan, g: number): void {
+    const { ctx, out } = this;
+    const amb = this.advance(day, g);
+    out.accumulatorHours += ctx.count;
+    const inTrace = g >= this.traceFrom && g <= this.traceTo;
+    if (!(Number.isFinite(amb) || inTrace)) return;
+    const st = this.trapped(this.charged);
+    const reading = readingPct(ctx.geometry, st.gasVolumeM3);
+    const ambForBand = Number.isFinite(amb) ? amb : this.lastAmbK;
+    const low = bandAt(ctx.bandTable, ambForBand, "low");
+    const high = bandAt(ctx.bandTable, ambForBand, "high");
+    if (Number.isFinite(amb)) {
+      const idx = (day.month - 1) * 24 + localHourOf(day, g, this.inp.timeZone);
+      out.hourlyReadings[idx]!++;
+      if (reading < low || reading > high) out.hourlyOutOfBand[idx]!++;
+    }
+    if (inTrace) {
+      out.trace.push({
+        utcMs: g,
+        ambientC: ambForBand - K0,
+        accumulatorC: this.accK - K0,
+        gasKPaGauge: (st.gasPressureAbsPa - ctx.atmPa) / 1000,
+        readingPct: reading,
+        bandLowPct: low,
+        bandHighPct: high,
+      });
+    }
+  }
+
+  /** Start `si` of day `di` at `t`: the preflight first in the day, then discharge and recharge. */
+  private start(day: DayPlan, di: number, si: number, t: number): void {
+    const amb = this.advance(day, t);
+    const ambK = Number.isFinite(amb) ? amb : this.lastAmbK;
+    const counted = Number.isFinite(amb);
+    if (!counted) this.out.startsWithoutAmbient++;
+    const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.trapped(this.charged);
+    const { endM3, endAltM3 } = this.discharge(day, ambK, counted, st);
+    this.recharge(di, t, endM3, endAltM3);
+  }
+
+  /**
+   * The first start of a day: the reading against the band at ambient, the overnight drop since the
+   * last evening's recharge, and servicing (precharge check when due, out-of-band policy). Returns the
+   * trapped state the start discharges from.
+   */
+  private preflight(day: DayPlan, di: number, t: number, ambK: number, counted: boolean): TrappedState {
+    const { ctx, inp, out } = this;
+    const st = this.trapped(this.charged);
+    const reading = readingPct(ctx.geometry, st.gasVolumeM3);
+    const below = reading < bandAt(ctx.bandTable, ambK, "low");
+    const above = reading > bandAt(ctx.bandTable, ambK, "high");
+    const gasKPaGauge = (st.gasPressureAbsPa - ctx.atmPa) / 1000;
+    if (counted) {
+      const accumulatorC = this.accK - K0;
+      const [hour] = day.startHours;
+      out.preflights.push({
+        day: di,
+        month: day.month,
+        hour: hour!,
+        ambientC: ambK - K0,
+        accumulatorC,
+        gasKPaGauge,
+        readingPct: reading,
+        below,
+        above,
+      });
+      const last = this.lastRecharge;
+      if (last !== null && last.day === di - 1) {
+        out.drops.push({
+          month: day.month,
+          day: di,
+          tempC: last.accumulatorC - accumulatorC,
+          gasKPa: last.gasKPaGauge - gasKPaGauge,
+          readingPct: last.readingPct - reading,
+          rechargeUtcMs: last.utcMs,
+        });
+      }
+    }
+    const checkDue = di - this.lastCheckDay >= inp.prechargeCheckDays;
+    const policyDue = inp.policy === "adjust-precharge" && (below || above);
+    if (!(checkDue || policyDue)) return st;
+    if (checkDue) {
+      out.checks++;
+      this.lastCheckDay = di;
+    }
+    const gasAtV0AbsPa = ctx.model.pressurePa(this.amountMol / ctx.geometry.v0M3, this.accK);
+    const outOfTolerance =
+      gasAtV0AbsPa < prechargeLineAbsPa(ctx, ambK, ctx.lowMol) ||
+      gasAtV0AbsPa > prechargeLineAbsPa(ctx, ambK, ctx.highMol);
+    if (policyDue || outOfTolerance) this.service(ambK, di, t);
+    this.handPumpToSystem();
+    return this.trapped(this.charged);
+  }
+
+  /** Gas on the fluid-side stop at V0 and the lagged temperature, set to the precharge line at ambient. */
+  private service(ambK: number, day: number, t: number): void {
+    const { ctx, out } = this;
+    const targetAbs = prechargeLineAbsPa(ctx, ambK);
+    const targetMol = gasAmountMol(ctx.model, targetAbs, this.accK, ctx.geometry.v0M3);
+    if (targetMol > this.amountMol) {
+      out.nitrogen.push({
+        day,
+        utcMs: t,
+        fromMol: this.amountMol,
+        toMol: targetMol,
+        tempK: ambK,
+        units: ctx.count,
+      });
+    } else {
+      out.ventedMol += (this.amountMol - targetMol) * ctx.count;
+    }
+    this.amountMol = targetMol;
+    out.servicings++;
+  }
+
+  /** After servicing, the hand pump brings the fluid side to nominal system pressure (both configurations). */
+  private handPumpToSystem(): void {
+    const { ctx } = this;
+    const { geometry } = ctx;
+    const vGas = Math.max(
+      geometry.vminM3,
+      gasVolumeM3(ctx.model, this.amountMol, this.accK, ctx.systemNominalAbsPa),
+    );
+    this.out.handPumpStrokes += handPumpStrokes(
+      (geometry.v0M3 - Math.min(vGas, geometry.v0M3)) * ctx.count,
+      ctx.handPump.displacementM3,
+      ctx.handPump.efficiency,
+    );
+    this.charged = this.chargedAt(ctx.systemNominalAbsPa);
+    this.chargedAlt = this.charged;
+    this.altSame = true;
+  }
+
+  /** Per-unit discharge from a gas volume at the start: sets dischargeJ and dischargeEndM3. */
+  private dischargeUnit(gasVolM3: number): void {
+    const { ctx } = this;
+    const grid = ctx.dischargeGrid;
+    if (grid !== null) {
+      grid.lookup(this.amountMol, this.accK, gasVolM3, this.dischargeOut);
+      this.dischargeJ = this.dischargeOut[0]!;
+      this.dischargeEndM3 = this.dischargeOut[1]!;
+    } else {
+      const d = startDischarge(ctx.model, ctx.geometry, 1, this.amountMol, this.accK, gasVolM3, ctx.starter);
+      this.dischargeJ = d.hydraulicEnergyJ;
+      this.dischargeEndM3 = d.end.gasVolumeM3;
+    }
+  }
+
+  /**
+   * The start discharge of both configurations (n identical units deliver n times one unit's energy),
+   * recorded against the requirement at ambient when counted. Returns each one's end gas volume.
+   */
+  private discharge(
+    day: DayPlan,
+    ambK: number,
+    counted: boolean,
+    st: TrappedState,
+  ): { endM3: number; endAltM3: number } {
+    const { ctx } = this;
+    this.dischargeUnit(st.gasVolumeM3);
+    const energyJ = this.dischargeJ;
+    const endM3 = this.dischargeEndM3;
+    let energyAltJ = energyJ;
+    let endAltM3 = endM3;
+    if (!this.altSame) {
+      this.dischargeUnit(this.trapped(this.chargedAlt).gasVolumeM3);
+      energyAltJ = this.dischargeJ;
+      endAltM3 = this.dischargeEndM3;
+    }
+    if (counted) {
+      const oneJ = ctx.fitted ? energyAltJ : energyJ;
+      const optionUnitJ = ctx.fitted ? energyJ : energyAltJ;
+      this.out.starts.push({
+        month: day.month,
+        ambientC: ambK - K0,
+        energyOneJ: oneJ,
+        energyTwoJ: optionUnitJ * ctx.optionCount,
+        requiredJ: interpolateClamped(ctx.energyTable, ambK),
+      });
+    }
+    return { endM3, endAltM3 };
+  }
+
+  /** Recharge of both configurations within their timers, isothermal at the accumulator temperature; then trapped. */
+  private recharge(di: number, t: number, endM3: number, endAltM3: number): void {
+    const { ctx } = this;
+    const { model, geometry } = ctx;
+    const p = ctx.systemNominalAbsPa;
+    const r = recharge(model, geometry, ctx.count, this.amountMol, this.accK, endM3, p, ctx.pump);
+    this.charged = this.chargedAt(r.gasPressureAbsPa);
+    if (this.altSame && r.reachedSystem && (r.timeS * ctx.altCount) / ctx.count <= ctx.altPump.timerS) {
+      this.chargedAlt = this.charged;
+    } else {
+      const rAlt = recharge(
+        model,
+        geometry,
+        ctx.altCount,
+        this.amountMol,
+        this.accK,
+        endAltM3,
+        p,
+        ctx.altPump,
+      );
+      this.altSame = r.reachedSystem && rAlt.reachedSystem;
+      this.chargedAlt = this.altSame ? this.charged : this.chargedAt(rAlt.gasPressureAbsPa);
+    }
+    this.lastRecharge = {
+      day: di,
+      accumulatorC: this.accK - K0,
+      gasKPaGauge: (r.gasPressureAbsPa - ctx.atmPa) / 1000,
+      readingPct: readingPct(geometry, r.gasVolumeM3),
+      utcMs: t,
+    };
+  }
+}

@@ -1,0 +1,84 @@
+/**
+ * The overnight traces of one base: of all overnight drops in reading (last recharge of an evening to
+ * the next morning's preflight, each group of stays once, every usable year), the median and the
+ * largest are simulated again with an hourly trace from the evening's recharge, with local times in
+ * the base's zone.
+ */
+import { DateTime } from "luxon";
+import { HOUR_MS } from "./days.js";
+import type { BaseResult, Trace } from "./results.js";
+import type { BaseSamples } from "./samples.js";
+import type { DropRecord } from "./simulate.js";
+import { simulateStayYear } from "./simulate.js";
+import { type BaseOutcomes, type Simulator, sampleInputs } from "./simulateSamples.js";
+
+/** Hours of a trace from the hour after the evening's last recharge. */
+export const TRACE_HOURS = 36;
+
+/** One overnight drop with the sample it comes from. */
+interface DropRef {
+  groupIndex: number;
+  yearIndex: number;
+  drop: DropRecord;
+}
+
+/** Every drop of every group on every year, ascending by drop in reading (ties: year, group, day). */
+function sortedDrops(base: BaseSamples, outcomes: BaseOutcomes): DropRef[] {
+  const refs: DropRef[] = [];
+  for (let yi = 0; yi < base.years.length; yi++) {
+    for (let gi = 0; gi < base.groups.length; gi++) {
+      for (const drop of outcomes[yi]![gi]!.drops) refs.push({ groupIndex: gi, yearIndex: yi, drop });
+    }
+  }
+  return refs.sort(
+    (a, b) =>
+      a.drop.readingPct - b.drop.readingPct ||
+      a.yearIndex - b.yearIndex ||
+      a.groupIndex - b.groupIndex ||
+      a.drop.day - b.drop.day,
+  );
+}
+
+function trace(sim: Simulator, base: BaseSamples, ref: DropRef | undefined, label: string): Trace | null {
+  if (ref === undefined) return null;
+  const from = Math.ceil(ref.drop.rechargeUtcMs / HOUR_MS) * HOUR_MS;
+  const o = simulateStayYear({
+    ...sampleInputs(sim, base, ref.groupIndex, ref.yearIndex),
+    trace: { fromUtcMs: from, hours: TRACE_HOURS },
+  });
+  const zone = base.climate.timeZone;
+  const local = (ms: number) => DateTime.fromMillis(ms, { zone }).toISO({ suppressMilliseconds: true }) ?? "";
+  return {
+    label,
+    year: base.years[ref.yearIndex]!,
+    startLocal: local(from),
+    points: o.trace.map((t) => ({
+      hour: (t.utcMs - from) / HOUR_MS,
+      localTime: local(t.utcMs),
+      ambientC: t.ambientC,
+      accumulatorC: t.accumulatorC,
+      gasKPaGauge: t.gasKPaGauge,
+      readingPct: t.readingPct,
+      bandLowPct: t.bandLowPct,
+      bandHighPct: t.bandHighPct,
+    })),
+  };
+}
+
+/** The typical (median) and the worst (largest) overnight drop in reading, traced hour by hour. */
+export function overnightTraces(
+  sim: Simulator,
+  base: BaseSamples,
+  outcomes: BaseOutcomes,
+): BaseResult["traces"] {
+  const drops = sortedDrops(base, outcomes);
+  return {
+    typical: trace(
+      sim,
+      base,
+      drops[Math.floor((drops.length - 1) / 2)],
+      "typical (median overnight drop in reading)",
+    ),
+    worst: trace(sim, base, drops[drops.length - 1], "worst (largest overnight drop in reading)"),
+  };
+}

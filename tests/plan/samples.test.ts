@@ -1,0 +1,110 @@
+/**
+ * Preparing the samples: groups of identical stays, usable climate years and the days of each group
+ * on each year (definitions of docs/methods.md, "Simulation"; counts follow from the inputs built here).
+ */
+import { describe, expect, it } from "vitest";
+import { gasLossDraws, prepareSamples } from "../../src/plan/samples.js";
+import type { Stay } from "../../src/plan/schedule.js";
+import { fixturePlan, syntheticClimate, type Tree } from "./helpers.js";
+
+const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
+
+function stay(aircraft: string, arrive: string, depart: string, extra: Partial<Stay> = {}): Stay {
+  return {
+    aircraft,
+    base: "North Field",
+    arrive,
+    depart,
+    coldStartOption: false,
+    profile: "standard",
+    line: 2,
+    ...extra,
+  };
+}
+
+/** Two profiles alike but for their names, every weekday flown, years 2014–2016. */
+function twoProfiles(spread: number) {
+  return fixturePlan((t: Tree) => {
+    t.profiles[0].gasLoss = { rate: "5 psi/month", spread };
+    t.profiles.push({ ...t.profiles[0], name: "spare" });
+    t.operations.weekdays = ALL_DAYS;
+    t.climate.years = { from: 2014, to: 2016 };
+  });
+}
+
+/** 0 °C every hour of 2014–2016, except that all of January 2016 is missing. */
+const climate = new Map([
+  [
+    "North Field",
+    syntheticClimate(
+      (ms) => (ms >= Date.UTC(2016, 0, 1) && ms < Date.UTC(2016, 1, 1) ? Number.NaN : 0),
+      Date.UTC(2014, 0, 1),
+      Date.UTC(2017, 0, 1),
+    ),
+  ],
+]);
+
+describe("groups of identical stays", () => {
+  it("share profile, option, window and gas-loss rate; each stay counts in exactly one group", () => {
+    const plan = twoProfiles(0); // spread 0: every aircraft has the nominal rate
+    const stays = [
+      stay("A1", "2027-01-05", "2027-01-10"),
+      stay("A2", "2027-01-05", "2027-01-10"), // same as A1: one simulation for both
+      stay("A3", "2027-01-05", "2027-01-10", { coldStartOption: true }),
+      stay("A4", "2027-01-05", "2027-01-10", { profile: "spare" }),
+      stay("A5", "2027-01-06", "2027-01-10"), // another window
+    ];
+    const [base] = prepareSamples(plan, stays, climate, [1, 2, 3, 4, 5, 6, 7], []);
+    expect(base!.groupOfStay).toEqual([0, 0, 1, 2, 3]);
+    expect(base!.groups.map((g) => g.stays)).toEqual([[0, 1], [2], [3], [4]]);
+    expect(base!.groups.map((g) => g.profileIndex)).toEqual([0, 0, 1, 0]);
+    expect(base!.groups.every((g) => g.gasLossFactor === 1)).toBe(true);
+  });
+
+  it("with a gas-loss spread, two aircraft on the same window are simulated apart", () => {
+    const plan = twoProfiles(0.3);
+    const stays = [stay("A1", "2027-01-05", "2027-01-10"), stay("A2", "2027-01-05", "2027-01-10")];
+    const [base] = prepareSamples(plan, stays, climate, [1, 2, 3, 4, 5, 6, 7], []);
+    expect(base!.groupOfStay).toEqual([0, 1]);
+  });
+});
+
+describe("usable climate years", () => {
+  it("skips a year whose window lacks data, says so, and keeps the days by year and group", () => {
+    const plan = twoProfiles(0);
+    const stays = [stay("A1", "2027-01-05", "2027-01-10"), stay("A2", "2027-02-01", "2027-02-03")];
+    const warnings: string[] = [];
+    const [base] = prepareSamples(plan, stays, climate, [1, 2, 3, 4, 5, 6, 7], warnings);
+    expect(base!.years).toEqual([2014, 2015]);
+    // January 2016 has no value at all: the worst group's share is 0 %.
+    expect(base!.skipped).toEqual([{ year: 2016, completenessPct: 0 }]);
+    expect(warnings).toHaveLength(1);
+    expect(warnings[0]).toMatch(/^base "North Field": climate years skipped .*: 2016 \(0\.0 %\)$/);
+    expect(base!.days).toHaveLength(2);
+    for (const [yi, yearDays] of base!.days.entries()) {
+      expect(yearDays).toHaveLength(2);
+      expect(yearDays[0]!.map((d) => d.climateIso)).toEqual(
+        [5, 6, 7, 8, 9].map((d) => `${base!.years[yi]}-01-0${d}`),
+      );
+      expect(yearDays[1]!.map((d) => d.climateIso)).toEqual([1, 2].map((d) => `${base!.years[yi]}-02-0${d}`));
+    }
+  });
+});
+
+describe("gas-loss draws", () => {
+  it("one per aircraft and profile, in order of first stay", () => {
+    const plan = twoProfiles(0);
+    const stays = [
+      stay("A1", "2027-01-05", "2027-01-10"),
+      stay("A2", "2027-01-05", "2027-01-10"),
+      stay("A1", "2027-02-05", "2027-02-10"),
+      stay("A1", "2027-03-05", "2027-03-10", { profile: "spare" }),
+    ];
+    // Spread 0: the log-normal multiplier is exactly its median, 1 (definition).
+    expect(gasLossDraws(plan, stays)).toEqual([
+      { aircraft: "A1", profile: "standard", factor: 1 },
+      { aircraft: "A2", profile: "standard", factor: 1 },
+      { aircraft: "A1", profile: "spare", factor: 1 },
+    ]);
+  });
+});
