@@ -18,6 +18,7 @@ import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
 import { resultsJson, resultTables, toCsv } from "../plan/tables.js";
 import { renderReport, writePdf } from "../report/index.js";
+import { cToK } from "../units/index.js";
 
 export interface PlanCliOptions {
   schedule?: string;
@@ -86,8 +87,8 @@ export function summaryText(r: Results): string {
       );
       continue;
     }
-    const cold = b.coldestMorningC === null ? "—" : formatTemp(b.coldestMorningC + 273.15, u);
-    const cold10 = b.coldest1in10C === null ? "—" : formatTemp(b.coldest1in10C + 273.15, u);
+    const cold = b.coldestMorningC === null ? "—" : formatTemp(cToK(b.coldestMorningC), u);
+    const cold10 = b.coldest1in10C === null ? "—" : formatTemp(cToK(b.coldest1in10C), u);
     const n2 = b.nitrogen;
     lines.push(
       `  ${b.name}: coldest preflight ${cold} (1-in-10-year ${cold10}); nitrogen P95 ${formatMass(n2.kgP95, u)}, ${n2.cylindersP95} cylinder(s), ${n2.cartsP95} cart(s)`,

@@ -16,7 +16,7 @@ import { localDays, MIN_HOURS_FOR_DAILY_RANGE } from "../climate/localTime.js";
 import type { HourlySeries, StationClimate } from "../climate/types.js";
 import { tabulatedGas } from "../physics/gasTable.js";
 import { N2_MOLAR_MASS_KG_MOL, realGas } from "../physics/nitrogen.js";
-import { STANDARD_ATMOSPHERE_PA } from "../physics/units.js";
+import { ZERO_CELSIUS_K as K0, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
 import { TOOL_VERSION } from "../version.js";
 import { assumptionsOf } from "./assumptions.js";
 import { bandCurves } from "./bandCurves.js";
@@ -66,7 +66,6 @@ export interface RunStats {
 }
 
 export const TRACE_HOURS = 36;
-const K0 = 273.15;
 const RETURN_PERIOD_YEARS = 10;
 
 /** The weekdays flown (ISO, Monday 1): the plan's list, or a count drawn from the seed. */

@@ -17,7 +17,8 @@ import {
   parseTimeS,
   parseVolumeM3,
   QuantityError,
-} from "./quantities.js";
+  STANDARD_ATMOSPHERE_PA,
+} from "../units/index.js";
 
 /** A string field parsed by `parser`; a parse failure becomes a zod issue at that path. */
 function q<T>(parser: (s: string) => T) {
@@ -122,7 +123,7 @@ const profileSchema = z
       ctx.addIssue({ code: "custom", path: ["system"], message: "expected low ≤ nominal ≤ high" });
     }
     // Gauge comparisons (an absolute value is compared as if the atmosphere were 101.325 kPa).
-    const g = (x: PointPressure) => (x.isGauge ? x.pa : x.pa - 101325);
+    const g = (x: PointPressure) => (x.isGauge ? x.pa : x.pa - STANDARD_ATMOSPHERE_PA);
     const ref = g(p.precharge.reference.pressure);
     if (!(p.precharge.tolerance < ref)) {
       ctx.addIssue({

@@ -4,8 +4,9 @@
  * °C, kPa gauge (`…KPaGauge`), L, kg, J; percentages 0–100; `null` where a month has no preflights.
  * No wall-clock time is stored, so two runs on the same inputs give byte-identical files.
  */
+import type { Units } from "../units/index.js";
 
-export type Units = "us" | "si";
+export type { Units };
 
 /** Quality-control counts for one station (product brief, section 4). read = kept + Σ dropped. */
 export interface QcCounts {

@@ -48,6 +48,7 @@ import {
   startDischarge,
   trappedState,
 } from "../physics/accumulator.js";
+import { ZERO_CELSIUS_K as K0 } from "../units/index.js";
 import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
 import { type DayPlan, HOUR_MS, localHourOf } from "./days.js";
 import type { TracePoint } from "./results.js";
@@ -131,8 +132,6 @@ export interface SimOutcome {
   accumulatorHours: number;
   trace: TraceSample[];
 }
-
-const K0 = 273.15;
 
 function inHangarAt(day: DayPlan, utcMs: number): boolean {
   for (const [a, b] of day.hangar) if (utcMs >= a && utcMs < b) return true;

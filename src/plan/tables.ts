@@ -3,6 +3,7 @@
  * table). Units are fixed like the JSON: °C, kPa gauge, kg, %; column names carry their unit.
  * Empty cells mean "no value" (a month without preflights). RFC 4180 quoting.
  */
+import { formatMachine } from "../units/index.js";
 import type { BaseResult, ProfileResult, Results } from "./results.js";
 
 export type Cell = string | number | boolean | null;
@@ -12,16 +13,9 @@ export interface Table {
   rows: Cell[][];
 }
 
-/** Numbers are written with at most 6 decimals (stable text for byte-identical files). */
-export function formatNumber(x: number): string {
-  if (Number.isInteger(x)) return String(x);
-  const r = Number(x.toFixed(6));
-  return String(Object.is(r, -0) ? 0 : r);
-}
-
 function cell(c: Cell): string {
   if (c === null) return "";
-  if (typeof c === "number") return Number.isFinite(c) ? formatNumber(c) : "";
+  if (typeof c === "number") return Number.isFinite(c) ? formatMachine(c) : "";
   if (typeof c === "boolean") return c ? "yes" : "no";
   return /[",\r\n]/.test(c) || c !== c.trim() ? `"${c.replace(/"/g, '""')}"` : c;
 }
@@ -269,7 +263,7 @@ export function resultsJson(r: Results): string {
   return `${JSON.stringify(
     r,
     (_k, v) =>
-      typeof v === "number" && !Number.isInteger(v) && Number.isFinite(v) ? Number(formatNumber(v)) : v,
+      typeof v === "number" && !Number.isInteger(v) && Number.isFinite(v) ? Number(formatMachine(v)) : v,
     2,
   )}\n`;
 }

@@ -13,8 +13,8 @@ import type {
   StationResult,
   Trace,
 } from "../plan/results.js";
+import { formatDisplay, pct, show, type UnitSystem, unitSystem } from "../units/index.js";
 import { barChart, type Chart, PALETTE, stackedChart, xyChart } from "./charts.js";
-import { formatNumber, pct, show, type UnitSystem, unitSystem } from "./units.js";
 
 export const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
@@ -528,7 +528,7 @@ async function buildBase(
   const readingTable = months.map((m) => ({
     cells: [
       monthName(m.month),
-      formatNumber(m.preflights, 0),
+      formatDisplay(m.preflights, 0),
       pct(m.belowBandPct),
       pct(m.aboveBandPct),
       `${show(u.pressure, m.morningKPaGaugeP10)} / ${show(u.pressure, m.morningKPaGaugeP50)} / ${show(u.pressure, m.morningKPaGaugeP90)}`,
@@ -541,7 +541,7 @@ async function buildBase(
   const energyTable = months.map((m) => ({
     cells: [
       monthName(m.month),
-      formatNumber(m.starts, 0),
+      formatDisplay(m.starts, 0),
       pct(m.shortPctOne),
       pct(m.shortPctTwo),
       `${pct(m.energyMarginOneP10Pct)} / ${pct(m.energyMarginOneP50Pct)}`,
@@ -650,7 +650,7 @@ async function buildBase(
   });
   const mass = (kg: number) => show(M, kg);
   const gas = (kg: number) => show(G, kg);
-  const count = (x: number) => formatNumber(x, 0);
+  const count = (x: number) => formatDisplay(x, 0);
   const nitrogenTotals: TableRow[] = [
     row("Nitrogen mass drawn from cylinders", M.unit, mass(n.kgP50), mass(n.kgP90), mass(n.kgP95)),
     row("Nitrogen at standard conditions", G.unit, gas(n.kgP50), gas(n.kgP90), gas(n.kgP95)),
@@ -658,7 +658,7 @@ async function buildBase(
     row("Carts", "count", count(n.cartsP50), count(n.cartsP90), count(n.cartsP95)),
     row("Nitrogen left in accumulators", M.unit, mass(n.kgAddedP50)),
     row("Nitrogen vented (hose, lowered precharges)", M.unit, mass(n.kgVentedP50)),
-    row("Servicing events", "count", formatNumber(n.servicingEventsP50, 1)),
+    row("Servicing events", "count", formatDisplay(n.servicingEventsP50, 1)),
   ];
   const nitrogenStays = n.stays.map((s) => ({
     cells: [
@@ -667,9 +667,9 @@ async function buildBase(
       s.depart,
       s.profile,
       s.coldStartOption ? "yes" : "no",
-      formatNumber(s.prechargeChecksP50, 1),
-      formatNumber(s.servicingEventsP50, 1),
-      formatNumber(s.handPumpStrokesP50, 0),
+      formatDisplay(s.prechargeChecksP50, 1),
+      formatDisplay(s.servicingEventsP50, 1),
+      formatDisplay(s.handPumpStrokesP50, 0),
       show(M, s.kgAddedP50),
       show(M, s.kgVentedP50),
       show(M, s.kgP50),
@@ -797,21 +797,21 @@ export async function buildView(results: Results, options: ViewOptions): Promise
         cells: [
           s.id,
           s.name ?? "–",
-          `${formatNumber(s.lat, 3)}, ${formatNumber(s.lon, 3)}`,
+          `${formatDisplay(s.lat, 3)}, ${formatDisplay(s.lon, 3)}`,
           show(u.length, s.elevationM),
           s.timeZone,
           `${unbroken(shortUtc(s.firstUtc))} to ${unbroken(shortUtc(s.lastUtc))}`,
-          formatNumber(s.hours, 0),
-          formatNumber(s.filledHours, 0),
+          formatDisplay(s.hours, 0),
+          formatDisplay(s.filledHours, 0),
           pct(s.completeness * 100),
         ],
       })),
       qc: b.stations.map((s) => ({
         cells: [
           s.id,
-          formatNumber(s.qc.read, 0),
-          formatNumber(s.qc.kept, 0),
-          ...QC_REASONS.map((r) => formatNumber(s.qc.dropped[r], 0)),
+          formatDisplay(s.qc.read, 0),
+          formatDisplay(s.qc.kept, 0),
+          ...QC_REASONS.map((r) => formatDisplay(s.qc.dropped[r], 0)),
         ],
       })),
       yearsUsed: yearsText(b.yearsUsed),
