@@ -115,12 +115,12 @@ export const US_UNITS = displaySystem(0, "us", "US customary", [
   "1 in³ = 16.387064 cm³ exactly (NIST SP 811).",
   "1 lb = 0.45359237 kg exactly (NIST SP 811).",
   "1 ft = 0.3048 m exactly (NIST SP 811).",
-  "scf: nitrogen at 70 °F and 14.696 psia, 1.1604 kg/m³ (ideal gas with CODATA 2018 constants and a second-virial correction), about 13.80 scf per lb.",
+  `scf: nitrogen at 70 °F and 14.696 psia, ${N2_SCF_DENSITY_KG_M3} kg/m³ (reference equation of state, Span et al. 2000), ${formatDisplay(KG_PER_LB / N2_SCF_DENSITY_KG_M3 / M3_PER_FT3, 2)} scf per lb.`,
 ]);
 
 export const SI_UNITS = displaySystem(1, "si", "SI", [
   "Pressures in bar gauge: 1 bar = 100 kPa exactly (SI brochure).",
-  "normal m³: nitrogen at 0 °C and 101.325 kPa, 1.2504 kg/m³ (ideal gas with CODATA 2018 constants and a second-virial correction).",
+  `normal m³: nitrogen at 0 °C and 101.325 kPa, ${N2_NORMAL_DENSITY_KG_M3} kg/m³ (reference equation of state, Span et al. 2000).`,
 ]);
 
 export function unitSystem(units: Units): UnitSystem {

@@ -90,10 +90,14 @@ export const NORMAL_PRESSURE_PA = STANDARD_ATMOSPHERE_PA;
 export const SCF_TEMP_K = fToK(70);
 export const SCF_PRESSURE_PA = 14.696 * PA_PER_PSI;
 /**
- * Density of nitrogen at normal conditions, kg/m³: one normal m³ of nitrogen is this mass. The
- * ideal-gas density p·M/(R·T) with CODATA 2018 constants, divided by the compressibility factor from
- * the second virial coefficient (B ≈ −10.5 cm³/mol at 273 K, from memory; the correction is below 0.05 %).
+ * Density of nitrogen at normal conditions (0 °C, 101.325 kPa), kg/m³: one normal m³ of nitrogen is
+ * this mass. From the reference equation of state (Span et al. 2000: 44.63516 mol/m³, compressibility
+ * 0.99954) with its molar mass 28.01348 g/mol; tests/units/factors.test.ts checks it against the
+ * equation (physics/nitrogen.ts).
  */
-export const N2_NORMAL_DENSITY_KG_M3 = 1.2504;
-/** Density of nitrogen at the scf conditions (70 °F, 14.696 psia), kg/m³; same derivation (B ≈ −5 cm³/mol at 294 K). */
-export const N2_SCF_DENSITY_KG_M3 = 1.1604;
+export const N2_NORMAL_DENSITY_KG_M3 = 1.250386;
+/**
+ * Density of nitrogen at the scf conditions (70 °F, 14.696 psia), kg/m³: one scf of nitrogen is this
+ * mass per m³ times 1 ft³. Same source (41.42378 mol/m³, compressibility 0.99977).
+ */
+export const N2_SCF_DENSITY_KG_M3 = 1.160424;

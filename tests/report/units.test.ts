@@ -2,6 +2,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import type { Results } from "../../src/plan/results.js";
 import { renderReport } from "../../src/report/index.js";
 import { localTimeText } from "../../src/report/view.js";
+import { N2_NORMAL_DENSITY_KG_M3, N2_SCF_DENSITY_KG_M3 } from "../../src/units/index.js";
 import { makeResults } from "../fixtures/report/results.js";
 import { type Element, elements, inner, parseShown, type Token, textOf, tokenize } from "./html.js";
 
@@ -152,9 +153,11 @@ describe("report units: the same results in US and SI", () => {
       expect(Math.abs(lb * 0.45359237 - kg)).toBeLessThanOrEqual(0.0075);
       const scf = parseShown(usRows[1]![col]!);
       const nm3 = parseShown(siRows[1]![col]!);
-      // Both are the same mass: scf × 0.028316846592 m³ × 1.1604 kg/m³ = normal m³ × 1.2504 kg/m³.
+      // Both are the same mass: scf × 1 ft³ × ρ(70 °F, 14.696 psia) = normal m³ × ρ(0 °C, 101.325 kPa),
+      // 1 ft³ = 0.028316846592 m³ (NIST SP 811), ρ from the reference equation (src/units/factors.ts).
       // Display rounding: scf to 0.05 scf (0.05 × 0.0329 kg), normal m³ to 0.005 m³ (0.005 × 1.2504 kg).
-      expect(Math.abs(scf * 0.028316846592 * 1.1604 - nm3 * 1.2504)).toBeLessThanOrEqual(
+      const scfKg = scf * 0.028316846592 * N2_SCF_DENSITY_KG_M3;
+      expect(Math.abs(scfKg - nm3 * N2_NORMAL_DENSITY_KG_M3)).toBeLessThanOrEqual(
         0.05 * 0.0329 + 0.005 * 1.2504,
       );
     }

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { N2_MOLAR_MASS_KG_MOL, realGas } from "../../src/physics/nitrogen.js";
 import * as units from "../../src/units/index.js";
 
 describe("conversion factors", () => {
@@ -34,5 +35,18 @@ describe("conversion factors", () => {
   it("uses the mean Gregorian month for rates per month", () => {
     // Gregorian calendar: 146 097 days in 400 years, so a mean month is 146097/4800 d = 30.436875 d.
     expect(units.S_PER_MONTH / 86400).toBeCloseTo(30.436875, 12);
+  });
+
+  it("defines the normal m³ and the scf of nitrogen by the reference equation's density", () => {
+    // Span et al. (2000) equation (physics/nitrogen.ts, itself checked against the paper's tables in
+    // tests/physics/nitrogen.test.ts) at the reference conditions: 0 °C, 101.325 kPa (DIN 1343) and
+    // 70 °F, 14.696 psia; the constants carry 7 significant digits.
+    const density = (pPa: number, tK: number) => realGas.densityMolM3(pPa, tK) * N2_MOLAR_MASS_KG_MOL;
+    const normal = density(units.NORMAL_PRESSURE_PA, units.NORMAL_TEMP_K);
+    const scf = density(units.SCF_PRESSURE_PA, units.SCF_TEMP_K);
+    expect(Math.abs(units.N2_NORMAL_DENSITY_KG_M3 / normal - 1)).toBeLessThan(5e-7);
+    expect(Math.abs(units.N2_SCF_DENSITY_KG_M3 / scf - 1)).toBeLessThan(5e-7);
+    // NIST Chemistry WebBook, nitrogen at 0 °C and 1 atm (from memory): 1.2504 kg/m³.
+    expect(units.N2_NORMAL_DENSITY_KG_M3).toBeCloseTo(1.2504, 4);
   });
 });
