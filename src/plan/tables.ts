@@ -3,7 +3,7 @@
  * table). Units are fixed like the JSON: °C, kPa gauge, kg, %; column names carry their unit.
  * Empty cells mean "no value" (a month without preflights). RFC 4180 quoting.
  */
-import { formatMachine } from "../units/index.js";
+import { formatMachine, shownText, unitSystem } from "../units/index.js";
 import type { BaseResult, ProfileResult, Results } from "./results.js";
 
 export type Cell = string | number | boolean | null;
@@ -17,7 +17,10 @@ function cell(c: Cell): string {
   if (c === null) return "";
   if (typeof c === "number") return Number.isFinite(c) ? formatMachine(c) : "";
   if (typeof c === "boolean") return c ? "yes" : "no";
-  return /[",\r\n]/.test(c) || c !== c.trim() ? `"${c.replace(/"/g, '""')}"` : c;
+  // A text that a spreadsheet would read as a formula (= + - @ tab CR first, e.g. a plan's "-40 F")
+  // gets a leading apostrophe (OWASP, "CSV Injection").
+  const text = /^[=+\-@\t\r]/.test(c) ? `'${c}` : c;
+  return /[",\r\n]/.test(text) || text !== text.trim() ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
 export function toCsv(t: Table): string {
@@ -251,8 +254,11 @@ export function resultTables(r: Results): Table[] {
     table("assumptions", r.assumptions, [
       ["key", (a) => a.key],
       ["label", (a) => a.label],
-      ["value", (a) => a.value],
+      ["shown", (a) => shownText(a, unitSystem(r.units))],
+      ["kind", (a) => a.kind],
+      ["value", (a) => (Array.isArray(a.value) ? a.value.join("; ") : a.value)],
       ["unit", (a) => a.unit],
+      ["at_temp_c", (a) => a.atTempC ?? null],
       ["origin", (a) => a.origin],
     ]),
   ];

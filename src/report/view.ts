@@ -13,7 +13,15 @@ import type {
   StationResult,
   Trace,
 } from "../plan/results.js";
-import { formatDisplay, pct, show, type UnitSystem, unitSystem } from "../units/index.js";
+import {
+  formatDisplay,
+  pct,
+  show,
+  shownText,
+  showWithUnit,
+  type UnitSystem,
+  unitSystem,
+} from "../units/index.js";
 import { barChart, type Chart, PALETTE, stackedChart, xyChart } from "./charts.js";
 
 export const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
@@ -101,7 +109,7 @@ export interface ReportView {
   quantileMethod: string;
   randomInputs: { name: string; description: string }[];
   unitNotes: string[];
-  assumptions: { key: string; label: string; value: string; unit: string; origin: string }[];
+  assumptions: { key: string; label: string; shown: string; origin: string }[];
   coverage: {
     base: string;
     anchor: string;
@@ -199,16 +207,17 @@ function groupActions(b: BaseResult, shortPct: number): ActionRow[] {
 }
 
 /**
- * "hangar air at 59 °F from 19:00 to 06:30" from the plan's hangar assumptions of a base (keys
- * `bases.<name>.hangar.{in,out,temperature}`, values already in the plan's units), or null without one.
+ * "hangar air at 59.0 °F from 19:00 to 06:30" from the plan's hangar assumptions of a base (keys
+ * `bases.<name>.hangar.{in,out,temperature}`: local times "HH:MM" and °C), or null without one.
  */
 export function hangarText(results: Results, baseName: string): string | null {
   const get = (k: string) => results.assumptions.find((a) => a.key === `bases.${baseName}.hangar.${k}`);
   const from = get("in");
   const to = get("out");
   const temp = get("temperature");
-  if (!from || !to || !temp) return null;
-  return `hangar air at ${temp.value.replace(/^-/, "\u2212")} ${temp.unit} from ${from.value} to ${to.value}`;
+  if (!from || !to || typeof temp?.value !== "number") return null;
+  const t = showWithUnit(unitSystem(results.units).temp, temp.value);
+  return `hangar air at ${t} from ${from.value} to ${to.value}`;
 }
 
 function stationLabel(s: StationResult): string {
@@ -789,7 +798,12 @@ export async function buildView(results: Results, options: ViewOptions): Promise
     quantileMethod: results.quantileMethod,
     randomInputs: results.randomInputs,
     unitNotes: u.notes,
-    assumptions: results.assumptions,
+    assumptions: results.assumptions.map((a) => ({
+      key: a.key,
+      label: a.label,
+      shown: shownText(a, u),
+      origin: a.origin,
+    })),
     coverage: results.bases.map((b, i) => ({
       base: b.name,
       anchor: `base-${i + 1}`,

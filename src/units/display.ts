@@ -18,9 +18,11 @@ import {
   PA_PER_BAR,
   PA_PER_KPA,
   PA_PER_PSI,
+  S_PER_HOUR,
   S_PER_MIN,
 } from "./factors.js";
 import { formatDisplay } from "./format.js";
+import type { QuantityData, QuantityKind } from "./kinds.js";
 
 /** The plan's choice of display units. */
 export type Units = "us" | "si";
@@ -136,4 +138,61 @@ export function show(q: Quantity, jsonValue: number | null | undefined): string 
 /** Converts and formats one JSON value with its unit: "1,450 psig". */
 export function showWithUnit(q: Quantity, jsonValue: number | null | undefined): string {
   return `${show(q, jsonValue)} ${q.unit}`;
+}
+
+/** The display quantity of each dimensional kind of plan quantity. */
+const DISPLAY_OF_KIND: Partial<Record<QuantityKind, keyof DisplayQuantities>> = {
+  pressureGauge: "pressure",
+  pressureAbsolute: "pressureAbs",
+  pressureDifference: "pressureDelta",
+  pressureRate: "pressureRate",
+  temperature: "temp",
+  volume: "volume",
+  energy: "energy",
+  flow: "flow",
+  expansion: "expansion",
+};
+
+/** Kinds whose value is a plain number, stored and shown as it is (with what it counts, if anything). */
+const PLAIN_NUMBER_KINDS: ReadonlySet<QuantityKind> = new Set([
+  "percent",
+  "fraction",
+  "number",
+  "count",
+  "year",
+]);
+
+const withUnit = (text: string, unit: string) => (unit === "" ? text : `${text} ${unit}`);
+
+/** A duration (s) in h, min or s, whichever is the largest unit it reaches. */
+function formatDuration(s: number): string {
+  const [size, unit] = s >= S_PER_HOUR ? [S_PER_HOUR, "h"] : s >= S_PER_MIN ? [S_PER_MIN, "min"] : [1, "s"];
+  const x = s / size;
+  return `${formatDisplay(x, Number.isInteger(x) ? 0 : 2)} ${unit}`;
+}
+
+/**
+ * A plan quantity's value (in its JSON unit) formatted in the plan's units, with its unit:
+ * "1,450 psig @ 70.0 °F", "3 h", "out/cache/climate".
+ */
+export function formatQuantity(q: Omit<QuantityData, "text">, u: UnitSystem): string {
+  const { kind, value } = q;
+  if (Array.isArray(value)) return value.join(", ");
+  if (typeof value === "string") return value;
+  const name = DISPLAY_OF_KIND[kind];
+  if (name !== undefined) {
+    const main = showWithUnit(u[name], value);
+    return q.atTempC === undefined ? main : `${main} @ ${showWithUnit(u.temp, q.atTempC)}`;
+  }
+  if (kind === "duration") return formatDuration(value);
+  return withUnit(String(value), q.unit);
+}
+
+/**
+ * What a person sees of a plan quantity: the text exactly as written (a bare number followed by what
+ * it counts: "3 h"), or, for a default, the value formatted in the plan's units.
+ */
+export function shownText(q: QuantityData, u: UnitSystem): string {
+  if (q.text === null) return formatQuantity(q, u);
+  return PLAIN_NUMBER_KINDS.has(q.kind) ? withUnit(q.text, q.unit) : q.text;
 }

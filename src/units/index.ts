@@ -6,4 +6,5 @@
 export * from "./display.js";
 export * from "./factors.js";
 export * from "./format.js";
+export * from "./kinds.js";
 export * from "./parse.js";
