@@ -8,15 +8,20 @@ import type { Command } from "commander";
 import { InputError } from "../errors.js";
 import { bandCurves } from "../plan/bandCurves.js";
 import { loadPlan } from "../plan/planFile.js";
-import { tempFromK, tempToK } from "../plan/quantities.js";
 import {
+  cToK,
+  formatDisplay,
   formatMachine,
-  PA_PER_KPA,
-  PA_PER_PSI,
+  fToK,
+  kToC,
   parseTemperatureDifferenceOnScale,
   parseTemperatureOnScale,
+  pct,
   STANDARD_ATMOSPHERE_PA,
+  show,
+  showWithUnit,
   type TemperatureScale,
+  unitSystem,
 } from "../units/index.js";
 import { parseOption } from "./options.js";
 
@@ -67,17 +72,14 @@ export async function bandCommand(
   if (count > 10_000) throw new InputError(`--step: ${count} rows; expected at most 10000`);
   const temps: number[] = [];
   for (let i = 0; i < count; i++) temps.push(from + i * step);
-  const lowK = tempToK(from, plan.units);
-  if (lowK < 150 || tempToK(to, plan.units) > 450) {
+  const u = unitSystem(plan.units);
+  const toK = us ? fToK : cToK;
+  if (toK(from) < 150 || toK(to) > 450) {
     throw new InputError(
-      `--from/--to: expected temperatures between ${formatMachine(tempFromK(150, plan.units))} and ${formatMachine(tempFromK(450, plan.units))} ${us ? "°F" : "°C"}`,
+      `--from/--to: expected temperatures between ${showWithUnit(u.temp, kToC(150))} and ${showWithUnit(u.temp, kToC(450))}`,
     );
   }
-  const rows = bandCurves(
-    profile,
-    temps.map((t) => tempToK(t, plan.units)),
-    STANDARD_ATMOSPHERE_PA,
-  );
+  const rows = bandCurves(profile, temps.map(toK), STANDARD_ATMOSPHERE_PA);
   const json = {
     profile: profile.name,
     rows: rows.map((r) => ({
@@ -91,9 +93,9 @@ export async function bandCommand(
       idealReadingNominalPct: Number(formatMachine(r.idealReadingNominalPct)),
     })),
   };
-  const p = (kPa: number) => (us ? ((kPa * PA_PER_KPA) / PA_PER_PSI).toFixed(0) : (kPa / 100).toFixed(2));
-  const pu = us ? "psig" : "bar";
-  const tu = us ? "°F" : "°C";
+  const p = (kPa: number) => show(u.pressure, kPa);
+  const pu = u.pressure.unit;
+  const tu = u.temp.unit;
   const header = [
     `temp ${tu}`,
     `precharge ${pu}`,
@@ -105,14 +107,14 @@ export async function bandCommand(
     "ideal nom %",
   ];
   const body = rows.map((r, i) => [
-    formatMachine(temps[i]!),
+    formatDisplay(temps[i]!, u.temp.digits),
     p(r.prechargeKPaGauge),
     p(r.prechargeLowKPaGauge),
     p(r.prechargeHighKPaGauge),
-    r.readingLowPct.toFixed(1),
-    r.readingNominalPct.toFixed(1),
-    r.readingHighPct.toFixed(1),
-    r.idealReadingNominalPct.toFixed(1),
+    pct(r.readingLowPct),
+    pct(r.readingNominalPct),
+    pct(r.readingHighPct),
+    pct(r.idealReadingNominalPct),
   ]);
   const widths = header.map((h, c) => Math.max(h.length, ...body.map((b) => b[c]!.length)));
   const line = (cells: string[]) => cells.map((x, c) => x.padStart(widths[c]!)).join("  ");

@@ -7,13 +7,16 @@ import { InputError } from "../errors.js";
 import { standardAtmospherePa } from "../physics/atmosphere.js";
 import { idealGas, N2_CRITICAL_TEMP_K, N2_MAX_TEMP_K, realGas } from "../physics/nitrogen.js";
 import {
+  formatDisplay,
   kToC,
-  kToF,
   PA_PER_BAR,
   PA_PER_KPA,
   PA_PER_PSI,
   parsePressureAt,
   parseTemperatureK,
+  SI_UNITS,
+  showWithUnit,
+  US_UNITS,
 } from "../units/index.js";
 import { parseOption } from "./options.js";
 
@@ -112,8 +115,9 @@ export function prechargeJson(a: PrechargeAnswer): {
   };
 }
 
+/** A temperature in both display systems: "70.0 °F (21.1 °C)". */
 function tempText(k: number): string {
-  return `${kToF(k).toFixed(1)} °F (${kToC(k).toFixed(1)} °C)`;
+  return `${showWithUnit(US_UNITS.temp, kToC(k))} (${showWithUnit(SI_UNITS.temp, kToC(k))})`;
 }
 
 /** Human-readable answer. */
@@ -122,10 +126,10 @@ export function prechargeText(a: PrechargeAnswer): string {
   const gIdeal = a.idealAbsPa - a.atmPa;
   const refG = a.refAbsPa - a.atmPa;
   const row = (label: string, perUnit: number, digits: number): string =>
-    `  ${label.padEnd(12)}${(gReal / perUnit).toFixed(digits).padStart(12)}${(gIdeal / perUnit).toFixed(digits).padStart(14)}`;
+    `  ${label.padEnd(12)}${formatDisplay(gReal / perUnit, digits).padStart(12)}${formatDisplay(gIdeal / perUnit, digits).padStart(14)}`;
   const lines = [
-    `Precharge serviced to ${(refG / PA_PER_PSI).toFixed(1)} psig (${(refG / PA_PER_BAR).toFixed(2)} bar gauge) at ${tempText(a.refTempK)}`,
-    `Local atmosphere ${(a.atmPa / PA_PER_KPA).toFixed(3)} kPa (standard atmosphere at ${a.elevationM} m); gauge = absolute − atmosphere`,
+    `Precharge serviced to ${formatDisplay(refG / PA_PER_PSI, 1)} psig (${formatDisplay(refG / PA_PER_BAR, 2)} bar gauge) at ${tempText(a.refTempK)}`,
+    `Local atmosphere ${formatDisplay(a.atmPa / PA_PER_KPA, 3)} kPa (standard atmosphere at ${formatDisplay(a.elevationM, 0)} m); gauge = absolute − atmosphere`,
     "",
     `Precharge at ${tempText(a.atTempK)}:`,
     `  ${"".padEnd(12)}${"real gas".padStart(12)}${"ideal gas".padStart(14)}`,

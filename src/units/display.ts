@@ -135,9 +135,9 @@ export function show(q: Quantity, jsonValue: number | null | undefined): string 
   return formatDisplay(q.convert(jsonValue), q.digits);
 }
 
-/** Converts and formats one JSON value with its unit: "1,450 psig". */
+/** Converts and formats one JSON value with its unit: "1,450 psig" ("–" alone for no value). */
 export function showWithUnit(q: Quantity, jsonValue: number | null | undefined): string {
-  return `${show(q, jsonValue)} ${q.unit}`;
+  return jsonValue === null || jsonValue === undefined ? "–" : `${show(q, jsonValue)} ${q.unit}`;
 }
 
 /** The display quantity of each dimensional kind of plan quantity. */

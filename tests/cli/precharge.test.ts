@@ -71,7 +71,7 @@ describe("coldsoak precharge", () => {
     expect(code).toBe(0);
     const text = io.out.join("");
     expect(text).toMatch(/real gas\s+ideal gas/);
-    expect(text).toMatch(/psig\s+1381\.8\s+1394\.7/);
+    expect(text).toMatch(/psig\s+1,381\.8\s+1,394\.7/);
   });
 
   for (const [args, pattern] of [
