@@ -68,8 +68,6 @@ export const fToK = (f: number): number => ((f - 32) * 5) / 9 + ZERO_CELSIUS_K;
 export const kToF = (k: number): number => ((k - ZERO_CELSIUS_K) * 9) / 5 + 32;
 /** Celsius → Fahrenheit temperature. */
 export const cToF = (c: number): number => (c * 9) / 5 + 32;
-/** Fahrenheit → Celsius temperature. */
-export const fToC = (f: number): number => ((f - 32) * 5) / 9;
 
 // ---- time ----
 

@@ -49,11 +49,11 @@ const TEMPERATURES = ["70 F", "21 C", "294 K", "70 °F", "21 °C"];
 describe("the README's quantity forms in the plan file and on the command line", () => {
   it("lists exactly these units in the README", () => {
     // The README is the source of the forms tested here.
-    for (const unit of ["psig", "psia", "bar", "bara", "kPa", "kPaa", "MPa", "MPaa"])
+    for (const unit of ["psig", "psia", "bar", "bara", "kPa", "kPaa", "MPa", "MPaa", "barg", "kPag", "MPag"])
       expect(README).toContain(`\`${unit}\``);
-    for (const unit of ["F", "C", "K", "in3", "L", "m3", "gal", "s", "min", "h", "d", "month"])
+    for (const unit of ["F", "C", "K", "°F", "°C", "in3", "L", "m3", "gal", "s", "min", "h", "d", "month"])
       expect(README).toContain(`\`${unit}\``);
-    for (const unit of ["J", "kJ", "ft-lbf", "L/min", "gpm", "in3/s", "psi"])
+    for (const unit of ["J", "kJ", "ft-lbf", "L/min", "gpm", "in3/s", "psi", "ksi", "GPa"])
       expect(README).toContain(`\`${unit}\``);
     expect(README).toContain("coldsoak precharge --ref 1450psig@70F --at 50F");
   });
@@ -108,8 +108,14 @@ describe("the README's quantity forms in the plan file and on the command line",
     [
       "precharge.tolerance (pressure difference)",
       'tolerance: "50 psi"',
-      ["50 psi", "3.5 bar", "350 kPa"],
+      ["50 psi", "3.5 bar", "350 kPa", "0.35 MPa", "0.05 ksi"],
       (p) => p.profiles[0]!.precharge.tolerance,
+    ],
+    [
+      "fluid.bulkModulus (pressure difference)",
+      'bulkModulus: "1.5 GPa"',
+      ["1.5 GPa", "1500 MPa", "220 ksi"],
+      (p) => p.profiles[0]!.fluid.bulkModulus,
     ],
     [
       "accumulator.gasVolumeEmpty (volume)",
