@@ -16,6 +16,7 @@ import {
 } from "../physics/accumulator.js";
 import { tabulatedGas } from "../physics/gasTable.js";
 import { type GasModel, realGas } from "../physics/nitrogen.js";
+import { STANDARD_ATMOSPHERE_PA } from "../units/index.js";
 
 const MIN_RUN_MS = 400;
 
@@ -41,7 +42,7 @@ function ambientK(hour: number): number {
 
 const geometry: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
 const fluid = { alphaPerK: 8e-4, bulkModulusPa: 1.5e9, lineVolumeM3: 0.2e-3 };
-const ATM = 101325;
+const ATM = STANDARD_ATMOSPHERE_PA;
 
 function trappedBatch(model: GasModel): () => number {
   const n0 = gasAmountMol(realGas, 10.1e6, 294.26, geometry.v0M3);

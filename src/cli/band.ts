@@ -6,11 +6,24 @@
  */
 import type { Command } from "commander";
 import { InputError } from "../errors.js";
-import { formatNumber } from "../output/tables.js";
-import { STANDARD_ATMOSPHERE_PA } from "../physics/units.js";
 import { bandCurves } from "../plan/bandCurves.js";
 import { loadPlan } from "../plan/planFile.js";
-import { PSI_PA, tempFromK, tempToK } from "../plan/quantities.js";
+import {
+  cToK,
+  formatDisplay,
+  formatMachine,
+  fToK,
+  kToC,
+  parseTemperatureDifferenceOnScale,
+  parseTemperatureOnScale,
+  pct,
+  STANDARD_ATMOSPHERE_PA,
+  show,
+  showWithUnit,
+  type TemperatureScale,
+  unitSystem,
+} from "../units/index.js";
+import { parseOption } from "./options.js";
 
 export interface BandCliOptions {
   profile?: string;
@@ -20,12 +33,11 @@ export interface BandCliOptions {
   json?: boolean;
 }
 
-function num(text: string | undefined, option: string, fallback: number): number {
+/** A temperature option in the plan's unit: a bare number (-40) or a temperature with its unit (-40C). */
+function tempOption(option: string, text: string | undefined, fallback: number, scale: TemperatureScale) {
   if (text === undefined) return fallback;
-  const v = Number(text);
-  if (text.trim() === "" || !Number.isFinite(v))
-    throw new InputError(`${option}: "${text}" is not a number; expected e.g. ${option} -40`);
-  return v;
+  const example = `${option} -40 (the plan's unit) or ${option} -40C`;
+  return parseOption(option, example, (t) => parseTemperatureOnScale(t, scale), text);
 }
 
 /** The band table as the command prints it (`--json` shape of issue 4). */
@@ -42,42 +54,48 @@ export async function bandCommand(
     );
   }
   const us = plan.units === "us";
-  const from = num(opts.from, "--from", us ? -60 : -50);
-  const to = num(opts.to, "--to", us ? 140 : 60);
-  const step = num(opts.step, "--step", 10);
+  const scale: TemperatureScale = us ? "F" : "C";
+  const from = tempOption("--from", opts.from, us ? -60 : -50, scale);
+  const to = tempOption("--to", opts.to, us ? 140 : 60, scale);
+  const step =
+    opts.step === undefined
+      ? 10
+      : parseOption(
+          "--step",
+          "--step 5 (the plan's unit) or --step 5C",
+          (t) => parseTemperatureDifferenceOnScale(t, scale),
+          opts.step,
+        );
   if (!(step > 0)) throw new InputError(`--step: "${opts.step}"; expected a step above zero`);
   if (!(to >= from)) throw new InputError(`--to: ${to} is below --from ${from}; expected --from ≤ --to`);
   const count = Math.floor((to - from) / step + 1e-9) + 1;
   if (count > 10_000) throw new InputError(`--step: ${count} rows; expected at most 10000`);
   const temps: number[] = [];
   for (let i = 0; i < count; i++) temps.push(from + i * step);
-  const lowK = tempToK(from, plan.units);
-  if (lowK < 150 || tempToK(to, plan.units) > 450) {
+  const u = unitSystem(plan.units);
+  const toK = us ? fToK : cToK;
+  if (toK(from) < 150 || toK(to) > 450) {
     throw new InputError(
-      `--from/--to: expected temperatures between ${formatNumber(tempFromK(150, plan.units))} and ${formatNumber(tempFromK(450, plan.units))} ${us ? "°F" : "°C"}`,
+      `--from/--to: expected temperatures between ${showWithUnit(u.temp, kToC(150))} and ${showWithUnit(u.temp, kToC(450))}`,
     );
   }
-  const rows = bandCurves(
-    profile,
-    temps.map((t) => tempToK(t, plan.units)),
-    STANDARD_ATMOSPHERE_PA,
-  );
+  const rows = bandCurves(profile, temps.map(toK), STANDARD_ATMOSPHERE_PA);
   const json = {
     profile: profile.name,
     rows: rows.map((r) => ({
-      tempC: Number(formatNumber(r.tempC)),
-      prechargeKPaGauge: Number(formatNumber(r.prechargeKPaGauge)),
-      prechargeLowKPaGauge: Number(formatNumber(r.prechargeLowKPaGauge)),
-      prechargeHighKPaGauge: Number(formatNumber(r.prechargeHighKPaGauge)),
-      readingLowPct: Number(formatNumber(r.readingLowPct)),
-      readingNominalPct: Number(formatNumber(r.readingNominalPct)),
-      readingHighPct: Number(formatNumber(r.readingHighPct)),
-      idealReadingNominalPct: Number(formatNumber(r.idealReadingNominalPct)),
+      tempC: Number(formatMachine(r.tempC)),
+      prechargeKPaGauge: Number(formatMachine(r.prechargeKPaGauge)),
+      prechargeLowKPaGauge: Number(formatMachine(r.prechargeLowKPaGauge)),
+      prechargeHighKPaGauge: Number(formatMachine(r.prechargeHighKPaGauge)),
+      readingLowPct: Number(formatMachine(r.readingLowPct)),
+      readingNominalPct: Number(formatMachine(r.readingNominalPct)),
+      readingHighPct: Number(formatMachine(r.readingHighPct)),
+      idealReadingNominalPct: Number(formatMachine(r.idealReadingNominalPct)),
     })),
   };
-  const p = (kPa: number) => (us ? ((kPa * 1000) / PSI_PA).toFixed(0) : (kPa / 100).toFixed(2));
-  const pu = us ? "psig" : "bar";
-  const tu = us ? "°F" : "°C";
+  const p = (kPa: number) => show(u.pressure, kPa);
+  const pu = u.pressure.unit;
+  const tu = u.temp.unit;
   const header = [
     `temp ${tu}`,
     `precharge ${pu}`,
@@ -89,14 +107,14 @@ export async function bandCommand(
     "ideal nom %",
   ];
   const body = rows.map((r, i) => [
-    formatNumber(temps[i]!),
+    formatDisplay(temps[i]!, u.temp.digits),
     p(r.prechargeKPaGauge),
     p(r.prechargeLowKPaGauge),
     p(r.prechargeHighKPaGauge),
-    r.readingLowPct.toFixed(1),
-    r.readingNominalPct.toFixed(1),
-    r.readingHighPct.toFixed(1),
-    r.idealReadingNominalPct.toFixed(1),
+    pct(r.readingLowPct),
+    pct(r.readingNominalPct),
+    pct(r.readingHighPct),
+    pct(r.idealReadingNominalPct),
   ]);
   const widths = header.map((h, c) => Math.max(h.length, ...body.map((b) => b[c]!.length)));
   const line = (cells: string[]) => cells.map((x, c) => x.padStart(widths[c]!)).join("  ");

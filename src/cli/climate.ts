@@ -18,8 +18,7 @@ import {
 } from "../climate/index.js";
 import { InputError } from "../errors.js";
 import { writeFileAtomic } from "../fsutil.js";
-
-type Units = "us" | "si";
+import { formatDisplay, pct, show, type Units, unitSystem } from "../units/index.js";
 
 interface ClimateCliOptions {
   units: Units;
@@ -37,21 +36,14 @@ const PROGRESS_MIN_FILES = 8;
 
 const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
+const count = (n: number) => formatDisplay(n, 0);
+
 /** Temperature and temperature difference in the user's units. */
 function temp(c: number, units: Units): number {
-  return units === "us" ? c * 1.8 + 32 : c;
+  return unitSystem(units).temp.convert(c);
 }
 function delta(c: number, units: Units): number {
-  return units === "us" ? c * 1.8 : c;
-}
-function unitLabel(units: Units): string {
-  return units === "us" ? "°F" : "°C";
-}
-/** Fixed decimals; a value that rounds to zero prints without a sign ("0.0", not "-0.0"). */
-function fmt(v: number | null, digits = 1): string {
-  if (v === null) return "—";
-  const text = v.toFixed(digits);
-  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
+  return unitSystem(units).tempDelta.convert(c);
 }
 
 function localTime(utcIso: string, zone: string): string {
@@ -67,32 +59,33 @@ function parseGapHours(text: string): number {
 
 /** The per-station text block of the table output. */
 export function formatStation(s: StationSummary, units: Units): string {
-  const u = unitLabel(units);
+  const sys = unitSystem(units);
+  const u = sys.temp.unit;
   const lines: string[] = [];
   lines.push(`${s.id}  ${s.name ?? "(name unknown: --station-history gives names)"}`);
   lines.push(
-    `  position ${s.lat.toFixed(3)}, ${s.lon.toFixed(3)}, elevation ${s.elevationM} m, time zone ${s.timeZone}`,
+    `  position ${formatDisplay(s.lat, 3)}, ${formatDisplay(s.lon, 3)}, elevation ${show(sys.length, s.elevationM)} ${sys.length.unit}, time zone ${s.timeZone}`,
   );
   lines.push(
-    `  period ${s.firstUtc ?? "—"} to ${s.lastUtc ?? "—"}: ${s.hours} hours with a value (${s.filledHours} filled), completeness ${(s.completeness * 100).toFixed(1)} %`,
+    `  period ${s.firstUtc ?? "–"} to ${s.lastUtc ?? "–"}: ${count(s.hours)} hours with a value (${count(s.filledHours)} filled), completeness ${pct(s.completeness * 100)} %`,
   );
-  const dropped = DROP_REASONS.map((r) => `${r} ${s.qc.dropped[r]}`).join(", ");
-  lines.push(`  records read ${s.qc.read}, kept ${s.qc.kept}; dropped: ${dropped}`);
+  const dropped = DROP_REASONS.map((r) => `${r} ${count(s.qc.dropped[r])}`).join(", ");
+  lines.push(`  records read ${count(s.qc.read)}, kept ${count(s.qc.kept)}; dropped: ${dropped}`);
   if (s.extremes) {
     const e = s.extremes;
     lines.push(
-      `  coldest ${fmt(temp(e.minC, units))} ${u} at ${e.minUtc} (${localTime(e.minUtc, s.timeZone)}); warmest ${fmt(temp(e.maxC, units))} ${u} at ${e.maxUtc} (${localTime(e.maxUtc, s.timeZone)})`,
+      `  coldest ${show(sys.temp, e.minC)} ${u} at ${e.minUtc} (${localTime(e.minUtc, s.timeZone)}); warmest ${show(sys.temp, e.maxC)} ${u} at ${e.maxUtc} (${localTime(e.maxUtc, s.timeZone)})`,
     );
   }
   lines.push(`  month      min     mean      max   mean range  P90 range   (${u}, local time)`);
   for (const m of s.months) {
     if (m.minC === null) continue;
     const cells = [
-      fmt(temp(m.minC, units)),
-      fmt(temp(m.meanC!, units)),
-      fmt(temp(m.maxC!, units)),
-      fmt(m.meanDailyRangeC === null ? null : delta(m.meanDailyRangeC, units)),
-      fmt(m.p90DailyRangeC === null ? null : delta(m.p90DailyRangeC, units)),
+      show(sys.temp, m.minC),
+      show(sys.temp, m.meanC),
+      show(sys.temp, m.maxC),
+      show(sys.tempDelta, m.meanDailyRangeC),
+      show(sys.tempDelta, m.p90DailyRangeC),
     ];
     lines.push(
       `  ${MONTHS[m.month - 1]!.padEnd(5)}${cells[0]!.padStart(8)} ${cells[1]!.padStart(8)} ${cells[2]!.padStart(8)} ${cells[3]!.padStart(12)} ${cells[4]!.padStart(10)}`,

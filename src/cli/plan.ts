@@ -13,11 +13,11 @@ import { inputError } from "../errors.js";
 import { resultsJson, resultTables, toCsv } from "../output/tables.js";
 import { runPlan } from "../plan/engine.js";
 import { loadPlan, type Plan } from "../plan/planFile.js";
-import { formatMass, formatTemp } from "../plan/quantities.js";
 import type { Results } from "../plan/results.js";
 import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
 import { renderReport, writePdf } from "../report/index.js";
+import { formatDisplay, pct, showWithUnit, unitSystem } from "../units/index.js";
 
 export interface PlanCliOptions {
   schedule?: string;
@@ -64,7 +64,7 @@ export function summaryText(r: Results): string {
   const lines: string[] = [
     `Plan "${r.plan}": ${r.bases.length} base(s), climate years ${r.climateYears.join(", ") || "none"}`,
   ];
-  const u = r.units;
+  const u = unitSystem(r.units);
   for (const b of r.bases) {
     const items: string[] = [];
     for (const m of b.months) {
@@ -72,10 +72,10 @@ export function summaryText(r: Results): string {
       const oob = (m.belowBandPct ?? 0) + (m.aboveBandPct ?? 0);
       const advice = b.advice.find((a) => a.month === m.month);
       const parts: string[] = [];
-      if (oob > 0) parts.push(`${oob.toFixed(1)} % of preflights out of band`);
+      if (oob > 0) parts.push(`${pct(oob)} % of preflights out of band`);
       if (advice?.fitColdStartOption) {
         parts.push(
-          `${advice.shortPctOne!.toFixed(1)} % of starts short → fit the cold-start option (${advice.shortPctTwo!.toFixed(1)} % with it)`,
+          `${pct(advice.shortPctOne)} % of starts short → fit the cold-start option (${pct(advice.shortPctTwo)} % with it)`,
         );
       }
       if (parts.length > 0) items.push(`    ${MONTHS[m.month - 1]}: ${parts.join("; ")}`);
@@ -86,11 +86,11 @@ export function summaryText(r: Results): string {
       );
       continue;
     }
-    const cold = b.coldestMorningC === null ? "—" : formatTemp(b.coldestMorningC + 273.15, u);
-    const cold10 = b.coldest1in10C === null ? "—" : formatTemp(b.coldest1in10C + 273.15, u);
+    const cold = showWithUnit(u.temp, b.coldestMorningC);
+    const cold10 = showWithUnit(u.temp, b.coldest1in10C);
     const n2 = b.nitrogen;
     lines.push(
-      `  ${b.name}: coldest preflight ${cold} (1-in-10-year ${cold10}); nitrogen P95 ${formatMass(n2.kgP95, u)}, ${n2.cylindersP95} cylinder(s), ${n2.cartsP95} cart(s)`,
+      `  ${b.name}: coldest preflight ${cold} (1-in-10-year ${cold10}); nitrogen P95 ${showWithUnit(u.mass, n2.kgP95)}, ${formatDisplay(n2.cylindersP95, 0)} cylinder(s), ${formatDisplay(n2.cartsP95, 0)} cart(s)`,
     );
     lines.push(...(items.length > 0 ? items : ["    no month needs action"]));
   }

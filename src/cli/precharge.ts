@@ -4,20 +4,24 @@
  */
 import type { Command } from "commander";
 import { InputError } from "../errors.js";
+import { standardAtmospherePa } from "../physics/atmosphere.js";
 import { idealGas, N2_CRITICAL_TEMP_K, N2_MAX_TEMP_K, realGas } from "../physics/nitrogen.js";
 import {
+  formatDisplay,
   kToC,
-  kToF,
   PA_PER_BAR,
   PA_PER_KPA,
   PA_PER_PSI,
-  parsePressure,
-  parseTemperature,
-  paToPsi,
-  standardAtmospherePa,
-} from "../physics/units.js";
+  parsePressureAt,
+  parseTemperatureK,
+  SI_UNITS,
+  showWithUnit,
+  US_UNITS,
+} from "../units/index.js";
+import { parseOption } from "./options.js";
 
-const REF_EXAMPLE = "--ref 1450psig@70F (units: psig psia bar bara kPa kPaa MPa MPaa; F C K)";
+const PRESSURE_UNITS = "psig psia bar barg bara kPa kPag kPaa MPa MPag MPaa";
+const REF_EXAMPLE = `--ref 1450psig@70F (units: ${PRESSURE_UNITS}; F C K)`;
 const AT_EXAMPLE = "--at 50F (units: F C K)";
 
 export interface PrechargeAnswer {
@@ -35,44 +39,25 @@ function optionError(option: string, message: string): InputError {
   return new InputError(`${option}: ${message}`);
 }
 
-function parseTempOption(option: string, text: string, example: string): number {
-  let tempK: number;
-  try {
-    tempK = parseTemperature(text);
-  } catch {
-    throw optionError(option, `"${text}" is not a temperature; expected <number><F|C|K>, e.g. ${example}`);
-  }
+/** Checks that nitrogen at this temperature is one gas phase within the equation's range. */
+function checkTempRange(option: string, text: string, tempK: number): void {
   // Above the critical temperature nitrogen is a single gas phase at every pressure, so "the pressure
   // of this gas amount at T" has one answer; below it the charge may condense (Span et al. 2000).
   if (!(tempK > N2_CRITICAL_TEMP_K && tempK <= N2_MAX_TEMP_K)) {
     throw optionError(
       option,
-      `${text} is outside ${(N2_CRITICAL_TEMP_K - 273.15).toFixed(2)} to ${N2_MAX_TEMP_K - 273.15} °C: expected a temperature above nitrogen's critical temperature (${N2_CRITICAL_TEMP_K} K, where colder gas may liquefy) and within the equation's upper limit (${N2_MAX_TEMP_K} K)`,
+      `${text} is outside ${kToC(N2_CRITICAL_TEMP_K).toFixed(2)} to ${kToC(N2_MAX_TEMP_K)} °C: expected a temperature above nitrogen's critical temperature (${N2_CRITICAL_TEMP_K} K, where colder gas may liquefy) and within the equation's upper limit (${N2_MAX_TEMP_K} K)`,
     );
   }
-  return tempK;
 }
 
 /** Parses the options and computes the precharge at the new temperature with both gas models. */
 export function prechargeAnswer(refText: string, atText: string, elevationText = "0"): PrechargeAnswer {
-  const at = refText.indexOf("@");
-  if (at < 0 || refText.indexOf("@", at + 1) >= 0) {
-    throw optionError("--ref", `"${refText}" is not <pressure>@<temperature>, e.g. ${REF_EXAMPLE}`);
-  }
-  let pressure: { pa: number; isGauge: boolean };
-  try {
-    pressure = parsePressure(refText.slice(0, at));
-  } catch {
-    const isDifference = /^\s*[-+0-9.eE]+\s*psi\s*$/i.test(refText.slice(0, at));
-    throw optionError(
-      "--ref",
-      isDifference
-        ? `"${refText}": a bare "psi" is a pressure difference; write psig (gauge) or psia (absolute), e.g. ${REF_EXAMPLE}`
-        : `"${refText}" does not start with a pressure and its unit, e.g. ${REF_EXAMPLE}`,
-    );
-  }
-  const refTempK = parseTempOption("--ref", refText.slice(at + 1), REF_EXAMPLE);
-  const atTempK = parseTempOption("--at", atText, AT_EXAMPLE);
+  const ref = parseOption("--ref", REF_EXAMPLE, parsePressureAt, refText);
+  checkTempRange("--ref", refText, ref.tempK);
+  const { pressure, tempK: refTempK } = ref;
+  const atTempK = parseOption("--at", AT_EXAMPLE, parseTemperatureK, atText);
+  checkTempRange("--at", atText, atTempK);
   const elevationM = Number(elevationText);
   if (elevationText.trim() === "" || !Number.isFinite(elevationM)) {
     throw optionError("--elevation", `"${elevationText}" is not a number of metres, e.g. --elevation 1500`);
@@ -122,16 +107,17 @@ export function prechargeJson(a: PrechargeAnswer): {
   atTempC: number;
 } {
   return {
-    realPsig: round(paToPsi(a.realAbsPa - a.atmPa), 3),
-    idealPsig: round(paToPsi(a.idealAbsPa - a.atmPa), 3),
+    realPsig: round((a.realAbsPa - a.atmPa) / PA_PER_PSI, 3),
+    idealPsig: round((a.idealAbsPa - a.atmPa) / PA_PER_PSI, 3),
     realKPaGauge: round((a.realAbsPa - a.atmPa) / PA_PER_KPA, 2),
     idealKPaGauge: round((a.idealAbsPa - a.atmPa) / PA_PER_KPA, 2),
     atTempC: round(kToC(a.atTempK), 3),
   };
 }
 
+/** A temperature in both display systems: "70.0 °F (21.1 °C)". */
 function tempText(k: number): string {
-  return `${kToF(k).toFixed(1)} °F (${kToC(k).toFixed(1)} °C)`;
+  return `${showWithUnit(US_UNITS.temp, kToC(k))} (${showWithUnit(SI_UNITS.temp, kToC(k))})`;
 }
 
 /** Human-readable answer. */
@@ -140,10 +126,10 @@ export function prechargeText(a: PrechargeAnswer): string {
   const gIdeal = a.idealAbsPa - a.atmPa;
   const refG = a.refAbsPa - a.atmPa;
   const row = (label: string, perUnit: number, digits: number): string =>
-    `  ${label.padEnd(12)}${(gReal / perUnit).toFixed(digits).padStart(12)}${(gIdeal / perUnit).toFixed(digits).padStart(14)}`;
+    `  ${label.padEnd(12)}${formatDisplay(gReal / perUnit, digits).padStart(12)}${formatDisplay(gIdeal / perUnit, digits).padStart(14)}`;
   const lines = [
-    `Precharge serviced to ${paToPsi(refG).toFixed(1)} psig (${(refG / PA_PER_BAR).toFixed(2)} bar gauge) at ${tempText(a.refTempK)}`,
-    `Local atmosphere ${(a.atmPa / PA_PER_KPA).toFixed(3)} kPa (standard atmosphere at ${a.elevationM} m); gauge = absolute − atmosphere`,
+    `Precharge serviced to ${formatDisplay(refG / PA_PER_PSI, 1)} psig (${formatDisplay(refG / PA_PER_BAR, 2)} bar gauge) at ${tempText(a.refTempK)}`,
+    `Local atmosphere ${formatDisplay(a.atmPa / PA_PER_KPA, 3)} kPa (standard atmosphere at ${formatDisplay(a.elevationM, 0)} m); gauge = absolute − atmosphere`,
     "",
     `Precharge at ${tempText(a.atTempK)}:`,
     `  ${"".padEnd(12)}${"real gas".padStart(12)}${"ideal gas".padStart(14)}`,
@@ -166,7 +152,7 @@ export function registerPrecharge(program: Command): void {
     )
     .requiredOption(
       "--ref <pressure@temperature>",
-      "service reference, <number><psig|psia|bar|bara|kPa|kPaa|MPa|MPaa>@<number><F|C|K>; psig, bar, kPa and MPa are gauge",
+      "service reference, <number><psig|psia|bar|barg|bara|kPa|kPag|kPaa|MPa|MPag|MPaa>@<number><F|C|K>, spaces allowed; psig, bar(g), kPa(g) and MPa(g) are gauge",
     )
     .requiredOption("--at <temperature>", "temperature to convert to, <number><F|C|K>")
     .option(

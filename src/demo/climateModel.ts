@@ -21,6 +21,7 @@
  * Everything is drawn from one seeded stream per station (src/demo/prng.ts); the same seed gives the
  * same hours.
  */
+import { cToK } from "../units/index.js";
 import { exponential, fnv1a32, mulberry32, standardNormal, type Uniform, uniformInt } from "./prng.js";
 import type { DemoStation, Monthly } from "./stations.js";
 
@@ -180,7 +181,7 @@ export function ar1Phi(tauH: number): number {
 
 /** Sea-level pressure reduced to station level by the hypsometric equation, R_d/g = 29.27 m/K. */
 export function stationPressureHpa(seaLevelHpa: number, elevationM: number, tempC: number): number {
-  const meanLayerK = tempC + 273.15 + (0.0065 * elevationM) / 2;
+  const meanLayerK = cToK(tempC) + (0.0065 * elevationM) / 2;
   return seaLevelHpa * Math.exp(-elevationM / (29.27 * meanLayerK));
 }
 

@@ -8,6 +8,7 @@
  * plan/results (types), never the engine, the climate or the physics code.
  */
 import type { BaseResult, ProfileResult, Results } from "../plan/results.js";
+import { formatMachine, shownText, unitSystem } from "../units/index.js";
 
 export type Cell = string | number | boolean | null;
 export interface Table {
@@ -16,18 +17,14 @@ export interface Table {
   rows: Cell[][];
 }
 
-/** Numbers are written with at most 6 decimals (stable text for byte-identical files). */
-export function formatNumber(x: number): string {
-  if (Number.isInteger(x)) return String(x);
-  const r = Number(x.toFixed(6));
-  return String(Object.is(r, -0) ? 0 : r);
-}
-
 function cell(c: Cell): string {
   if (c === null) return "";
-  if (typeof c === "number") return Number.isFinite(c) ? formatNumber(c) : "";
+  if (typeof c === "number") return Number.isFinite(c) ? formatMachine(c) : "";
   if (typeof c === "boolean") return c ? "yes" : "no";
-  return /[",\r\n]/.test(c) || c !== c.trim() ? `"${c.replace(/"/g, '""')}"` : c;
+  // A text that a spreadsheet would read as a formula (= + - @ tab CR first, e.g. a plan's "-40 F")
+  // gets a leading apostrophe (OWASP, "CSV Injection").
+  const text = /^[=+\-@\t\r]/.test(c) ? `'${c}` : c;
+  return /[",\r\n]/.test(text) || text !== text.trim() ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
 export function toCsv(t: Table): string {
@@ -261,8 +258,11 @@ export function resultTables(r: Results): Table[] {
     table("assumptions", r.assumptions, [
       ["key", (a) => a.key],
       ["label", (a) => a.label],
-      ["value", (a) => a.value],
+      ["shown", (a) => shownText(a, unitSystem(r.units))],
+      ["kind", (a) => a.kind],
+      ["value", (a) => (Array.isArray(a.value) ? a.value.join("; ") : a.value)],
       ["unit", (a) => a.unit],
+      ["at_temp_c", (a) => a.atTempC ?? null],
       ["origin", (a) => a.origin],
     ]),
   ];
@@ -273,7 +273,7 @@ export function resultsJson(r: Results): string {
   return `${JSON.stringify(
     r,
     (_k, v) =>
-      typeof v === "number" && !Number.isInteger(v) && Number.isFinite(v) ? Number(formatNumber(v)) : v,
+      typeof v === "number" && !Number.isInteger(v) && Number.isFinite(v) ? Number(formatMachine(v)) : v,
     2,
   )}\n`;
 }

@@ -14,6 +14,7 @@
  * Units: SI throughout (Pa absolute, K, mol/m³, J/mol, J/(mol·K), m/s).
  */
 import { InputError } from "../errors.js";
+import { kToC } from "../units/index.js";
 
 // ---------------------------------------------------------------------------------------------------
 // Constants and coefficients, transcribed from Span et al. (2000) (copy kept in
@@ -256,7 +257,7 @@ function ideal2(tau: number): number {
 function checkTemp(tempK: number): void {
   if (!(tempK >= N2_MIN_TEMP_K && tempK <= N2_MAX_TEMP_K)) {
     throw new InputError(
-      `tempK: ${tempK} K (${fmt(tempK - 273.15)} °C) is outside the nitrogen equation's validity range ${N2_MIN_TEMP_K}–${N2_MAX_TEMP_K} K`,
+      `tempK: ${tempK} K (${fmt(kToC(tempK))} °C) is outside the nitrogen equation's validity range ${N2_MIN_TEMP_K}–${N2_MAX_TEMP_K} K`,
     );
   }
 }

@@ -3,7 +3,7 @@
  * profiles' precharge lines and reading bands at the standard atmosphere, the stays, assumptions,
  * methods, the random inputs drawn from the seed, and the warnings of the run.
  */
-import { STANDARD_ATMOSPHERE_PA } from "../physics/units.js";
+import { STANDARD_ATMOSPHERE_PA } from "../units/index.js";
 import { TOOL_VERSION } from "../version.js";
 import { assumptionsOf } from "./assumptions.js";
 import { bandCurves } from "./bandCurves.js";

@@ -1,159 +1,164 @@
 /**
- * Every plan parameter with its value (in the plan's output units) and its origin — the plan file, a
- * default, or a demo assumption when the file says `assumptionOrigin: demo` — for the report's
- * assumptions table.
+ * Every plan parameter as data for results.json: its value in the fixed JSON units (°C, kPa gauge, L,
+ * J, …; plain numbers as they are), its quantity kind, the text exactly as written in the plan file
+ * (null for a default) and its origin — the plan file, a default, or a demo assumption when the file
+ * says `assumptionOrigin: demo`. Nothing is formatted here: the report and assumptions.csv show the
+ * written text, or a default in the plan's units.
  */
 
+import { JSON_UNITS, kToC, type QuantityKind, type QuantityValue, toJsonUnit } from "../units/index.js";
 import type { Plan, PointPressure } from "./planFile.js";
 import { WEEKDAY_NAMES } from "./planFile.js";
-import {
-  formatBulkModulus,
-  formatEnergy,
-  formatExpansion,
-  formatFlow,
-  formatPressureAbs,
-  formatPressureDiff,
-  formatPressureGauge,
-  formatRate,
-  formatTemp,
-  formatTime,
-  formatVolume,
-} from "./quantities.js";
 import type { Assumption } from "./results.js";
 
 const clock = (min: number) =>
   `${String(Math.floor(min / 60)).padStart(2, "0")}:${String(min % 60).padStart(2, "0")}`;
 
+type Path = (string | number)[];
+
 export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
-  const u = plan.units;
   const out: Assumption[] = [];
-  const add = (path: (string | number)[], label: string, text: string, keyPath?: string) => {
-    const sp = text.indexOf(" ");
-    const numeric = sp > 0 && /^[-+\d.]/.test(text) && !text.includes(",") && !text.includes("@");
+  const origin = (path: Path): Assumption["origin"] =>
+    plan.has(path) ? (plan.assumptionOrigin === "demo" ? "demo assumption" : "plan file") : "default";
+  /** One assumption; `si` numbers are converted into the kind's JSON unit. */
+  const add = (
+    path: Path,
+    label: string,
+    kind: QuantityKind,
+    si: QuantityValue,
+    more: { key?: string; unit?: string; atTempK?: number } = {},
+  ) => {
     out.push({
-      key: keyPath ?? path.join("."),
+      key: more.key ?? path.join("."),
       label,
-      value: numeric ? text.slice(0, sp) : text,
-      unit: numeric ? text.slice(sp + 1) : "",
-      origin: plan.has(path)
-        ? plan.assumptionOrigin === "demo"
-          ? "demo assumption"
-          : "plan file"
-        : "default",
+      kind,
+      value: typeof si === "number" ? toJsonUnit(kind, si) : si,
+      unit: more.unit ?? JSON_UNITS[kind].unit,
+      ...(more.atTempK === undefined ? {} : { atTempC: kToC(more.atTempK) }),
+      text: plan.written(path),
+      origin: origin(path),
     });
   };
-  const pp = (p: PointPressure) => (p.isGauge ? formatPressureGauge(p.pa, u) : formatPressureAbs(p.pa, u));
+  const pressureKind = (p: PointPressure): QuantityKind => (p.isGauge ? "pressureGauge" : "pressureAbsolute");
 
-  add(["units"], "Output units", u);
-  add(["seed"], "Seed of the random inputs", String(plan.seed));
+  add(["units"], "Output units", "text", plan.units);
+  add(["seed"], "Seed of the random inputs", "number", plan.seed);
   const c = plan.climate;
-  add(["climate", "paths"], "Climate files and folders", c.paths.join(", "));
-  add(
-    ["climate", "years"],
-    "Climate years",
-    c.years ? `${c.years.from}–${c.years.to}` : "every year in the data",
-  );
-  add(["climate", "gapHours"], "Longest gap filled linearly", `${c.gapHours} h`);
-  add(["climate", "minYearShare"], "Share of hours for a year to count", `${c.minYearShare * 100} %`);
-  add(["climate", "minYears"], "Usable years below which a base is flagged", String(c.minYears));
-  add(["climate", "cacheDir"], "Climate cache folder", c.cacheDir ?? "out/cache/climate");
-  add(["climate", "stationHistory"], "Station-history list", c.stationHistory ?? "none");
-  add(["schedule"], "Schedule file", plan.schedule ?? "given on the command line");
+  add(["climate", "paths"], "Climate files and folders", "text", c.paths);
+  if (c.years) {
+    add(["climate", "years", "from"], "First climate year", "year", c.years.from);
+    add(["climate", "years", "to"], "Last climate year", "year", c.years.to);
+  } else {
+    add(["climate", "years"], "Climate years", "text", "every year in the data");
+  }
+  add(["climate", "gapHours"], "Longest gap filled linearly", "count", c.gapHours, { unit: "h" });
+  add(["climate", "minYearShare"], "Share of hours for a year to count (0–1)", "fraction", c.minYearShare);
+  add(["climate", "minYears"], "Usable years below which a base is flagged", "count", c.minYears);
+  add(["climate", "cacheDir"], "Climate cache folder", "text", c.cacheDir ?? "out/cache/climate");
+  add(["climate", "stationHistory"], "Station-history list", "text", c.stationHistory ?? "none");
+  add(["schedule"], "Schedule file", "text", plan.schedule ?? "given on the command line");
 
   plan.bases.forEach((b, i) => {
-    const k = (...rest: (string | number)[]) => ["bases", i, ...rest];
-    const key = (rest: string) => `bases.${b.name}.${rest}`;
-    add(k("stations"), `${b.name}: stations (priority order)`, b.stations.join(", "), key("stations"));
+    const at = (...rest: Path) => ["bases", i, ...rest];
+    const key = (rest: string) => ({ key: `bases.${b.name}.${rest}` });
+    add(at("stations"), `${b.name}: stations (priority order)`, "text", b.stations, key("stations"));
     if (b.hangar) {
-      add(
-        k("hangar", "temperature"),
-        `${b.name}: hangar temperature`,
-        formatTemp(b.hangar.temperature, u),
-        key("hangar.temperature"),
-      );
-      add(k("hangar", "in"), `${b.name}: into the hangar`, clock(b.hangar.in), key("hangar.in"));
-      add(k("hangar", "out"), `${b.name}: out of the hangar`, clock(b.hangar.out), key("hangar.out"));
+      const h = b.hangar;
+      add(at("hangar", "temperature"), `${b.name}: hangar temperature`, "temperature", h.temperature, {
+        ...key("hangar.temperature"),
+      });
+      add(at("hangar", "in"), `${b.name}: into the hangar`, "localTime", clock(h.in), key("hangar.in"));
+      add(at("hangar", "out"), `${b.name}: out of the hangar`, "localTime", clock(h.out), key("hangar.out"));
     } else {
-      add(k("hangar"), `${b.name}: overnight hangar`, "none", key("hangar"));
+      add(at("hangar"), `${b.name}: overnight hangar`, "text", "none", key("hangar"));
     }
   });
 
   plan.profiles.forEach((p, i) => {
-    const k = (...rest: (string | number)[]) => ["profiles", i, ...rest];
-    const a = (path: (string | number)[], label: string, text: string) =>
-      add(k(...path), `${p.name}: ${label}`, text, `profiles.${p.name}.${path.join(".")}`);
-    a(
-      ["accumulator", "gasVolumeEmpty"],
-      "gas volume at 0 % (V0)",
-      formatVolume(p.accumulator.gasVolumeEmpty, u),
+    const a = (path: Path, label: string, kind: QuantityKind, si: QuantityValue, atTempK?: number) =>
+      add(["profiles", i, ...path], `${p.name}: ${label}`, kind, si, {
+        key: `profiles.${p.name}.${path.join(".")}`,
+        ...(atTempK === undefined ? {} : { atTempK }),
+      });
+    const pressure = (path: Path, label: string, x: PointPressure, atTempK?: number) =>
+      a(path, label, pressureKind(x), x.pa, atTempK);
+    a(["accumulator", "gasVolumeEmpty"], "gas volume at 0 % (V0)", "volume", p.accumulator.gasVolumeEmpty);
+    a(["accumulator", "gasVolumeFull"], "gas volume at 100 % (Vmin)", "volume", p.accumulator.gasVolumeFull);
+    const ref = p.precharge.reference;
+    pressure(["precharge", "reference"], "precharge reference", ref.pressure, ref.tempK);
+    a(["precharge", "tolerance"], "precharge tolerance (±)", "pressureDifference", p.precharge.tolerance);
+    pressure(["system", "low"], "system pressure, low", p.system.low);
+    pressure(["system", "nominal"], "system pressure, nominal", p.system.nominal);
+    pressure(["system", "high"], "system pressure, high", p.system.high);
+    a(["fluid", "expansionPerK"], "fluid volumetric expansion", "expansion", p.fluid.expansionPerK);
+    a(["fluid", "bulkModulus"], "fluid bulk modulus", "pressureDifference", p.fluid.bulkModulus);
+    a(["fluid", "lineVolume"], "trapped line fluid volume", "volume", p.fluid.lineVolume);
+    a(["thermalTimeConstant"], "thermal time constant", "duration", p.thermalTimeConstant);
+    a(["gasLoss", "rate"], "gas loss rate (median)", "pressureRate", p.gasLoss.rate);
+    a(["gasLoss", "spread"], "gas loss spread (σ of ln rate)", "number", p.gasLoss.spread);
+    pressure(
+      ["starter", "minUsefulPressure"],
+      "starter minimum useful pressure",
+      p.starter.minUsefulPressure,
     );
-    a(
-      ["accumulator", "gasVolumeFull"],
-      "gas volume at 100 % (Vmin)",
-      formatVolume(p.accumulator.gasVolumeFull, u),
-    );
-    a(
-      ["precharge", "reference"],
-      "precharge reference",
-      `${pp(p.precharge.reference.pressure)} @ ${formatTemp(p.precharge.reference.tempK, u)}`,
-    );
-    a(["precharge", "tolerance"], "precharge tolerance (±)", formatPressureDiff(p.precharge.tolerance, u));
-    a(["system", "low"], "system pressure, low", pp(p.system.low));
-    a(["system", "nominal"], "system pressure, nominal", pp(p.system.nominal));
-    a(["system", "high"], "system pressure, high", pp(p.system.high));
-    a(["fluid", "expansionPerK"], "fluid volumetric expansion", formatExpansion(p.fluid.expansionPerK, u));
-    a(["fluid", "bulkModulus"], "fluid bulk modulus", formatBulkModulus(p.fluid.bulkModulus, u));
-    a(["fluid", "lineVolume"], "trapped line fluid volume", formatVolume(p.fluid.lineVolume, u));
-    a(["thermalTimeConstant"], "thermal time constant", formatTime(p.thermalTimeConstant));
-    a(["gasLoss", "rate"], "gas loss rate (median)", formatRate(p.gasLoss.rate, u));
-    a(["gasLoss", "spread"], "gas loss spread (σ of ln rate)", String(p.gasLoss.spread));
-    a(["starter", "minUsefulPressure"], "starter minimum useful pressure", pp(p.starter.minUsefulPressure));
-    a(["starter", "returnPressure"], "starter return pressure", pp(p.starter.returnPressure));
-    a(["starter", "expansion"], "gas expansion during a start", p.starter.expansion);
+    pressure(["starter", "returnPressure"], "starter return pressure", p.starter.returnPressure);
+    a(["starter", "expansion"], "gas expansion during a start", "text", p.starter.expansion);
     p.startEnergy.forEach((r, j) => {
-      a(["startEnergy", j], `required start energy at ${formatTemp(r.ambient, u)}`, formatEnergy(r.energy));
+      a(
+        ["startEnergy", j, "ambient"],
+        `start energy table, row ${j + 1}: air temperature`,
+        "temperature",
+        r.ambient,
+      );
+      a(
+        ["startEnergy", j, "energy"],
+        `start energy table, row ${j + 1}: energy required`,
+        "energy",
+        r.energy,
+      );
     });
     p.pump.curve.forEach((r, j) => {
-      a(["pump", "curve", j], `pump flow at ${pp(r.pressure)}`, formatFlow(r.flow, u));
+      pressure(["pump", "curve", j, "pressure"], `pump curve, row ${j + 1}: pressure`, r.pressure);
+      a(["pump", "curve", j, "flow"], `pump curve, row ${j + 1}: flow`, "flow", r.flow);
     });
-    a(["pump", "timer"], "pump run timer", formatTime(p.pump.timer));
-    a(["handPump", "displacement"], "hand-pump displacement", formatVolume(p.handPump.displacement, u));
-    a(["handPump", "efficiency"], "hand-pump volumetric efficiency", String(p.handPump.efficiency));
-    a(["coldStartOption", "count"], "cold-start option: accumulators", String(p.coldStartOption.count));
-    a(["coldStartOption", "timer"], "cold-start option: pump run timer", formatTime(p.coldStartOption.timer));
+    a(["pump", "timer"], "pump run timer", "duration", p.pump.timer);
+    a(["handPump", "displacement"], "hand-pump displacement", "volume", p.handPump.displacement);
+    a(["handPump", "efficiency"], "hand-pump volumetric efficiency (0–1)", "fraction", p.handPump.efficiency);
+    a(["coldStartOption", "count"], "cold-start option: accumulators", "count", p.coldStartOption.count);
+    a(["coldStartOption", "timer"], "cold-start option: pump run timer", "duration", p.coldStartOption.timer);
   });
 
   const o = plan.operations;
-  add(["operations", "startTimes"], "Start times (local)", o.startTimes.map(clock).join(", "));
+  add(["operations", "startTimes"], "Start times (local)", "localTime", o.startTimes.map(clock));
   add(
     ["operations", "weekdays"],
     "Weekdays flown",
-    `${weekdays.map((d) => WEEKDAY_NAMES[d - 1]).join(", ")}${typeof o.weekdays === "number" ? ` (${o.weekdays} drawn from the seed)` : ""}`,
+    "weekday",
+    weekdays.map((d) => WEEKDAY_NAMES[d - 1]!),
   );
-  add(["operations", "prechargeCheckDays"], "Precharge check interval", `${o.prechargeCheckDays} days`);
-  add(["operations", "outOfBand"], "Action on an out-of-band preflight", o.outOfBand);
+  add(["operations", "prechargeCheckDays"], "Precharge check interval", "count", o.prechargeCheckDays, {
+    unit: "d",
+  });
+  add(["operations", "outOfBand"], "Action on an out-of-band preflight", "text", o.outOfBand);
   const n = plan.nitrogen;
-  add(
-    ["nitrogen", "cylinder", "waterVolume"],
-    "Cylinder water volume",
-    formatVolume(n.cylinder.waterVolume, u),
-  );
-  add(
-    ["nitrogen", "cylinder", "fill"],
-    "Cylinder fill",
-    `${pp(n.cylinder.fill.pressure)} @ ${formatTemp(n.cylinder.fill.tempK, u)}`,
-  );
+  add(["nitrogen", "cylinder", "waterVolume"], "Cylinder water volume", "volume", n.cylinder.waterVolume);
+  const fill = n.cylinder.fill;
+  add(["nitrogen", "cylinder", "fill"], "Cylinder fill", pressureKind(fill.pressure), fill.pressure.pa, {
+    atTempK: fill.tempK,
+  });
   add(
     ["nitrogen", "transferDifferential"],
     "Transfer differential",
-    formatPressureDiff(n.transferDifferential, u),
+    "pressureDifference",
+    n.transferDifferential,
   );
-  add(["nitrogen", "hoseVolume"], "Hose volume vented per disconnect", formatVolume(n.hoseVolume, u));
-  add(["nitrogen", "cylindersPerCart"], "Cylinders per cart", String(n.cylindersPerCart));
+  add(["nitrogen", "hoseVolume"], "Hose volume vented per disconnect", "volume", n.hoseVolume);
+  add(["nitrogen", "cylindersPerCart"], "Cylinders per cart", "count", n.cylindersPerCart);
   add(
     ["thresholds", "shortStartsPct"],
     "Share of starts short that calls for the option",
-    `${plan.thresholds.shortStartsPct} %`,
+    "percent",
+    plan.thresholds.shortStartsPct,
   );
   return out;
 }

@@ -4,6 +4,7 @@
  */
 import { prechargeLinesAbsPa, readingBand } from "../physics/accumulator.js";
 import { idealGas, realGas } from "../physics/nitrogen.js";
+import { kToC, PA_PER_KPA } from "../units/index.js";
 import { bandInputsOf } from "./context.js";
 import type { ProfileInput } from "./planFile.js";
 
@@ -23,14 +24,14 @@ export interface BandCurveRow {
 export function bandCurves(profile: ProfileInput, tempsK: number[], atmPa: number): BandCurveRow[] {
   const geometry = { v0M3: profile.accumulator.gasVolumeEmpty, vminM3: profile.accumulator.gasVolumeFull };
   const band = bandInputsOf(profile, atmPa);
-  const kPaG = (abs: number) => (abs - atmPa) / 1000;
+  const kPaG = (abs: number) => (abs - atmPa) / PA_PER_KPA;
   return tempsK.map((t) => {
     const line = prechargeLinesAbsPa(realGas, band, t);
     const idealLine = prechargeLinesAbsPa(idealGas, band, t);
     const b = readingBand(realGas, geometry, band, t);
     const bi = readingBand(idealGas, geometry, band, t);
     return {
-      tempC: t - 273.15,
+      tempC: kToC(t),
       prechargeKPaGauge: kPaG(line.nominalAbsPa),
       prechargeLowKPaGauge: kPaG(line.lowAbsPa),
       prechargeHighKPaGauge: kPaG(line.highAbsPa),

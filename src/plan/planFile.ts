@@ -1,5 +1,5 @@
 import { dirname, resolve } from "node:path";
-import { type Document, isMap, LineCounter, parseDocument } from "yaml";
+import { type Document, isMap, isScalar, isSeq, LineCounter, parseDocument } from "yaml";
 import { z } from "zod";
 import { inputError } from "../errors.js";
 import { readInputText } from "../fsutil.js";
@@ -18,7 +18,8 @@ import {
   parseTimeS,
   parseVolumeM3,
   QuantityError,
-} from "./quantities.js";
+  STANDARD_ATMOSPHERE_PA,
+} from "../units/index.js";
 
 /** A string field parsed by `parser`; a parse failure becomes a zod issue at that path. */
 function q<T>(parser: (s: string) => T) {
@@ -123,7 +124,7 @@ const profileSchema = z
       ctx.addIssue({ code: "custom", path: ["system"], message: "expected low ≤ nominal ≤ high" });
     }
     // Gauge comparisons (an absolute value is compared as if the atmosphere were 101.325 kPa).
-    const g = (x: PointPressure) => (x.isGauge ? x.pa : x.pa - 101325);
+    const g = (x: PointPressure) => (x.isGauge ? x.pa : x.pa - STANDARD_ATMOSPHERE_PA);
     const ref = g(p.precharge.reference.pressure);
     if (!(p.precharge.tolerance < ref)) {
       ctx.addIssue({
@@ -268,6 +269,11 @@ export interface Plan extends PlanInput {
   lineOf(path: (string | number)[]): number;
   /** True when the YAML file sets this path (false: the value is a default). */
   has(path: (string | number)[]): boolean;
+  /**
+   * The value at a YAML path exactly as written in the file ("1.4 GPa", "0.80"; a list's items joined
+   * by ", "), or null when the file does not set it.
+   */
+  written(path: (string | number)[]): string | null;
 }
 
 /** "profiles[0].precharge.reference" */
@@ -287,6 +293,14 @@ function nodeLine(doc: Document, lc: LineCounter, path: (string | number)[]): nu
     if (node !== undefined && node !== null && range) return lc.linePos(range[0]).line;
   }
   return 1;
+}
+
+/** The text of a YAML node as written: a scalar's source, a collection's items joined by ", ". */
+function writtenText(node: unknown): string | null {
+  if (isScalar(node)) return node.source ?? String(node.value);
+  if (isSeq(node)) return node.items.map(writtenText).join(", ");
+  if (isMap(node)) return node.items.map((p) => `${writtenText(p.key)}: ${writtenText(p.value)}`).join(", ");
+  return null;
 }
 
 const article = (noun: string) => (/^[aeiou]/.test(noun) ? `an ${noun}` : `a ${noun}`);
@@ -349,6 +363,7 @@ export function parsePlanText(text: string, file: string): Plan {
     dir: dirname(resolve(file)),
     lineOf: (path) => nodeLine(doc, lc, path),
     has,
+    written: (path) => (has(path) ? writtenText(doc.getIn(path, true)) : null),
   };
 }
 

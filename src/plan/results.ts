@@ -4,8 +4,9 @@
  * °C, kPa gauge (`…KPaGauge`), L, kg, J; percentages 0–100; `null` where a month has no preflights.
  * No wall-clock time is stored, so two runs on the same inputs give byte-identical files.
  */
+import type { QuantityData, Units } from "../units/index.js";
 
-export type Units = "us" | "si";
+export type { Units };
 
 /** Quality-control counts for one station (product brief, section 4). read = kept + Σ dropped. */
 export interface QcCounts {
@@ -38,12 +39,22 @@ export interface StationResult {
   qc: QcCounts;
 }
 
-/** One assumption as shown in the report's assumptions table. */
-export interface Assumption {
-  key: string; // YAML path, e.g. "profiles.main.precharge.ref"
+/**
+ * One plan parameter as data (the report's assumptions table and assumptions.csv show it):
+ * - `key`: its YAML path with names for list items, e.g. "profiles.main.precharge.reference";
+ * - `kind`: the quantity kind ("pressureGauge", "pressureAbsolute", "pressureDifference",
+ *   "pressureRate", "temperature", "volume", "energy", "duration", "flow", "expansion", "percent",
+ *   "fraction", "number", "count", "year", "localTime", "weekday", "text");
+ * - `value` in the fixed units of results.json whatever the plan's units, named by `unit`: kPa gauge,
+ *   kPa absolute, kPa (a difference), kPa/month (mean Gregorian month), °C, L, J, s, L/s, 1/K, %;
+ *   plain numbers as they are (`unit` "" or what a count counts: "h", "d"); texts, "HH:MM" local
+ *   times and lists of them as strings;
+ * - `atTempC`: for a pressure stated at a temperature ("1450 psig @ 70 F"), that temperature in °C;
+ * - `text`: exactly as written in the plan file (a list's items joined by ", "), or null for a default.
+ */
+export interface Assumption extends QuantityData {
+  key: string;
   label: string;
-  value: string; // formatted in the plan's units
-  unit: string;
   origin: "plan file" | "default" | "demo assumption";
 }
 

@@ -6,7 +6,7 @@ import { existsSync } from "node:fs";
 import { resolve } from "node:path";
 import { climateOptions, loadClimate, mergeByPriority, type StationClimate } from "../climate/index.js";
 import { inputError } from "../errors.js";
-import { standardAtmospherePa } from "../physics/units.js";
+import { standardAtmospherePa } from "../physics/atmosphere.js";
 import type { BaseClimate } from "./engine.js";
 import type { Plan } from "./planFile.js";
 

@@ -8,7 +8,7 @@
  */
 import { type GasModel, N2_MOLAR_MASS_KG_MOL } from "../physics/nitrogen.js";
 import { type Cylinder, cascadeFill, fullCylinder, type SupplySpec } from "../physics/supply.js";
-import { STANDARD_ATMOSPHERE_PA } from "../physics/units.js";
+import { STANDARD_ATMOSPHERE_PA } from "../units/index.js";
 import { absPa } from "./context.js";
 import type { Plan } from "./planFile.js";
 import type { NitrogenBase, NitrogenStay } from "./results.js";

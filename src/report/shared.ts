@@ -4,8 +4,8 @@
  * helpers for months, years and local times. Reads only the `Results` types.
  */
 import type { BaseResult, Results } from "../plan/results.js";
+import { pct, showWithUnit, type UnitSystem, unitSystem } from "../units/index.js";
 import type { Chart } from "./charts.js";
-import { pct, type UnitSystem } from "./units.js";
 
 export const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
@@ -67,8 +67,9 @@ export function hangarText(results: Results, baseName: string): string | null {
   const from = get("in");
   const to = get("out");
   const temp = get("temperature");
-  if (!from || !to || !temp) return null;
-  return `hangar air at ${temp.value.replace(/^-/, "\u2212")} ${temp.unit} from ${from.value} to ${to.value}`;
+  if (!from || !to || typeof temp?.value !== "number") return null;
+  const t = showWithUnit(unitSystem(results.units).temp, temp.value);
+  return `hangar air at ${t} from ${from.value} to ${to.value}`;
 }
 
 /** "2015–2017, 2019 (4 years)": runs of consecutive years joined, then the count; "none" when empty. */

@@ -8,6 +8,7 @@
  * `templates/partials/<name>.hbs`; `shared.ts` holds what the sections share.
  */
 import type { AdviceRow, BaseResult, MonthRow, Results, StationResult } from "../plan/results.js";
+import { pct, shownText, type UnitSystem, unitSystem } from "../units/index.js";
 import { climateSection } from "./sections/climate.js";
 import { type CoverageView, coverageSection } from "./sections/coverage.js";
 import { nitrogenSection } from "./sections/nitrogen.js";
@@ -25,7 +26,6 @@ import {
   yearsSkippedText,
   yearsText,
 } from "./shared.js";
-import { pct, type UnitSystem, unitSystem } from "./units.js";
 
 /**
  * The sections of each base, in report order. A section is a builder in `sections/<partial>.ts`
@@ -72,8 +72,8 @@ export interface BaseView {
 export interface AssumptionView {
   key: string;
   label: string;
-  value: string;
-  unit: string;
+  /** The value as the plan file wrote it, or a default in the plan's units. */
+  shown: string;
   origin: string;
 }
 
@@ -211,8 +211,13 @@ async function buildBase(ctx: BaseContext): Promise<BaseView> {
 }
 
 /** The assumptions table of the back matter: every parameter of the run, as the results list it. */
-function assumptionsTable(results: Results): AssumptionView[] {
-  return results.assumptions;
+function assumptionsTable(results: Results, u: UnitSystem): AssumptionView[] {
+  return results.assumptions.map((a) => ({
+    key: a.key,
+    label: a.label,
+    shown: shownText(a, u),
+    origin: a.origin,
+  }));
 }
 
 /** Only plain relative file names become links; anything else is shown as text. */
@@ -252,7 +257,7 @@ export async function buildView(results: Results, options: ViewOptions): Promise
     quantileMethod: results.quantileMethod,
     randomInputs: results.randomInputs,
     unitNotes: u.notes,
-    assumptions: assumptionsTable(results),
+    assumptions: assumptionsTable(results, u),
     coverage: coverageSection(results, u),
     warnings: results.warnings,
     u: {

@@ -55,8 +55,8 @@ describe.skipIf(!HAVE_SAMPLES)("coldsoak climate on a real sample", () => {
     const csv = join(dir, "climate.csv");
     const r = await run(["climate", sample("725300-94846-2014.gz"), "--no-cache", "--csv", csv]);
     expect(r.code).toBe(0);
-    // −26.7 °C = −16.06 °F (conversion F = C × 1.8 + 32, exact by definition).
-    expect(r.out).toContain("coldest -16.1 °F at 2014-01-06T13:51:00Z (2014-01-06 07:51 CST)");
+    // −26.7 °C = −16.06 °F (conversion F = C × 1.8 + 32, exact by definition); shown with a true minus.
+    expect(r.out).toContain("coldest \u221216.1 °F at 2014-01-06T13:51:00Z (2014-01-06 07:51 CST)");
     const text = readFileSync(csv, "utf8");
     expect(text.split("\r\n")[0]).toBe(
       "station,name,month,min_degF,mean_degF,max_degF,mean_daily_range_degF,p90_daily_range_degF",

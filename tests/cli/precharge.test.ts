@@ -71,7 +71,7 @@ describe("coldsoak precharge", () => {
     expect(code).toBe(0);
     const text = io.out.join("");
     expect(text).toMatch(/real gas\s+ideal gas/);
-    expect(text).toMatch(/psig\s+1381\.8\s+1394\.7/);
+    expect(text).toMatch(/psig\s+1,381\.8\s+1,394\.7/);
   });
 
   for (const [args, pattern] of [
@@ -84,7 +84,10 @@ describe("coldsoak precharge", () => {
     // condense: −300 °F (89.3 K) gave a negative "real gas" pressure before this check.
     [["--ref", "1450psig@70F", "--at", "-300F"], /--at: .*critical temperature \(126\.192 K/],
     [["--ref", "1450psig@-200C", "--at", "50F"], /--ref: .*critical temperature/],
-    [["--ref", "1450psi@70F", "--at", "50F"], /bare "psi" is a pressure difference; write psig .* or psia/],
+    [
+      ["--ref", "1450psi@70F", "--at", "50F"],
+      /bare "psi" is a pressure difference; say "psig" \(gauge\) or "psia" \(absolute\)/,
+    ],
     [
       ["--ref", "1450psig@70F", "--at", "50F", "--elevation", "20000"],
       /^coldsoak: --elevation: 20000 m is outside/,

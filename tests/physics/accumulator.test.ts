@@ -21,12 +21,12 @@ import {
 } from "../../src/physics/accumulator.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { type GasModel, idealGas, isentropicToVolume, realGas } from "../../src/physics/nitrogen.js";
-import { barToPa, cToK, fToK, PA_PER_PSI, paToPsi, psiToPa } from "../../src/physics/units.js";
+import { cToK, fToK, PA_PER_BAR, PA_PER_PSI } from "../../src/units/index.js";
 
 // Gauge pressures in these tests are at sea-level atmospheric pressure (issue 3).
 const ATM = 101325;
-const psigToAbs = (psig: number) => psiToPa(psig) + ATM;
-const absToPsig = (abs: number) => paToPsi(abs - ATM);
+const psigToAbs = (psig: number) => psig * PA_PER_PSI + ATM;
+const absToPsig = (abs: number) => (abs - ATM) / PA_PER_PSI;
 const RIGID = { alphaPerK: 0, bulkModulusPa: Number.POSITIVE_INFINITY, lineVolumeM3: 0 };
 
 describe("precharge line", () => {
@@ -60,7 +60,7 @@ describe("precharge line", () => {
 
   it("100 bar gauge at 20 °C gives 78.62 ± 0.03 bar gauge at −30 °C, real gas", () => {
     // Computed independently from the equation of state (issue 3); crosscheck/span2000_check.py: 78.6169.
-    const n = gasAmountMol(realGas, barToPa(100) + ATM, cToK(20), 1e-3);
+    const n = gasAmountMol(realGas, 100 * PA_PER_BAR + ATM, cToK(20), 1e-3);
     const p = (prechargePressureAbsPa(realGas, n, cToK(-30), 1e-3) - ATM) / 1e5;
     expect(Math.abs(p - 78.62)).toBeLessThanOrEqual(0.03);
   });
@@ -68,12 +68,12 @@ describe("precharge line", () => {
   it("tolerance lines run through P_ref ± tol at T_ref and bracket the nominal line", () => {
     // Definition of the tolerance lines (product brief, section 3).
     const band: BandInputs = {
-      refGaugePa: psiToPa(1450),
+      refGaugePa: 1450 * PA_PER_PSI,
       refTempK: fToK(70),
-      tolerancePa: psiToPa(50),
-      systemLowGaugePa: psiToPa(2850),
-      systemNominalGaugePa: psiToPa(3000),
-      systemHighGaugePa: psiToPa(3150),
+      tolerancePa: 50 * PA_PER_PSI,
+      systemLowGaugePa: 2850 * PA_PER_PSI,
+      systemNominalGaugePa: 3000 * PA_PER_PSI,
+      systemHighGaugePa: 3150 * PA_PER_PSI,
       atmPa: ATM,
     };
     const atRef = prechargeLinesAbsPa(realGas, band, fToK(70));
@@ -113,12 +113,12 @@ describe("reading and band", () => {
   it("band: nominal as above; largest amount at lowest system pressure reads lowest", () => {
     // Band definition (product brief, section 3); nominal value from the issue-3 figure above.
     const band: BandInputs = {
-      refGaugePa: psiToPa(1450),
+      refGaugePa: 1450 * PA_PER_PSI,
       refTempK: fToK(70),
-      tolerancePa: psiToPa(50),
-      systemLowGaugePa: psiToPa(2850),
-      systemNominalGaugePa: psiToPa(3000),
-      systemHighGaugePa: psiToPa(3150),
+      tolerancePa: 50 * PA_PER_PSI,
+      systemLowGaugePa: 2850 * PA_PER_PSI,
+      systemNominalGaugePa: 3000 * PA_PER_PSI,
+      systemHighGaugePa: 3150 * PA_PER_PSI,
       atmPa: ATM,
     };
     const b = readingBand(realGas, geometry, band, fToK(70));
@@ -307,8 +307,8 @@ describe("gas loss", () => {
   it("a pressure drop per month at the reference temperature becomes ΔP·V0/(R·T_ref) per month (ideal mode)", () => {
     // Ideal gas law (textbook); month = 365.2425/12 days, the mean Gregorian month (146 097 days in
     // 400 years, the Gregorian calendar).
-    const rate = gasLossMolPerS(idealGas, psigToAbs(1450), fToK(70), 5e-3, psiToPa(10));
-    const expected = (psiToPa(10) * 5e-3) / (8.31451 * fToK(70)) / ((365.2425 / 12) * 86400);
+    const rate = gasLossMolPerS(idealGas, psigToAbs(1450), fToK(70), 5e-3, 10 * PA_PER_PSI);
+    const expected = (10 * PA_PER_PSI * 5e-3) / (8.31451 * fToK(70)) / ((365.2425 / 12) * 86400);
     expect(rate / expected).toBeCloseTo(1, 9);
     expect(gasLossMolPerS(realGas, psigToAbs(1450), fToK(70), 5e-3, 0)).toBe(0);
     expect(() => gasLossMolPerS(realGas, psigToAbs(1450), fToK(70), 5e-3, -1)).toThrow(/lossPaPerMonth: -1/);
@@ -340,7 +340,7 @@ describe("recharge", () => {
     const pump = {
       curve: [
         { gaugePa: 0, flowM3S: q },
-        { gaugePa: psiToPa(3500), flowM3S: q },
+        { gaugePa: 3500 * PA_PER_PSI, flowM3S: q },
       ],
       timerS: 600,
       atmPa: ATM,
@@ -358,7 +358,7 @@ describe("recharge", () => {
     const pump = {
       curve: [
         { gaugePa: 0, flowM3S: 2e-4 },
-        { gaugePa: psiToPa(3200), flowM3S: 0.5e-4 },
+        { gaugePa: 3200 * PA_PER_PSI, flowM3S: 0.5e-4 },
       ],
       timerS: 1000,
       atmPa: ATM,
@@ -394,7 +394,7 @@ describe("recharge", () => {
     const pump = {
       curve: [
         { gaugePa: 0, flowM3S: 2e-4 },
-        { gaugePa: psiToPa(2500), flowM3S: 0 },
+        { gaugePa: 2500 * PA_PER_PSI, flowM3S: 0 },
       ],
       timerS: 120,
       atmPa: ATM,
@@ -454,12 +454,12 @@ describe("bad parameters", () => {
         realGas,
         good,
         {
-          refGaugePa: psiToPa(1450),
+          refGaugePa: 1450 * PA_PER_PSI,
           refTempK: 294,
-          tolerancePa: psiToPa(50),
-          systemLowGaugePa: psiToPa(1400),
-          systemNominalGaugePa: psiToPa(3000),
-          systemHighGaugePa: psiToPa(3100),
+          tolerancePa: 50 * PA_PER_PSI,
+          systemLowGaugePa: 1400 * PA_PER_PSI,
+          systemNominalGaugePa: 3000 * PA_PER_PSI,
+          systemHighGaugePa: 3100 * PA_PER_PSI,
           atmPa: ATM,
         },
         294,

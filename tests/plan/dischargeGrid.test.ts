@@ -3,7 +3,7 @@ import { gasAmountMol, startDischarge } from "../../src/physics/accumulator.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { realGas } from "../../src/physics/nitrogen.js";
 import { dischargeGrid } from "../../src/plan/dischargeGrid.js";
-import { PSI_PA } from "../../src/plan/quantities.js";
+import { PA_PER_PSI } from "../../src/units/index.js";
 
 describe("interpolated start discharges", () => {
   it("stay within 0.5 % of the delivered energy of the exact real-gas discharge", () => {
@@ -12,8 +12,8 @@ describe("interpolated start discharges", () => {
     const model = tabulatedGas(realGas);
     const geometry = { v0M3: 4.916e-3, vminM3: 0.983e-3 };
     const atm = 101325;
-    const starter = { minUsefulAbsPa: 1000 * PSI_PA + atm, returnAbsPa: atm };
-    const n0 = gasAmountMol(model, 1450 * PSI_PA + atm, 294.26, geometry.v0M3);
+    const starter = { minUsefulAbsPa: 1000 * PA_PER_PSI + atm, returnAbsPa: atm };
+    const n0 = gasAmountMol(model, 1450 * PA_PER_PSI + atm, 294.26, geometry.v0M3);
     const grid = dischargeGrid(model, geometry, starter, n0);
     const out = new Float64Array(2);
     let worst = 0;

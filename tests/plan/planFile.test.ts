@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { parsePlanText } from "../../src/plan/planFile.js";
-import { IN3_M3, PSI_PA } from "../../src/plan/quantities.js";
+import { M3_PER_IN3, PA_PER_PSI } from "../../src/units/index.js";
 
 const FIXTURE = new URL("../fixtures/plan/minimal-plan.yaml", import.meta.url);
 const text = readFileSync(FIXTURE, "utf8");
@@ -20,10 +20,10 @@ describe("plan file", () => {
     const plan = parsePlanText(text, "plan.yaml");
     const p = plan.profiles[0]!;
     // Unit definitions: NIST SP 811 appendix B (psi, in³); °F scale definition.
-    expect(p.precharge.reference.pressure.pa).toBeCloseTo(1450 * PSI_PA, 6);
+    expect(p.precharge.reference.pressure.pa).toBeCloseTo(1450 * PA_PER_PSI, 6);
     expect(p.precharge.reference.pressure.isGauge).toBe(true);
     expect(p.precharge.reference.tempK).toBeCloseTo(294.261111, 5);
-    expect(p.accumulator.gasVolumeEmpty).toBeCloseTo(300 * IN3_M3, 12);
+    expect(p.accumulator.gasVolumeEmpty).toBeCloseTo(300 * M3_PER_IN3, 12);
     expect(p.pump.timer).toBe(180);
     expect(plan.operations.weekdays).toEqual([1, 2, 3, 4, 5]);
     expect(plan.operations.startTimes).toEqual([390, 780]);
@@ -37,7 +37,7 @@ describe("plan file", () => {
     const bad = text.replace('reference: "1450 psig @ 70 F"', 'reference: "1450 psi @ 70 F"');
     const line = text.split("\n").findIndex((l) => l.includes('reference: "1450 psig')) + 1;
     expect(errorOf(bad)).toBe(
-      `plan.yaml:${line}:profiles[0].precharge.reference: "1450 psi": say "psig" (gauge) or "psia" (absolute) for a pressure`,
+      `plan.yaml:${line}:profiles[0].precharge.reference: "1450 psi": a bare "psi" is a pressure difference; say "psig" (gauge) or "psia" (absolute) for a pressure`,
     );
     expect(errorOf(text.replace("units: us", "units: metric"))).toMatch(
       /^plan\.yaml:\d+:units: expected one of "us", "si"$/,

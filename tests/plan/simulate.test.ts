@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { runPlan } from "../../src/plan/engine.js";
-import { PSI_PA } from "../../src/plan/quantities.js";
+import { PA_PER_PSI } from "../../src/units/index.js";
 import { fixturePlan, HOUR_MS, simulateUtcStay, syntheticClimate, type Tree } from "./helpers.js";
 
 const _ATM = 101325;
@@ -87,10 +87,10 @@ describe("simulation physics identities", () => {
     expect(out.preflights).toHaveLength(2);
     const morning = out.preflights[1]!;
     expect(morning.ambientC).toBe(-20);
-    expect(Math.abs((morning.gasKPaGauge * 1000) / PSI_PA - 2311.6)).toBeLessThanOrEqual(1);
+    expect(Math.abs((morning.gasKPaGauge * 1000) / PA_PER_PSI - 2311.6)).toBeLessThanOrEqual(1);
     // The overnight drop is 3000 psig at the recharge minus the morning value (definition, brief §5).
     expect(out.drops).toHaveLength(1);
-    expect(Math.abs((out.drops[0]!.gasKPa * 1000) / PSI_PA - (3000 - 2311.6))).toBeLessThanOrEqual(1);
+    expect(Math.abs((out.drops[0]!.gasKPa * 1000) / PA_PER_PSI - (3000 - 2311.6))).toBeLessThanOrEqual(1);
     expect(out.drops[0]!.tempC).toBeCloseTo(40, 9);
   });
 });

@@ -139,7 +139,7 @@ describe("report structure", () => {
   });
 
   it("names the air around the aircraft in the overnight traces: hangar air where the plan has a hangar", () => {
-    // Fixture: Southgate (base 2) has a hangar 20:00–06:00 at 41 °F; Northfield (base 1) has none.
+    // Fixture: Southgate (base 2) has a hangar 20:00–06:00 at 5 °C = 41.0 °F; Northfield (base 1) has none.
     const captions = (i: number) => {
       const sec = els.find((e) => e.name === "section" && e.attrs["id"] === `base-${i}`)!;
       const over = elements(inner(tokens, sec)).find((e) => e.attrs["data-section"] === "overnight")!;
@@ -153,7 +153,7 @@ describe("report structure", () => {
     expect(south).toHaveLength(2);
     for (const c of north) expect(c).toContain("temperature of the outside air");
     for (const c of south)
-      expect(c).toContain("hangar air at 41 °F from 20:00 to 06:00; outside air otherwise");
+      expect(c).toContain("hangar air at 41.0 °F from 20:00 to 06:00; outside air otherwise");
     expect(html).not.toContain("evening recharge");
   });
 
@@ -209,7 +209,7 @@ describe("report structure", () => {
     for (const th of ths) expect(["col", "row"]).toContain(th.attrs["scope"]);
   });
 
-  it("lists every assumption with value, unit and origin", () => {
+  it("lists every assumption with its value as written (a default in the plan's units) and its origin", () => {
     const sec = els.find((e) => e.attrs["id"] === "assumptions")!;
     const rows = elements(inner(tokens, sec))
       .filter((e) => e.name === "tr")
@@ -217,7 +217,9 @@ describe("report structure", () => {
     expect(rows).toHaveLength(results.assumptions.length);
     for (const [k, a] of results.assumptions.entries()) {
       const cells = elements(inner(tokens, rows[k]!)).filter((e) => e.name === "th" || e.name === "td");
-      expect(cells.map(text)).toEqual([a.key, a.label, a.value, a.unit, a.origin]);
+      const shown =
+        a.text ?? { "profiles.main.thermalTimeConstant": "2 h", "thresholds.shortStartsPct": "5 %" }[a.key];
+      expect(cells.map(text)).toEqual([a.key, a.label, shown, a.origin]);
     }
   });
 

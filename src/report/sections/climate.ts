@@ -4,9 +4,9 @@
  * `dailyRangeHistogram`, `coldestMorningC`, `coldest1in10C` and `coldestMorningByYear`.
  */
 import type { ClimateMonthRow } from "../../plan/results.js";
+import { show } from "../../units/index.js";
 import { barChart, PALETTE, xyChart } from "../charts.js";
 import { type BaseContext, type Figure, monthName, nullable, type TableRow } from "../shared.js";
-import { show } from "../units.js";
 
 export interface ClimateView {
   figures: Figure[];

@@ -4,8 +4,8 @@
  * (`qc` counts included), `yearsUsed` and `yearsSkipped`.
  */
 import type { Results, StationResult } from "../../plan/results.js";
+import { formatDisplay, pct, show, type UnitSystem } from "../../units/index.js";
 import { baseAnchor, type TableRow, yearsSkippedText, yearsText } from "../shared.js";
-import { formatNumber, pct, show, type UnitSystem } from "../units.js";
 
 type DropReason = keyof StationResult["qc"]["dropped"];
 
@@ -52,12 +52,12 @@ export function coverageSection(results: Results, u: UnitSystem): CoverageView[]
       cells: [
         s.id,
         s.name ?? "–",
-        `${formatNumber(s.lat, 3)}, ${formatNumber(s.lon, 3)}`,
+        `${formatDisplay(s.lat, 3)}, ${formatDisplay(s.lon, 3)}`,
         show(u.length, s.elevationM),
         s.timeZone,
         `${unbroken(shortUtc(s.firstUtc))} to ${unbroken(shortUtc(s.lastUtc))}`,
-        formatNumber(s.hours, 0),
-        formatNumber(s.filledHours, 0),
+        formatDisplay(s.hours, 0),
+        formatDisplay(s.filledHours, 0),
         pct(s.completeness * 100),
       ],
     })),
@@ -65,9 +65,9 @@ export function coverageSection(results: Results, u: UnitSystem): CoverageView[]
     qc: b.stations.map((s) => ({
       cells: [
         s.id,
-        formatNumber(s.qc.read, 0),
-        formatNumber(s.qc.kept, 0),
-        ...QC_REASONS.map((r) => formatNumber(s.qc.dropped[r], 0)),
+        formatDisplay(s.qc.read, 0),
+        formatDisplay(s.qc.kept, 0),
+        ...QC_REASONS.map((r) => formatDisplay(s.qc.dropped[r], 0)),
       ],
     })),
     yearsUsed: yearsText(b.yearsUsed),

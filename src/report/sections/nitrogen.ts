@@ -3,8 +3,9 @@
  * base (mass, gas at standard conditions, cylinders, carts, servicing events) and the nitrogen by stay.
  * Reads `BaseResult.nitrogen`.
  */
+
+import { formatDisplay, show } from "../../units/index.js";
 import type { BaseContext, TableRow } from "../shared.js";
-import { formatNumber, show } from "../units.js";
 
 export interface NitrogenView {
   totals: TableRow[];
@@ -21,7 +22,7 @@ export async function nitrogenSection({ base, u }: BaseContext): Promise<Nitroge
   });
   const mass = (kg: number) => show(M, kg);
   const gas = (kg: number) => show(G, kg);
-  const count = (x: number) => formatNumber(x, 0);
+  const count = (x: number) => formatDisplay(x, 0);
   return {
     totals: [
       row("Nitrogen mass drawn from cylinders", M.unit, mass(n.kgP50), mass(n.kgP90), mass(n.kgP95)),
@@ -30,7 +31,7 @@ export async function nitrogenSection({ base, u }: BaseContext): Promise<Nitroge
       row("Carts", "count", count(n.cartsP50), count(n.cartsP90), count(n.cartsP95)),
       row("Nitrogen left in accumulators", M.unit, mass(n.kgAddedP50)),
       row("Nitrogen vented (hose, lowered precharges)", M.unit, mass(n.kgVentedP50)),
-      row("Servicing events", "count", formatNumber(n.servicingEventsP50, 1)),
+      row("Servicing events", "count", formatDisplay(n.servicingEventsP50, 1)),
     ],
     stays: n.stays.map((s) => ({
       cells: [
@@ -39,9 +40,9 @@ export async function nitrogenSection({ base, u }: BaseContext): Promise<Nitroge
         s.depart,
         s.profile,
         s.coldStartOption ? "yes" : "no",
-        formatNumber(s.prechargeChecksP50, 1),
-        formatNumber(s.servicingEventsP50, 1),
-        formatNumber(s.handPumpStrokesP50, 0),
+        formatDisplay(s.prechargeChecksP50, 1),
+        formatDisplay(s.servicingEventsP50, 1),
+        formatDisplay(s.handPumpStrokesP50, 0),
         mass(s.kgAddedP50),
         mass(s.kgVentedP50),
         mass(s.kgP50),

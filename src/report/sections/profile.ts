@@ -6,9 +6,9 @@
  * profiles the base flies.
  */
 import type { BaseResult, PrechargeRow, ProfileResult, Results } from "../../plan/results.js";
+import { pct, show } from "../../units/index.js";
 import { PALETTE, xyChart } from "../charts.js";
 import type { BaseContext, Figure, TableRow } from "../shared.js";
-import { pct, show } from "../units.js";
 
 export interface ProfileView {
   name: string;

@@ -6,6 +6,7 @@
  * base's hangar assumptions (`Results.assumptions`).
  */
 import type { BaseResult, HourRow, MonthRow } from "../../plan/results.js";
+import { formatDisplay, pct, show, type UnitSystem } from "../../units/index.js";
 import { barChart, PALETTE, xyChart } from "../charts.js";
 import {
   type BaseContext,
@@ -16,7 +17,6 @@ import {
   type Status,
   type TableRow,
 } from "../shared.js";
-import { formatNumber, pct, show, type UnitSystem } from "../units.js";
 
 export interface AdviceView {
   month: string;
@@ -41,7 +41,7 @@ export interface RiskView {
 
 /** A row of a table by month: the month, a count, then the month's values. */
 function monthRow(m: MonthRow, count: number, ...values: string[]): TableRow {
-  return { cells: [monthName(m.month), formatNumber(count, 0), ...values] };
+  return { cells: [monthName(m.month), formatDisplay(count, 0), ...values] };
 }
 
 /** Several statistics of one quantity in one cell: "P10 / P50 / P90", "mean / P90". */
