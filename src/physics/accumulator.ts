@@ -7,6 +7,7 @@
  * and fluid volumes only.
  */
 import { InputError } from "../errors.js";
+import { S_PER_MONTH } from "../units/index.js";
 import { type GasModel, isentropicExpansionEnd } from "./nitrogen.js";
 
 export interface AccumulatorGeometry {
@@ -208,12 +209,6 @@ export function lagTempK(tempK: number, step: AmbientStep, tauS: number): number
 }
 
 /**
- * Seconds in a mean Gregorian month, 365.2425 days / 12 (the Gregorian calendar's 146 097 days in
- * 400 years): the month of every rate given "per month", in the plan file and in the physics.
- */
-export const SECONDS_PER_MONTH = (365.2425 / 12) * 86400;
-
-/**
  * Slow gas loss: a precharge pressure drop per month, stated at the reference temperature with the
  * piston on the fluid-side stop, converted to an amount lost per second:
  * [ρ(P_ref, T_ref) − ρ(P_ref − ΔP, T_ref)]·V0 / month.
@@ -246,7 +241,7 @@ export function gasLossMolPerS(
   if (lossPaPerMonth === 0) return 0;
   const lost =
     (model.densityMolM3(refAbsPa, refTempK) - model.densityMolM3(refAbsPa - lossPaPerMonth, refTempK)) * v0M3;
-  return lost / SECONDS_PER_MONTH;
+  return lost / S_PER_MONTH;
 }
 
 /** Hydraulic fluid properties for the trapped-charge model. */

@@ -3,7 +3,7 @@
  * profiles' precharge lines and reading bands at the standard atmosphere, the stays, assumptions,
  * methods, the random inputs drawn from the seed, and the warnings of the run.
  */
-import { STANDARD_ATMOSPHERE_PA } from "../units/index.js";
+import { ZERO_CELSIUS_K as K0, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
 import { TOOL_VERSION } from "../version.js";
 import { assumptionsOf } from "./assumptions.js";
 import { bandCurves } from "./bandCurves.js";
@@ -14,7 +14,6 @@ import { gasLossDraws } from "./samples.js";
 import type { Stay } from "./schedule.js";
 import { QUANTILE_METHOD } from "./stats.js";
 
-const K0 = 273.15;
 const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
 
 /** Temperatures of the profiles' curves: −50 °C to 60 °C in steps of 2 K. */

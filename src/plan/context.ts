@@ -12,10 +12,10 @@ import {
   type PumpSpec,
   prechargePressureAbsPa,
   readingBand,
-  SECONDS_PER_MONTH,
   type StarterSpec,
 } from "../physics/accumulator.js";
 import type { GasModel } from "../physics/nitrogen.js";
+import { S_PER_MONTH } from "../units/index.js";
 import { type DischargeGrid, dischargeGrid } from "./dischargeGrid.js";
 import type { PointPressure, ProfileInput } from "./planFile.js";
 
@@ -190,13 +190,7 @@ export function profileContext(
     handPump: { displacementM3: profile.handPump.displacement, efficiency: profile.handPump.efficiency },
     tauS: profile.thermalTimeConstant,
     // The plan's rate is a pressure per second; the physics takes the month's drop at the reference.
-    gasLossMolS: gasLossMolPerS(
-      model,
-      refAbs,
-      ref.tempK,
-      geometry.v0M3,
-      profile.gasLoss.rate * SECONDS_PER_MONTH,
-    ),
+    gasLossMolS: gasLossMolPerS(model, refAbs, ref.tempK, geometry.v0M3, profile.gasLoss.rate * S_PER_MONTH),
     dischargeGrid: grid,
   };
 }

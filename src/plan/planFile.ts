@@ -3,7 +3,6 @@ import { type Document, isMap, isScalar, isSeq, LineCounter, parseDocument } fro
 import { z } from "zod";
 import { inputError } from "../errors.js";
 import { readInputText } from "../fsutil.js";
-import { SECONDS_PER_MONTH } from "../physics/accumulator.js";
 import {
   type PointPressure,
   parseClockMinutes,
@@ -18,6 +17,7 @@ import {
   parseTimeS,
   parseVolumeM3,
   QuantityError,
+  S_PER_MONTH,
   STANDARD_ATMOSPHERE_PA,
 } from "../units/index.js";
 
@@ -139,7 +139,7 @@ const profileSchema = z
         message: "expected the precharge plus its tolerance below the lowest system pressure",
       });
     }
-    if (!(p.gasLoss.rate * SECONDS_PER_MONTH < ref)) {
+    if (!(p.gasLoss.rate * S_PER_MONTH < ref)) {
       ctx.addIssue({
         code: "custom",
         path: ["gasLoss", "rate"],

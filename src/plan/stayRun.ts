@@ -20,11 +20,10 @@ import {
   type TrappedState,
   trappedState,
 } from "../physics/accumulator.js";
+import { ZERO_CELSIUS_K as K0 } from "../units/index.js";
 import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
 import { type DayPlan, HOUR_MS, localHourOf } from "./days.js";
 import type { SimInputs, SimOutcome } from "./simulate.js";
-
-const K0 = 273.15;
 
 function inHangarAt(day: DayPlan, utcMs: number): boolean {
   for (const [a, b] of day.hangar) if (utcMs >= a && utcMs < b) return true;

@@ -1,9 +1,10 @@
 /** The profile context: gas loss through the physics function, and contexts built once per run. */
 import { describe, expect, it } from "vitest";
-import { gasLossMolPerS, SECONDS_PER_MONTH } from "../../src/physics/accumulator.js";
+import { gasLossMolPerS } from "../../src/physics/accumulator.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { idealGas, realGas } from "../../src/physics/nitrogen.js";
 import { absPa, ProfileContexts, profileContext } from "../../src/plan/context.js";
+import { S_PER_MONTH } from "../../src/units/index.js";
 import { ATM_PA, fixturePlan } from "./helpers.js";
 
 describe("gas loss of a profile", () => {
@@ -24,7 +25,7 @@ describe("gas loss of a profile", () => {
     // Definition of the slow gas loss, docs/methods.md, "Slow gas loss"; month = 365.2425/12 days.
     const model = tabulatedGas(realGas);
     const ctx = profileContext(profile, model, ATM_PA, false);
-    const monthDropPa = profile.gasLoss.rate * SECONDS_PER_MONTH;
+    const monthDropPa = profile.gasLoss.rate * S_PER_MONTH;
     expect(ctx.gasLossMolS).toBe(gasLossMolPerS(model, refAbsPa, refTempK, v0M3, monthDropPa));
   });
 });
