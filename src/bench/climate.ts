@@ -1,5 +1,5 @@
 /**
- * Benchmark of the climate reader (issue 2): the full pipeline (gunzip, parse, quality control, site rule,
+ * Benchmark of the climate reader: the full pipeline (gunzip, parse, quality control, site rule,
  * hourly grid, gap filling) on ≥ 50 MB of ISD text built from the real samples, against decompression
  * alone of the same file through the same stream setup and chunk size; then several files on worker
  * threads against the same single-stream decompression. Warm-up, then the median of 5 runs each.

@@ -1,5 +1,5 @@
 /**
- * Benchmark of the planning engine (issue 4): accumulator-hours simulated per second on one core, and
+ * Benchmark of the planning engine: accumulator-hours simulated per second on one core, and
  * the wall time of a plan of 10 bases × 30 years × 180-day stays on generated ISD-Lite climate files,
  * with an empty climate cache and with a warm one. Also exports the synthetic-climate writer the
  * plan tests use (invented stations 999801-99999 … in a temporary folder).

@@ -2,7 +2,7 @@
 /**
  * `npm run bench`: runs every area's benchmark that exists (`benchClimate` from ./climate.js,
  * `benchPhysics` from ./physics.js, `benchPlan` from ./plan.js), measures the climate cache and the
- * whole demo run itself, prints the figures against the project's targets (issue 6) and writes them,
+ * whole demo run itself, prints the figures against the project's targets (README, Tests and benchmarks) and writes them,
  * with the machine they were measured on, to out/bench.json.
  *
  * Own figures:
@@ -25,7 +25,7 @@ import { writeFileAtomic } from "../fsutil.js";
 
 const execFileAsync = promisify(execFile);
 
-/** Targets of issue 6; `atLeast` says which side of the limit is good. */
+/** The project's targets (README); `atLeast` says which side of the limit is good. */
 export const TARGETS = [
   { key: "readerVsDecompress", limit: 0.7, atLeast: true },
   { key: "simHoursPerSecond", limit: 500_000, atLeast: true },

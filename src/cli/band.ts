@@ -1,7 +1,7 @@
 /**
  * `coldsoak band <plan.yaml> [--profile NAME] [--from T --to T --step T] [--json]`: the precharge line
  * with its tolerance lines and the low/nominal/high readings at system pressure against temperature,
- * real gas and ideal (product brief §3). Temperatures in the plan's unit (°F for us, °C for si);
+ * real gas and ideal (docs/methods.md §3). Temperatures in the plan's unit (°F for us, °C for si);
  * gauge pressures relative to the standard sea-level atmosphere (101.325 kPa).
  */
 import type { Command } from "commander";
@@ -40,7 +40,7 @@ function tempOption(option: string, text: string | undefined, fallback: number, 
   return parseOption(option, example, (t) => parseTemperatureOnScale(t, scale), text);
 }
 
-/** The band table as the command prints it (`--json` shape of issue 4). */
+/** The band table as the command prints it (`--json` shape, README). */
 export async function bandCommand(
   planFile: string,
   opts: BandCliOptions,

@@ -1,7 +1,7 @@
 /**
  * `coldsoak plan <plan.yaml> [--schedule file] [--out dir] [--json]`: runs the planning engine and
  * writes `out/<plan name>/` (results.json, one CSV per table, report.html), built in a temporary
- * sibling folder and renamed into place only after every file is written (product brief §6).
+ * sibling folder and renamed into place only after every file is written (README, Outputs).
  */
 import { randomBytes } from "node:crypto";
 import { existsSync } from "node:fs";

@@ -1,5 +1,5 @@
 /**
- * Reader for the comma-separated global-hourly layout (product brief, section 2): a quoted header row;
+ * Reader for the comma-separated global-hourly layout (README, Inputs): a quoted header row;
  * `STATION` is the 11-character USAF+WBAN id, `DATE` an ISO UTC time, `LATITUDE`, `LONGITUDE`,
  * `ELEVATION`, `NAME`, `REPORT_TYPE`, `CALL_SIGN`, and each ISD element as its comma-joined sub-fields
  * (`TMP` = "-0267,5": value ×10 °C, quality code), with the codes of the full format. Rows arrive

@@ -1,11 +1,11 @@
 /**
- * The hourly series on the UTC hour grid (product brief, section 4): for each hour the kept observation
+ * The hourly series on the UTC hour grid (docs/methods.md §4): for each hour the kept observation
  * nearest the top of the hour within ±30 min, routine reports before special ones; short gaps filled
  * linearly; stations merged by priority; values between grid hours interpolated.
  */
 import { HOUR_MS, type HourlySeries } from "./types.js";
 
-/** Observations farther than this from the top of the hour are not used for it (brief §4). */
+/** Observations farther than this from the top of the hour are not used for it (docs/methods.md §4). */
 export const HOUR_WINDOW_MIN = 30;
 
 export function emptySeries(): HourlySeries {
@@ -96,7 +96,7 @@ export function filledHours(series: HourlySeries): number {
 
 /**
  * The primary station's series (first) with each missing hour taken, hour by hour, from the first
- * lower-priority station that has it (brief §4). The grid spans all stations; a value taken from
+ * lower-priority station that has it (docs/methods.md §4). The grid spans all stations; a value taken from
  * another station keeps that station's `filled` flag.
  */
 export function mergeByPriority(stations: { series: HourlySeries }[]): HourlySeries {
@@ -128,7 +128,7 @@ export function valueAtHour(series: HourlySeries, utcMs: number): number {
 }
 
 /**
- * Temperature at any instant: linear between the two grid hours around it (brief §4, for start times
+ * Temperature at any instant: linear between the two grid hours around it (docs/methods.md §4, for start times
  * between grid hours); NaN if either is missing or outside the grid.
  */
 export function tempAtUtcMs(series: HourlySeries, utcMs: number): number {

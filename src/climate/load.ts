@@ -139,7 +139,7 @@ export function buildStations(
   });
 }
 
-/** Options with the brief's defaults filled in. */
+/** Options with the documented defaults filled in. */
 export function climateOptions(partial: Partial<ClimateOptions> = {}): ClimateOptions {
   return { gapHours: DEFAULT_GAP_HOURS, cacheDir: DEFAULT_CACHE_DIR, ...partial };
 }

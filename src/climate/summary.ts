@@ -1,5 +1,5 @@
 /**
- * Per-station figures of `coldsoak climate --json` (product brief, section 6): period, hours with a
+ * Per-station figures of `coldsoak climate --json` (README, Outputs): period, hours with a
  * value, filled hours, completeness, QC counts, extremes and the monthly local-time climatology.
  */
 

@@ -43,7 +43,7 @@ export interface DemoStation {
   elevationM: number;
   /** Minute past the hour of the routine (FM-15) report; ≥ 31 means it belongs to the next hour. */
   routineMinute: number;
-  /** Quality code written on good temperatures ("1" or "5", both kept by the brief's rules). */
+  /** Quality code written on good temperatures ("1" or "5", both kept by the quality rules, docs/methods.md §4). */
   goodQualityCode: string;
 
   /** Target monthly mean air temperature, °C (all hours, cold outbreaks included). */

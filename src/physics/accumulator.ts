@@ -1,6 +1,6 @@
 /**
  * Piston accumulator: nitrogen on one side of a floating piston, hydraulic fluid on the other
- * (product brief, section 3). All functions are pure; SI inside (Pa absolute, K, m³, mol, J, s).
+ * (docs/methods.md §3). All functions are pure; SI inside (Pa absolute, K, m³, mol, J, s).
  *
  * Geometry: V0 is the gas volume with the piston on the fluid-side stop (0 % fill), Vmin the gas volume
  * on the gas-side stop (100 % fill). n identical units in parallel read alike; `count` scales energies
@@ -75,7 +75,7 @@ export function gasVolumeM3(
   return amountMol / model.densityMolM3(pressureAbsPa, tempK);
 }
 
-/** Fill reading in %: (V0 − Vgas)/(V0 − Vmin) × 100, clamped to 0–100 (product brief, section 3). */
+/** Fill reading in %: (V0 − Vgas)/(V0 − Vmin) × 100, clamped to 0–100 (docs/methods.md §3). */
 export function readingPct(geometry: AccumulatorGeometry, gasVolumeM3: number): number {
   const pct = ((geometry.v0M3 - gasVolumeM3) / (geometry.v0M3 - geometry.vminM3)) * 100;
   return Math.min(100, Math.max(0, pct));
@@ -149,7 +149,7 @@ export function prechargeLinesAbsPa(
 }
 
 /**
- * Reading band at thermal equilibrium at tempK (product brief, section 3): nominal from the nominal
+ * Reading band at thermal equilibrium at tempK (docs/methods.md §3): nominal from the nominal
  * amount at nominal system pressure, lowest from the largest amount at the lowest system pressure,
  * highest from the smallest amount at the highest system pressure.
  */
@@ -262,7 +262,7 @@ function checkFluid(fluid: FluidProps): void {
   requireNonNegative("lineVolumeM3", fluid.lineVolumeM3, "m³");
 }
 
-/** State captured at the end of a recharge (subscript c of the brief). */
+/** State captured at the end of a recharge (subscript c of the fluid model, docs/methods.md §3). */
 export interface ChargedState {
   amountMol: number;
   tempK: number;
@@ -325,7 +325,7 @@ export interface TrappedState {
 const slopeOut = new Float64Array(2);
 
 /**
- * Trapped fluid (product brief, section 3): with the fluid side closed since the charged state c,
+ * Trapped fluid (docs/methods.md §3): with the fluid side closed since the charged state c,
  * V_f = V_f,c·(1 + α(T − T_c) − (P − P_c)/K) and V_gas(P, T, n) + V_f = V_gas,c + V_f,c. Solved for the
  * gas density ρ (V_gas = n/ρ, P = P(ρ, T) explicit) by Newton iteration inside the bracket of the two
  * stops; the residual is strictly monotonic, so the root is unique. On a stop the gas keeps its volume
@@ -431,7 +431,7 @@ export interface DischargeResult {
 }
 
 /**
- * Start discharge of `count` identical units in parallel (product brief, section 3). The gas expands
+ * Start discharge of `count` identical units in parallel (docs/methods.md §3). The gas expands
  * isentropically (reversible adiabatic, real gas by the model) until the piston reaches its 0 % stop (V0)
  * or the pressure falls to the starter's minimum useful pressure. By the first law for an adiabatic
  * closed system the gas work ∫P dV equals the internal-energy drop n·(u₁ − u₂); the isothermal option
@@ -550,7 +550,7 @@ export interface RechargeResult {
 const RECHARGE_STEPS = 48;
 
 /**
- * Recharge of `count` units in parallel (product brief, section 3): the pump's flow, shared by the
+ * Recharge of `count` units in parallel (docs/methods.md §3): the pump's flow, shared by the
  * units, compresses each gas charge isothermally at tempK toward system pressure: dV/dt = −Q(P)/count with
  * P = P(n/V, T). Integrated over N equal volume steps, taking Q linear in V within a step, so a step
  * lasts h·ln(Q₀/Q₁)/(Q₀ − Q₁); the timer may end first, the fill then stays where it is. If the piston

@@ -9,7 +9,7 @@
  * explicit in (ρ, T); density from (P, T) is found by a bracketed Newton iteration.
  *
  * The "ideal" model is the same equation with the residual part αʳ set to zero: an ideal gas with the
- * real temperature-dependent ideal-gas heat capacity cp⁰(T) (product brief, section 3).
+ * real temperature-dependent ideal-gas heat capacity cp⁰(T) (docs/methods.md §3).
  *
  * Units: SI throughout (Pa absolute, K, mol/m³, J/mol, J/(mol·K), m/s).
  */

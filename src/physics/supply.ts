@@ -1,5 +1,5 @@
 /**
- * Nitrogen supply from high-pressure cylinders (product brief, section 3). Transfers are isothermal at
+ * Nitrogen supply from high-pressure cylinders (docs/methods.md §7). Transfers are isothermal at
  * the site temperature. A servicing draws from the cylinders in order of increasing pressure (a
  * cascade): a cylinder gives gas while its pressure exceeds the accumulator's gas pressure plus the
  * transfer differential; the next higher cylinder finishes. The charging hose is vented at disconnect:

@@ -1,6 +1,6 @@
 /**
  * Precharge line, tolerance lines and reading band against temperature, real gas and ideal
- * (product brief §3), for `results.profiles` and the `coldsoak band` command.
+ * (docs/methods.md §3), for `results.profiles` and the `coldsoak band` command.
  */
 import { prechargeLinesAbsPa, readingBand } from "../physics/accumulator.js";
 import { idealGas, realGas } from "../physics/nitrogen.js";

@@ -1,5 +1,5 @@
 /**
- * Stay windows on climate years (product brief §5): a schedule's real dates are mapped onto each year
+ * Stay windows on climate years (docs/methods.md §5): a schedule's real dates are mapped onto each year
  * of record by month and day. A window that crosses 31 December runs into the next climate year;
  * a real 29 February folds onto 28 February when the climate year has no 29 February (a leap climate
  * year's own 29 February stands for a real 29 February; it is not visited by stays in common years).

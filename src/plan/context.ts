@@ -1,7 +1,7 @@
 /**
  * Everything the hour-by-hour simulation needs about one accumulator profile at one base, in SI
  * absolute units: the plan's gauge pressures become absolute with the base's atmospheric pressure
- * (product brief §3: gauge = absolute − local atmospheric pressure).
+ * (docs/methods.md §3: gauge = absolute − local atmospheric pressure).
  */
 import {
   type AccumulatorGeometry,
@@ -60,7 +60,7 @@ export interface ProfileContext {
   pump: PumpSpec;
   /**
    * The other configuration, followed alongside for the energy "with one and with two accumulators"
-   * (brief §1, §5): one unit on the pump's own timer when the option is fitted, else the option's
+   * (README; docs/methods.md §5): one unit on the pump's own timer when the option is fitted, else the option's
    * count on the option's timer.
    */
   altCount: number;

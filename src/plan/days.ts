@@ -1,5 +1,5 @@
 /**
- * Local days of one stay mapped onto one climate year (product brief §5), with every instant the
+ * Local days of one stay mapped onto one climate year (docs/methods.md §5), with every instant the
  * simulation needs as UTC milliseconds: local midnights, start times, hangar hours. Daylight saving is
  * left to luxon; days of 23 or 25 hours keep their true length.
  */

@@ -1,4 +1,4 @@
-/** The methods the report lists (product brief §3–§5), each with its published source or where it is defined. */
+/** The methods the report lists (docs/methods.md §3; docs/methods.md §5), each with its published source or where it is defined. */
 import type { MethodNote } from "./results.js";
 import { QUANTILE_METHOD } from "./stats.js";
 
@@ -30,7 +30,7 @@ export const METHODS: MethodNote[] = [
   },
   {
     name: "Preflight and servicing",
-    source: "coldsoak servicing model (README, Method and assumptions)",
+    source: "coldsoak servicing model (docs/methods.md §5)",
     description:
       "The reading (physics at the lagged accumulator temperature) is compared with the band for the ambient temperature a technician reads. Servicing sets the gas, on the fluid-side stop, to the precharge line for the ambient temperature while the gas is at the lagged temperature; the hand pump then recharges to nominal system pressure.",
   },
@@ -49,7 +49,7 @@ export const METHODS: MethodNote[] = [
   },
   {
     name: "Overnight drop",
-    source: "coldsoak definition (README, Method and assumptions)",
+    source: "coldsoak definition (docs/methods.md §5)",
     description:
       "Value at the day's last recharge − value at the next day's first preflight (only when the next calendar day is flown), assigned to the morning's local month, for accumulator temperature, gas pressure and reading.",
   },

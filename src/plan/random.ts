@@ -1,5 +1,5 @@
 /**
- * The plan's random inputs, all drawn from its seed (product brief §5): the gas-loss rate of each
+ * The plan's random inputs, all drawn from its seed (docs/methods.md §5): the gas-loss rate of each
  * aircraft and, when `operations.weekdays` is a count, which weekdays are flown. Each draw has its own
  * stream keyed by a label (FNV-1a hash of the label mixed with the seed), so adding an aircraft never
  * changes another aircraft's draw.

@@ -1,5 +1,5 @@
 /**
- * The `results.json` contract (product brief, section 6). Everything the report shows comes from here;
+ * The `results.json` contract (README, Outputs). Everything the report shows comes from here;
  * the report never calls the climate or physics code. Units are fixed whatever the plan says:
  * °C, kPa gauge (`…KPaGauge`), L, kg, J; percentages 0–100; `null` where a month has no preflights.
  * No wall-clock time is stored, so two runs on the same inputs give byte-identical files.
@@ -8,7 +8,7 @@ import type { QuantityData, Units } from "../units/index.js";
 
 export type { Units };
 
-/** Quality-control counts for one station (product brief, section 4). read = kept + Σ dropped. */
+/** Quality-control counts for one station (docs/methods.md §4). read = kept + Σ dropped. */
 export interface QcCounts {
   read: number;
   kept: number;

@@ -1,5 +1,5 @@
 /**
- * The hour-by-hour simulation of one stay on one climate year (product brief §5).
+ * The hour-by-hour simulation of one stay on one climate year (docs/methods.md §5).
  *
  * State: accumulator temperature (first-order lag behind ambient, `lagTempK` of the physics module:
  * exact update over each step with the ambient at the step's end, so τ = 0 gives the ambient itself;
@@ -18,10 +18,10 @@
  *    and the gas is set to the line at ambient (nitrogen added, or gas vented) — while the gas is at the
  *    lagged temperature; then the hand pump recharges to nominal system pressure;
  * 3. start discharge (energy against the requirement at ambient); n identical units in parallel
- *    deliver n times one unit's energy (brief §3);
+ *    deliver n times one unit's energy (docs/methods.md §3);
  * 4. recharge by the pump within its timer (the option's longer timer when fitted), then trapped.
  *
- * Energy "with one and with two accumulators" (brief §1, §5): both configurations are followed for
+ * Energy "with one and with two accumulators" (README; docs/methods.md §5): both configurations are followed for
  * every stay — the one fitted, and the other one (one unit on the pump's timer, or the option's count
  * on the option's timer) as a shadow charge that shares the accumulator temperature, the gas amount
  * per unit and the servicing of the fitted one but has its own discharges and timer-limited

@@ -1,5 +1,5 @@
 /**
- * Statistics of the planning results (product brief §5), through simple-statistics.
+ * Statistics of the planning results (docs/methods.md §6), through simple-statistics.
  * One quantile method everywhere: linear interpolation between order statistics, type 7 of
  * Hyndman & Fan (1996), "Sample quantiles in statistical packages" (simple-statistics `quantileSorted`).
  */

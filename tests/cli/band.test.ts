@@ -47,7 +47,7 @@ describe("coldsoak band", () => {
       "idealReadingNominalPct",
     ]);
     const at70 = j.rows.find((x: { tempC: number }) => Math.abs(x.tempC - (70 - 32) / 1.8) < 1e-6);
-    // Definition (brief §3): the precharge line passes through the reference "1450 psig @ 70 F",
+    // Definition (docs/methods.md §3): the precharge line passes through the reference "1450 psig @ 70 F",
     // the tolerance lines through ±50 psi there.
     expect(at70.prechargeKPaGauge).toBeCloseTo(1450 * PSI_KPA, 3);
     expect(at70.prechargeLowKPaGauge).toBeCloseTo(1400 * PSI_KPA, 3);

@@ -1,5 +1,5 @@
 /**
- * `coldsoak climate`: the `--json` contract and exit codes of the product brief (section 6).
+ * `coldsoak climate`: the `--json` contract and exit codes of the README (Outputs, exit codes).
  */
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";

@@ -46,7 +46,7 @@ describe("coldsoak init", () => {
 
   it("refuses to overwrite an existing file (exit 2) and leaves it untouched", async () => {
     writeFileSync(join(dir, "schedule.csv"), "mine\n");
-    expect(await main(["init", dir])).toBe(2); // exit codes: product brief, section 6
+    expect(await main(["init", dir])).toBe(2); // exit codes: README, Outputs
     expect(readFileSync(join(dir, "schedule.csv"), "utf8")).toBe("mine\n");
     expect(existsSync(join(dir, "plan.yaml"))).toBe(false);
   });

@@ -4,7 +4,7 @@ import { runCli } from "./runCli.js";
 const COMMANDS = ["init", "plan", "climate", "precharge", "band", "pdf"];
 
 describe("command line", () => {
-  // Exit codes: product brief, section 6 (0 success, 2 input or usage error).
+  // Exit codes: README, Outputs (0 success, 2 input or usage error).
   it("exits 2 on an unknown command, with a one-line message", async () => {
     const r = await runCli(["no-such-command"]);
     expect(r.code).toBe(2);
@@ -18,7 +18,7 @@ describe("command line", () => {
     expect(r.err).toMatch(/Usage: coldsoak/);
   });
 
-  it("--help lists every command with an example, and the caution (issue 6)", async () => {
+  it("--help lists every command with an example, and the caution (README)", async () => {
     const r = await runCli(["--help"]);
     expect(r.code).toBe(0);
     for (const c of COMMANDS) {

@@ -23,7 +23,7 @@ afterEach(() => {
 describe("coldsoak precharge", () => {
   it("--json: 1450 psig at 70 °F gives ideal 1394.7 and real 1381.8 psig at 50 °F", async () => {
     // About 1390 psig (common practice, no source); ideal 1394.7 ± 0.1 (ideal gas law on absolute
-    // pressures), real 1381.8 ± 0.3 (computed independently from the equation of state, issue 3).
+    // pressures), real 1381.8 ± 0.3 (computed independently from the equation of state, tests/physics/crosscheck).
     const io = capture();
     const code = await main(["precharge", "--ref", "1450psig@70F", "--at", "50F", "--json"]);
     expect(code).toBe(0);
@@ -43,7 +43,7 @@ describe("coldsoak precharge", () => {
   });
 
   it("100 bar gauge at 20 °C gives 78.62 bar gauge at −30 °C (real gas)", () => {
-    // Computed independently from the equation of state, ± 0.03 bar (issue 3).
+    // Computed independently from the equation of state, ± 0.03 bar (tests/physics/crosscheck).
     const j = prechargeJson(prechargeAnswer("100bar@20C", "-30C"));
     expect(Math.abs(j.realKPaGauge / 100 - 78.62)).toBeLessThanOrEqual(0.03);
   });
@@ -65,7 +65,7 @@ describe("coldsoak precharge", () => {
   });
 
   it("text output shows real and ideal side by side", async () => {
-    // Format of issue 3 (no numeric source beyond the figures above).
+    // Output format of the command (no numeric source beyond the figures above).
     const io = capture();
     const code = await main(["precharge", "--ref", "1450psig@70F", "--at", "50F"]);
     expect(code).toBe(0);
@@ -98,7 +98,7 @@ describe("coldsoak precharge", () => {
     ],
   ] as const) {
     it(`malformed ${args.join(" ")} → one-line error with an example, exit 2`, async () => {
-      // Exit codes and one-line errors: product brief, section 6.
+      // Exit codes and one-line errors: README, Outputs.
       const io = capture();
       const code = await main(["precharge", ...args]);
       expect(code).toBe(2);
@@ -120,7 +120,7 @@ describe("coldsoak precharge", () => {
   });
 
   it("missing --at is a usage error (exit 2)", async () => {
-    // Product brief, section 6.
+    // README, exit codes.
     capture();
     expect(await main(["precharge", "--ref", "1450psig@70F"])).toBe(2);
   });

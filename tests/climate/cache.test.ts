@@ -1,5 +1,5 @@
 /**
- * Cache of parsed series (product brief §4): a second read is served from the cache, a changed file or
+ * Cache of parsed series (docs/methods.md §4): a second read is served from the cache, a changed file or
  * a changed gap length is read again, a corrupt entry is ignored and rebuilt.
  */
 import { copyFileSync, readdirSync, readFileSync, writeFileSync } from "node:fs";

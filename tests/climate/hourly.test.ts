@@ -25,7 +25,7 @@ function series(values: number[], start = T0): HourlySeries {
   return { startUtcMs: start, tempC: Float64Array.from(values), filled: new Uint8Array(values.length) };
 }
 
-describe("hourly grid (product brief §4)", () => {
+describe("hourly grid (docs/methods.md §4)", () => {
   it("takes the report nearest the hour within ±30 min, routine before special", () => {
     const t = Int32Array.from([
       min(T0) - 9, // 23:51 routine → hour 00

@@ -25,7 +25,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
       setAt(lines[2]!, 93, "6"),
       setAt(lines[3]!, 93, "7"),
       lines[4]!,
-      setAt(lines[5]!, 93, "A"), // A: flagged suspect but accepted as good (kept, brief §4)
+      setAt(lines[5]!, 93, "A"), // A: flagged suspect but accepted as good (kept, docs/methods.md §4)
     ];
     const [s] = await loadClimate([writeLines(`${tmp.dir}/q.txt`, edited)], noCache);
     expect(s!.qc.dropped.suspect).toBe(2);
@@ -40,7 +40,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     ["6", "suspect"],
     ["7", "erroneous"],
   ] as const)(
-    "temperature quality %s alone is counted as %s (ISD format document, POS 93; brief §4)",
+    "temperature quality %s alone is counted as %s (ISD format document, POS 93; docs/methods.md §4)",
     async (code, reason) => {
       // One edited line among five untouched ones, so a code filed under the wrong reason shows.
       const lines = routine();
@@ -54,7 +54,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     },
   );
 
-  it("second site: 5 km and 30 m from the most frequent position are the limits (brief §4)", async () => {
+  it("second site: 5 km and 30 m from the most frequent position are the limits (docs/methods.md §4)", async () => {
     // The Chicago sample's main position is +41.995 −087.934, 205 m (real file). One degree of latitude
     // is 111.2 km (spherical Earth, mean radius 6371 km; from memory): +0.040° = 4.45 km, +0.050° = 5.56 km.
     const lines = routine();
@@ -89,7 +89,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     expect(s!.extremes!.minC).toBe(-93.2);
   });
 
-  it("the first reason that applies wins, in the order of the brief (§4)", async () => {
+  it("the first reason that applies wins, in the documented order (docs/methods.md §4)", async () => {
     const lines = routine();
     const otherSite = (l: string) => setAt(setAt(l, 29, "+30300"), 35, "-097700"); // Austin's second site
     const edited = [

@@ -171,7 +171,7 @@ describe("committed demo climate files", () => {
       Array.from({ length: YEARS }, (_, i) => `${stationId(st)}-${DEMO_FIRST_YEAR + i}.gz`),
     ).sort();
     expect(files.sort()).toEqual(expected);
-    expect(YEARS).toBeGreaterThanOrEqual(10); // issue 6: at least 10 years per station
+    expect(YEARS).toBeGreaterThanOrEqual(10); // the demo's design: at least 10 years per station (sample-data/README.md)
   });
 
   it("are what the generator writes today (regeneration is byte-identical in content)", () => {
@@ -230,7 +230,7 @@ describe("the project's climate reader on the demo files", () => {
   });
 
   it("counts every record once: read = kept + dropped, with the injected blemishes as dropped", () => {
-    // QC rules: product brief, section 4 (quality 2 suspect, 3 erroneous, +9999 missing).
+    // QC rules: docs/methods.md §4 (quality 2 suspect, 3 erroneous, +9999 missing).
     for (const [i, s] of stations.entries()) {
       const st = DEMO_STATIONS[i]!;
       const mine = generated.filter((g) => g.station === st).map((g) => g.stats);

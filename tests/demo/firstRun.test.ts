@@ -1,5 +1,5 @@
 /**
- * First run (issue 6): `coldsoak --help` lists every command the program registers, with its one-line
+ * First run: `coldsoak --help` lists every command the program registers, with its one-line
  * description, and each command answers `--help` on its own. No numbers asserted.
  */
 import { describe, expect, it } from "vitest";
@@ -16,7 +16,7 @@ describe("coldsoak --help", () => {
   }));
 
   it("registers at least the commands the issues call for", () => {
-    // Commands named by issue 2 (climate), issue 3 (precharge) and issue 6 (init); plan runs the demo.
+    // Commands the README lists (climate, precharge, init); plan runs the demo.
     const names = registered.map((c) => c.name);
     for (const name of ["init", "plan", "climate", "precharge"]) expect(names).toContain(name);
   });

@@ -23,7 +23,7 @@ import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { type GasModel, idealGas, isentropicToVolume, realGas } from "../../src/physics/nitrogen.js";
 import { cToK, fToK, PA_PER_BAR, PA_PER_PSI } from "../../src/units/index.js";
 
-// Gauge pressures in these tests are at sea-level atmospheric pressure (issue 3).
+// Gauge pressures in these tests are at sea-level atmospheric pressure (tests/physics/crosscheck).
 const ATM = 101325;
 const psigToAbs = (psig: number) => psig * PA_PER_PSI + ATM;
 const absToPsig = (abs: number) => (abs - ATM) / PA_PER_PSI;
@@ -34,7 +34,7 @@ describe("precharge line", () => {
     // [model, ref psig, ref °F, at °F, expected psig, tolerance]
     // 1450 psig at 70 °F reads about 1390 psig at 50 °F (common practice, no source); exactly: ideal
     // 1394.7 ± 0.1 (ideal gas law on absolute pressures), real 1381.8 ± 0.3 (computed independently from
-    // the equation of state, issue 3). Re-checked in the audit of 2026-12-02 with an independent mpmath implementation written from the
+    // the equation of state, tests/physics/crosscheck). Re-checked in the audit of 2026-12-02 with an independent mpmath implementation written from the
     // reference file (tests/physics/crosscheck/span2000_check.py, output in span2000_check.out).
     [idealGas, 1450, 70, 50, 1394.7, 0.1],
     [realGas, 1450, 70, 50, 1381.8, 0.3],
@@ -52,21 +52,21 @@ describe("precharge line", () => {
   }
 
   it("a gauge/absolute mix-up would give 79.2 psig, which the model does not", () => {
-    // 100 × (−40 °F)/(70 °F) in kelvin = 79.2 (issue 3): scaling gauge pressure is the classic error.
+    // 100 × (−40 °F)/(70 °F) in kelvin = 79.2 (tests/physics/crosscheck): scaling gauge pressure is the classic error.
     const n = gasAmountMol(idealGas, psigToAbs(100), fToK(70), 1e-3);
     const p = absToPsig(prechargePressureAbsPa(idealGas, n, fToK(-40), 1e-3));
     expect(Math.abs(p - 79.2)).toBeGreaterThan(2.5);
   });
 
   it("100 bar gauge at 20 °C gives 78.62 ± 0.03 bar gauge at −30 °C, real gas", () => {
-    // Computed independently from the equation of state (issue 3); crosscheck/span2000_check.py: 78.6169.
+    // Computed independently from the equation of state (tests/physics/crosscheck); crosscheck/span2000_check.py: 78.6169.
     const n = gasAmountMol(realGas, 100 * PA_PER_BAR + ATM, cToK(20), 1e-3);
     const p = (prechargePressureAbsPa(realGas, n, cToK(-30), 1e-3) - ATM) / 1e5;
     expect(Math.abs(p - 78.62)).toBeLessThanOrEqual(0.03);
   });
 
   it("tolerance lines run through P_ref ± tol at T_ref and bracket the nominal line", () => {
-    // Definition of the tolerance lines (product brief, section 3).
+    // Definition of the tolerance lines (docs/methods.md §3).
     const band: BandInputs = {
       refGaugePa: 1450 * PA_PER_PSI,
       refTempK: fToK(70),
@@ -89,7 +89,7 @@ describe("precharge line", () => {
 describe("reading and band", () => {
   // V0 = 5 L, Vmin = 1.5 L, precharged to 1450 psig at 70 °F, charged to 3000 psig: readings (real / ideal)
   // 88.74 / 87.86 % at −40 °F, 72.89 / 76.07 % at 50 °F, 69.52 / 73.45 % at 70 °F, ± 0.05 (computed
-  // independently from the equation of state, issue 3; crosscheck/span2000_check.py gives 88.7446 / 87.864,
+  // independently from the equation of state; crosscheck/span2000_check.py gives 88.7446 / 87.864,
   // 72.8937 / 76.0705, 69.525 / 73.4497).
   const geometry: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
   const expected: [number, number, number][] = [
@@ -111,7 +111,7 @@ describe("reading and band", () => {
   }
 
   it("band: nominal as above; largest amount at lowest system pressure reads lowest", () => {
-    // Band definition (product brief, section 3); nominal value from the issue-3 figure above.
+    // Band definition (docs/methods.md §3); nominal value from the equation-of-state figure above.
     const band: BandInputs = {
       refGaugePa: 1450 * PA_PER_PSI,
       refTempK: fToK(70),
@@ -125,8 +125,8 @@ describe("reading and band", () => {
     expect(Math.abs(b.nominalPct - 69.52)).toBeLessThanOrEqual(0.05);
     expect(b.lowPct).toBeLessThan(b.nominalPct);
     expect(b.highPct).toBeGreaterThan(b.nominalPct);
-    // Hand check with the ideal gas law at the reference temperature (Boyle, V = V0·P0/P; product brief,
-    // section 3): lowest = (5 − 5·(1500 psia + atm)/(2850 psia + atm))/3.5, atm = 101 325 Pa = 14.6959 psi.
+    // Hand check with the ideal gas law at the reference temperature (Boyle, V = V0·P0/P;
+    // docs/methods.md §3): lowest = (5 − 5·(1500 psia + atm)/(2850 psia + atm))/3.5, atm = 101 325 Pa = 14.6959 psi.
     const ib = readingBand(idealGas, geometry, band, fToK(70));
     const atmPsi = ATM / PA_PER_PSI;
     expect(ib.lowPct).toBeCloseTo(((5 - (5 * (1500 + atmPsi)) / (2850 + atmPsi)) / 3.5) * 100, 6);
@@ -135,7 +135,7 @@ describe("reading and band", () => {
   });
 
   it("reading is clamped to 0–100 %", () => {
-    // Definition (product brief, section 3)
+    // Definition (docs/methods.md §3)
     expect(readingPct(geometry, 6e-3)).toBe(0);
     expect(readingPct(geometry, 1e-3)).toBe(100);
     expect(readingPct(geometry, 3.25e-3)).toBeCloseTo(50, 12);
@@ -149,7 +149,7 @@ describe("start discharge", () => {
   const v1 = gasVolumeM3(realGas, n, fToK(70), psigToAbs(3000));
 
   it("from 3000 psig at 70 °F to 1000 psig: 25.62 kJ gas work, 25.40 kJ hydraulic, 2.178 L", () => {
-    // Computed independently from the equation of state, ± 0.3 % (issue 3); same 5 L unit as above.
+    // Computed independently from the equation of state, ± 0.3 % (tests/physics/crosscheck); same 5 L unit as above.
     // crosscheck/span2000_check.py: 25.6221 kJ, 25.4014 kJ, 2.17788 L.
     const d = startDischarge(realGas, geometry, 1, n, fToK(70), v1, starter);
     expect(Math.abs(d.gasWorkJ / 25620 - 1)).toBeLessThan(0.003);
@@ -157,7 +157,7 @@ describe("start discharge", () => {
     expect(Math.abs(d.fluidDeliveredM3 / 2.178e-3 - 1)).toBeLessThan(0.003);
     expect(absToPsig(d.end.gasPressureAbsPa)).toBeCloseTo(1000, 6);
     expect(d.end.tempK).toBeLessThan(fToK(70));
-    // Two units in parallel: twice the energy and fluid, same end state (product brief, section 3)
+    // Two units in parallel: twice the energy and fluid, same end state (docs/methods.md §3)
     const d2 = startDischarge(realGas, geometry, 2, n, fToK(70), v1, starter);
     expect(d2.gasWorkJ / d.gasWorkJ).toBeCloseTo(2, 12);
     expect(d2.fluidDeliveredM3 / d.fluidDeliveredM3).toBeCloseTo(2, 12);
@@ -240,7 +240,7 @@ describe("start discharge", () => {
 
 describe("trapped charge", () => {
   it("3000 psig at 10 °C cooled to −20 °C, rigid fluid: 2531.0 psig real, 2680.6 psig ideal", () => {
-    // Computed independently from the equation of state and the brief's fluid model, ± 1 psi (issue 3);
+    // Computed independently from the equation of state and the fluid model of docs/methods.md §3, ± 1 psi (tests/physics/crosscheck);
     // crosscheck/span2000_check.py: 2531.03 real, 2680.59 ideal.
     const geometry: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
     for (const [model, want] of [
@@ -257,7 +257,7 @@ describe("trapped charge", () => {
   });
 
   it("1 L unit, 1450 psig at 70 °F, charged to 3000 psig at 20 °C, cooled to −20 °C: 2412.1 / 2311.6 psig", () => {
-    // Computed independently from the equation of state and the brief's fluid model, ± 1 psi (issue 3):
+    // Computed independently from the equation of state and the fluid model of docs/methods.md §3, ± 1 psi (tests/physics/crosscheck):
     // rigid fluid and no line volume 2412.1 psig; α = 8e-4 /K, K = 1.5 GPa, 0.2 L of line fluid 2311.6 psig.
     // crosscheck/span2000_check.py: 2412.131 and 2311.565.
     const geometry: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.1e-3 };
@@ -270,7 +270,7 @@ describe("trapped charge", () => {
     for (const model of [realGas, tabulatedGas(realGas)]) {
       const s = trappedState(model, geometry, fluid, c, cToK(-20), n);
       expect(Math.abs(absToPsig(s.gasPressureAbsPa) - 2311.6)).toBeLessThanOrEqual(1);
-      // the solution satisfies the brief's volume balance (definition, product brief section 3)
+      // the solution satisfies the volume balance of docs/methods.md §3 (definition)
       const vf = c.fluidVolumeM3 * (1 + 8e-4 * -40 - (s.gasPressureAbsPa - c.fluidPressureAbsPa) / 1.5e9);
       expect((s.gasVolumeM3 + vf) / (c.gasVolumeM3 + c.fluidVolumeM3)).toBeCloseTo(1, 9);
     }
@@ -287,7 +287,7 @@ describe("trapped charge", () => {
   });
 
   it("piston stops: warm fluid expansion pins the piston on Vmin; cooling a nearly empty unit puts it on V0", () => {
-    // Stop behaviour of the brief, section 3: at 100 % the fluid rises above the gas; at 0 % gas stays at V0.
+    // Stop behaviour of docs/methods.md §3: at 100 % the fluid rises above the gas; at 0 % gas stays at V0.
     const geometry: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.5e-3 };
     const fluid = { alphaPerK: 8e-4, bulkModulusPa: 1.5e9, lineVolumeM3: 0.5e-3 };
     const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), geometry.v0M3);
@@ -438,7 +438,7 @@ describe("interpolateClamped", () => {
 describe("bad parameters", () => {
   const good: AccumulatorGeometry = { v0M3: 5e-3, vminM3: 1.5e-3 };
   it("reject non-physical input with an error naming the parameter", () => {
-    // Documented errors (issue 3).
+    // Documented errors (README, exit codes).
     const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), good.v0M3);
     expect(() => chargedState(realGas, { v0M3: 1e-3, vminM3: 1e-3 }, RIGID, n, 294, psigToAbs(3000))).toThrow(
       /vminM3/,

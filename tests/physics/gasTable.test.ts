@@ -7,7 +7,7 @@ describe("interpolation table", () => {
   const table = tabulatedGas(realGas);
 
   it("stays within 0.05 % of the full equation over −60…+80 °C and 0…40 MPa", () => {
-    // Requirement of issue 3 (simulation accuracy budget, common practice, no source); the full equation
+    // Simulation accuracy budget (common practice, no source); the full equation
     // is Span et al. (2000). Sample points are deliberately off the table's nodes.
     let worstP = 0;
     let worstRho = 0;
@@ -79,7 +79,7 @@ describe("interpolation table", () => {
 
   it("start discharge and recharge with the table agree with the full equation within 0.1 %", () => {
     // Full equation: Span et al. (2000); 0.1 % budget (common practice, no source). 5 L unit, 1450 psig
-    // at 70 °F, charged to 3000 psig, expanded to 1000 psig (issue 3 example).
+    // at 70 °F, charged to 3000 psig, expanded to 1000 psig (the 5 L unit of tests/physics/accumulator.test.ts).
     const atm = 101325;
     const psi = 6894.757293168361;
     const geometry = { v0M3: 5e-3, vminM3: 1.5e-3 };

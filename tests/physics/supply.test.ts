@@ -48,7 +48,7 @@ describe("cylinder cascade", () => {
   });
 
   it("a cylinder below accumulator pressure + differential gives nothing; the target may be missed", () => {
-    // Cascade rule of the product brief, section 3 (same hand-calculation numbers).
+    // Cascade rule of docs/methods.md §7 (same hand-calculation numbers).
     const a = { waterVolumeM3: 0.05, amountMol: (8.1e6 * 0.05) / RT };
     const r = cascadeFill(idealGas, [a], 0.005, (8e6 * 0.005) / RT, (10e6 * 0.005) / RT, T, spec);
     expect(r.addedMol).toBe(0);
@@ -57,7 +57,7 @@ describe("cylinder cascade", () => {
   });
 
   it("already at or above target: no gas, no hose loss", () => {
-    // Definition (product brief, section 3).
+    // Definition (docs/methods.md §7).
     expect(gasToAddMol(5, 4)).toBe(0);
     expect(gasToAddMol(4, 5)).toBe(1);
     const r = cascadeFill(idealGas, [fullCylinder(idealGas, spec)], 0.005, 20, 19, T, spec);
@@ -95,7 +95,7 @@ describe("cylinder counts", () => {
   });
 
   it("bad parameters name the parameter", () => {
-    // Documented errors (issue 3).
+    // Documented errors (README, exit codes).
     expect(() => cylindersForDemand(idealGas, -1, spec, 10e6, T)).toThrow(/demandMol: -1/);
     expect(() => cascadeFill(idealGas, [], -0.005, 1, 2, T, spec)).toThrow(/accumulatorVolumeM3/);
     expect(() => fullCylinder(idealGas, { ...spec, hoseVolumeM3: -1 })).toThrow(/hoseVolumeM3/);

@@ -11,7 +11,7 @@ const OPTS = {
   hangar: null,
 };
 
-describe("stay windows on climate years (product brief §5)", () => {
+describe("stay windows on climate years (docs/methods.md §5)", () => {
   it("a stay covers arrive up to, not including, depart", () => {
     expect(stayDays("2027-01-30", "2027-02-02").map((d) => `${d.month}-${d.day}`)).toEqual([
       "1-30",

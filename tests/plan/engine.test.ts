@@ -1,4 +1,4 @@
-/** Planning-engine definitions (product brief §5, §6): configurations, climate samples, statistics. */
+/** Planning-engine definitions (docs/methods.md §5; README, Outputs): configurations, climate samples, statistics. */
 import { describe, expect, it } from "vitest";
 import { chargedState, startDischarge } from "../../src/physics/accumulator.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
@@ -15,7 +15,7 @@ function stay(aircraft: string, arrive: string, depart: string, coldStartOption 
   return { aircraft, base: "North Field", arrive, depart, coldStartOption, profile: "standard", line: 2 };
 }
 
-/** The 1 L unit of the physics tests (issue 4), lag 0, no gas loss, every day flown, no hangar. */
+/** The 1 L unit of the physics tests, lag 0, no gas loss, every day flown, no hangar. */
 function oneLitreUnit(t: Tree) {
   const p = t.profiles[0];
   p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
@@ -28,7 +28,7 @@ function oneLitreUnit(t: Tree) {
   delete t.bases[0].hangar;
 }
 
-describe("energy with one and with two accumulators (brief §1, §5)", () => {
+describe("energy with one and with two accumulators (README; docs/methods.md §5)", () => {
   // A pump timer too short for one unit to refill after a start (2 s at 1 L/min is 33 mL, a start
   // draws about half a litre from this unit) and an option timer long enough for two units.
   const plan = fixturePlan((t) => {
@@ -58,7 +58,7 @@ describe("energy with one and with two accumulators (brief §1, §5)", () => {
   it("two: the option's count × a fully recharged unit; one: the single unit the short timer leaves", () => {
     // Reference: the physics module's exact discharge (Span et al. 2000 isentropic) of one unit charged
     // to nominal system pressure at 5 °C; with the option's timer every recharge completes, so every
-    // start with two units delivers twice that (brief §3: n units deliver n times one unit's energy).
+    // start with two units delivers twice that (docs/methods.md §3: n units deliver n times one unit's energy).
     const ctx = profileContext(plan.profiles[0]!, model, ATM, false, { exactDischarge: true });
     const tempK = 278.15;
     const full = chargedState(model, ctx.geometry, ctx.fluid, ctx.nominalMol, tempK, ctx.systemNominalAbsPa);
@@ -81,7 +81,7 @@ describe("energy with one and with two accumulators (brief §1, §5)", () => {
   });
 
   it("do not depend on which configuration the stay has fitted (same servicing, same climate)", () => {
-    // Definition (brief §5): "one" and "two" are the two configurations, whichever is fitted.
+    // Definition (docs/methods.md §5): "one" and "two" are the two configurations, whichever is fitted.
     const a = simulate(false);
     const b = simulate(true);
     expect(b).toHaveLength(a.length);
@@ -92,7 +92,7 @@ describe("energy with one and with two accumulators (brief §1, §5)", () => {
   });
 });
 
-describe("climate samples shared by the stays of a base (brief §5)", () => {
+describe("climate samples shared by the stays of a base (docs/methods.md §5)", () => {
   it("stays that overlap in real time see the same climate year in every sample", () => {
     // Synthetic climate: every hour of calendar year Y is −5·(Y − 2010) °C (2013 −15 … 2017 −35).
     const plan = fixturePlan((t) => {
@@ -125,10 +125,10 @@ describe("climate samples shared by the stays of a base (brief §5)", () => {
   });
 });
 
-describe("monthly statistics (brief §5, §6)", () => {
+describe("monthly statistics (docs/methods.md §5; README, Outputs)", () => {
   it("daily range over the days the stays cover; null in months without preflights", () => {
     // Synthetic climate: 0 °C except at 14:00 UTC, when it is 4 °C on 10–19 January and 10 °C on
-    // every other day, so each local (UTC) day's range is 4 or 10 °C (brief §4 definition).
+    // every other day, so each local (UTC) day's range is 4 or 10 °C (docs/methods.md §4 definition).
     const plan = fixturePlan((t) => {
       oneLitreUnit(t);
       t.climate.years = { from: 2014, to: 2015 };
@@ -157,7 +157,7 @@ describe("monthly statistics (brief §5, §6)", () => {
     expect(feb.dailyRangeMeanC).toBeNull();
     expect(feb.dailyRangeP90C).toBeNull();
     expect(feb.morningKPaGaugeP50).toBeNull();
-    // The climate table still describes every month of record (climatology, brief §6).
+    // The climate table still describes every month of record (climatology, README, Outputs).
     expect(b.climateMonths[1]!.meanDailyRangeC).toBe(10);
   });
 
@@ -178,7 +178,7 @@ describe("monthly statistics (brief §5, §6)", () => {
   });
 });
 
-describe("29 February (brief §5)", () => {
+describe("29 February (docs/methods.md §5)", () => {
   it("a real 29 February on a common climate year repeats 28 February's weather; the state carries over", () => {
     // Synthetic climate: 28 February 2014 is −10 °C, every other hour 0 °C.
     const plan = fixturePlan((t) => {
@@ -206,7 +206,7 @@ describe("29 February (brief §5)", () => {
   });
 });
 
-describe("nitrogen per base (brief §3 supply, §5)", () => {
+describe("nitrogen per base (docs/methods.md §5, §7)", () => {
   it("concurrent stays at a base draw on one cylinder pool; base totals sum the stays", () => {
     // Fast gas loss (100 psi/month) so that the weekly precharge checks find the gas under its
     // tolerance and top it up; one 49 L cylinder at 2200 psig holds far more than these top-ups.

@@ -63,7 +63,7 @@ describe.skipIf(!existsSync(FILE))("real data: 725300-94846-2014 (NOAA ISD sampl
     }
     expect(base.coldestMorningC).toBe(coldest);
 
-    // Daily range straight from the hourly series: local-day max − min, days with ≥ 20 hours (brief §4).
+    // Daily range straight from the hourly series: local-day max − min, days with ≥ 20 hours (docs/methods.md §4).
     const byDay = new Map<string, number[]>();
     for (let i = 0; i < series.tempC.length; i++) {
       const v = series.tempC[i]!;

@@ -38,7 +38,7 @@ describe("schedule", () => {
     ]);
   });
 
-  it("accepts a same-day move between bases (product brief §2: depart day is not part of the stay)", () => {
+  it("accepts a same-day move between bases (README, Inputs: depart day is not part of the stay)", () => {
     const stays = parseScheduleText(
       `${HEADER}\nA1,North Field,2027-01-04,2027-02-01,no,standard\nA1,South Strip,2027-02-01,2027-03-01,yes,heavy\n`,
       "s.csv",

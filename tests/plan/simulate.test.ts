@@ -5,7 +5,7 @@ import { fixturePlan, HOUR_MS, simulateUtcStay, syntheticClimate, type Tree } fr
 
 const _ATM = 101325;
 
-/** The 1 L unit of the physics tests (issue 4): 1450 psig at 70 °F, 3000 psig, α 8e-4/K, K 1.5 GPa, 0.2 L line. */
+/** The 1 L unit of the physics tests: 1450 psig at 70 °F, 3000 psig, α 8e-4/K, K 1.5 GPa, 0.2 L line. */
 function oneLitreUnit(t: Tree) {
   const p = t.profiles[0];
   p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
@@ -29,7 +29,7 @@ function oneLitreUnit(t: Tree) {
 
 describe("simulation physics identities", () => {
   it("constant temperature, no gas loss, complete recharge: no drop, no out-of-band, no short start", () => {
-    // Physics identity (product brief §3): at one temperature with the fluid trapped and no gas loss,
+    // Physics identity (docs/methods.md §3): at one temperature with the fluid trapped and no gas loss,
     // the state after each recharge is the same equilibrium, so nothing moves overnight.
     const plan = fixturePlan((t) => {
       oneLitreUnit(t);
@@ -68,7 +68,7 @@ describe("simulation physics identities", () => {
 
   it("20 °C at the last recharge, −20 °C by morning, lag zero: morning gas 2311.6 ± 1 psig", () => {
     // Issue 4 / physics tests: computed independently from the equation of state (Span et al. 2000) and
-    // the brief's fluid model: 2311.6 psig ± 1.
+    // the fluid model of docs/methods.md §3: 2311.6 psig ± 1.
     const plan = fixturePlan((t) => {
       oneLitreUnit(t);
       t.operations.startTimes = ["07:00", "18:00"];
@@ -88,7 +88,7 @@ describe("simulation physics identities", () => {
     const morning = out.preflights[1]!;
     expect(morning.ambientC).toBe(-20);
     expect(Math.abs((morning.gasKPaGauge * 1000) / PA_PER_PSI - 2311.6)).toBeLessThanOrEqual(1);
-    // The overnight drop is 3000 psig at the recharge minus the morning value (definition, brief §5).
+    // The overnight drop is 3000 psig at the recharge minus the morning value (definition, docs/methods.md §5).
     expect(out.drops).toHaveLength(1);
     expect(Math.abs((out.drops[0]!.gasKPa * 1000) / PA_PER_PSI - (3000 - 2311.6))).toBeLessThanOrEqual(1);
     expect(out.drops[0]!.tempC).toBeCloseTo(40, 9);

@@ -1,4 +1,4 @@
-"""Independent cross-check of the issue-3 nitrogen figures.
+"""Independent cross-check of the nitrogen figures of the physics tests.
 
 Written from ../shared/reference/nitrogen-span2000.json only (Span et al. 2000), in another language
 and by another method than src/physics/nitrogen.ts: the Helmholtz energy is evaluated in 40-digit
