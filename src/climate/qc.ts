@@ -13,6 +13,8 @@ import {
   MISSING_PRESSURE,
   MISSING_TEMP,
   type ParsedFile,
+  yearCache,
+  yearOfMinute,
 } from "./records.js";
 import type { Extremes, QcCounts } from "./types.js";
 
@@ -107,27 +109,6 @@ function keyToPosition(key: number): Position {
   const elev = (key % 20_000) - 10_000;
   const ll = Math.floor(key / 20_000);
   return { latMilli: Math.floor(ll / 360_001) - 90_000, lonMilli: (ll % 360_001) - 180_000, elevM: elev };
-}
-
-/** The UTC year last asked for and its bounds in minutes (records come mostly in time order). */
-interface YearCache {
-  lo: number;
-  hi: number;
-  year: number;
-}
-
-function yearCache(): YearCache {
-  return { lo: 0, hi: -1, year: 0 };
-}
-
-/** UTC year of a minute count since 1970. */
-function yearOfMinute(cache: YearCache, min: number): number {
-  if (min >= cache.lo && min < cache.hi) return cache.year;
-  const year = new Date(min * 60_000).getUTCFullYear();
-  cache.year = year;
-  cache.lo = Date.UTC(year, 0, 1) / 60_000;
-  cache.hi = Date.UTC(year + 1, 0, 1) / 60_000;
-  return year;
 }
 
 /** Most frequent key of a count map (first seen wins a tie). */
