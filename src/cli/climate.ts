@@ -159,6 +159,7 @@ export async function runClimate(paths: string[], opts: ClimateCliOptions): Prom
   const options: ClimateOptions = {
     gapHours,
     cacheDir: opts.cache ? opts.cacheDir : null,
+    onWarning: (w) => process.stderr.write(`coldsoak: warning: ${w}\n`),
     onProgress: (done, total) => {
       if (total < PROGRESS_MIN_FILES || !process.stderr.isTTY) return;
       if (bar === null) {

@@ -11,7 +11,15 @@ export {
   windowCompleteness,
   yearCompleteness,
 } from "./hourly.js";
-export { buildStations, climateOptions, listClimateFiles, loadClimate, readClimateFiles } from "./load.js";
+export {
+  buildStations,
+  type ClimateSelection,
+  climateOptions,
+  listClimateFiles,
+  loadClimate,
+  loadClimateSelection,
+  readClimateFiles,
+} from "./load.js";
 export { dailyRanges, hourlyOffsetsMin, monthlyClimate, timeZoneFor } from "./localTime.js";
 export { TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "./qc.js";
 export { detectFormat, readClimateFile } from "./source.js";

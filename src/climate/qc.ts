@@ -65,7 +65,10 @@ export interface QcResult {
   keptSpecial: Uint8Array;
   extremes: Extremes | null;
   meanStationPressureHpa: number | null;
-  /** Most frequent position of the station's observations (null when they carry none, as in ISD-Lite). */
+  /**
+   * Most frequent position of the station's observations; of all its records when none is kept (null
+   * when they carry none, as in ISD-Lite).
+   */
   position: { latMilli: number; lonMilli: number; elevM: number } | null;
   callLetters: string | null;
   name: string | null;
@@ -218,6 +221,18 @@ function countPositions(parts: StationPart[]): PositionCounts {
     add(counts.all, pairKey[p]!, pairN[p]!);
   }
   return counts;
+}
+
+/** How often each position occurs among all the readable records of a station (summaries included). */
+function positionsOfAllRecords(parts: StationPart[]): Map<number, number> {
+  const all = new Map<number, number>();
+  for (const { file, indices } of parts) {
+    const { kind, latMilli, lonMilli, elevM } = file.records;
+    for (const i of indices)
+      if (kind[i] !== KIND_MALFORMED && latMilli[i] !== MISSING_LAT && lonMilli[i] !== MISSING_LON)
+        add(all, positionKey(latMilli[i]!, lonMilli[i]!, elevM[i]!), 1);
+  }
+  return all;
 }
 
 /** Records that pass every rule but the duplicate one, in reading order. */
@@ -422,7 +437,8 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
     presN,
   } = dropDuplicates(passing, qc.dropped);
   qc.kept = nKept;
-  const posKey = modeOf(positions.all);
+  // A station without a kept record takes its position from all its records, summaries included.
+  const posKey = nKept > 0 ? modeOf(positions.all) : modeOf(positionsOfAllRecords(parts));
   let callLetters: string | null = null;
   let callN = 0;
   for (const [k, n] of calls)
