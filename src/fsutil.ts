@@ -74,7 +74,10 @@ export async function readInputText(
   }
   try {
     const again = await fh.stat();
-    if (!again.isFile()) throw refuse(`is ${specialFileKind(again) ?? "not a regular file"}, not a regular file`);
+    if (!again.isFile()) {
+      const kind = specialFileKind(again);
+      throw refuse(kind === null ? "not a regular file" : `is ${kind}, not a regular file`);
+    }
     const chunks: Buffer[] = [];
     let length = 0;
     for (;;) {
@@ -83,7 +86,8 @@ export async function readInputText(
       if (bytesRead === 0) break;
       chunks.push(chunk.subarray(0, bytesRead));
       length += bytesRead;
-      if (length > maxBytes) throw refuse(`it holds more than ${sizeText(maxBytes)}, the most ${what} may hold`);
+      if (length > maxBytes)
+        throw refuse(`it holds more than ${sizeText(maxBytes)}, the most ${what} may hold`);
     }
     return Buffer.concat(chunks, length).toString("utf8");
   } catch (err) {

@@ -8,23 +8,13 @@ import { execFileSync } from "node:child_process";
 import { existsSync, readdirSync } from "node:fs";
 import { mkdir, open, rm, writeFile } from "node:fs/promises";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { cacheStats, resetCacheStats } from "../../src/climate/index.js";
 import { formatIsdLine } from "../../src/demo/isdRecord.js";
-import { makeClimateRoot, planText, SCHEDULE, writeCaseIn } from "./planCase.js";
+import { planText, useClimateRoot } from "./planCase.js";
 import { runCli } from "./runCli.js";
 
-let root = "";
-const writeCase = (plan: string, schedule = SCHEDULE) => writeCaseIn(root, plan, schedule);
-
-beforeAll(async () => {
-  root = await makeClimateRoot();
-  process.env.SOURCE_DATE_EPOCH = "1700000000";
-}, 120_000);
-
-afterAll(async () => {
-  await rm(root, { recursive: true, force: true });
-});
+const { root: climateRoot, writeCase } = useClimateRoot();
 
 /** A sparse file of `bytes` bytes (no disk space used). */
 async function sparseFile(path: string, bytes: number): Promise<string> {
@@ -144,7 +134,7 @@ describe("a station the plan does not use", () => {
   });
 
   it("coldsoak climate warns of a station without a kept record and takes its position from all its records", async () => {
-    const dir = join(root, "unrelated");
+    const dir = join(climateRoot(), "unrelated");
     await mkdir(dir);
     const r = await runCli(["climate", await unrelatedStationFile(dir), "--no-cache", "--json"]);
     expect(r.code).toBe(0);

@@ -1,23 +1,13 @@
 import { existsSync, readdirSync, readFileSync } from "node:fs";
-import { rm, writeFile } from "node:fs/promises";
+import { writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import fc from "fast-check";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { folderFiles, makeClimateRoot, planText, SCHEDULE, visibleEntries, writeCaseIn } from "./planCase.js";
+import { describe, expect, it } from "vitest";
+import { folderFiles, planText, SCHEDULE, useClimateRoot, visibleEntries } from "./planCase.js";
 import { runCli } from "./runCli.js";
 
-let root = "";
 const run = runCli;
-const writeCase = (plan: string, schedule = SCHEDULE) => writeCaseIn(root, plan, schedule);
-
-beforeAll(async () => {
-  root = await makeClimateRoot();
-  process.env.SOURCE_DATE_EPOCH = "1700000000";
-}, 120_000);
-
-afterAll(async () => {
-  await rm(root, { recursive: true, force: true });
-});
+const { root: climateRoot, writeCase } = useClimateRoot();
 
 describe("coldsoak plan", () => {
   it("writes results.json, one CSV per table and report.html; two runs are byte-identical", async () => {
@@ -70,7 +60,7 @@ describe("coldsoak plan", () => {
           "plan",
           (await writeCase(fixed(1))).plan,
           "--out",
-          join(root, "s1"),
+          join(climateRoot(), "s1"),
           "--no-cache",
           "--json",
         ])
@@ -82,7 +72,7 @@ describe("coldsoak plan", () => {
           "plan",
           (await writeCase(fixed(2))).plan,
           "--out",
-          join(root, "s2"),
+          join(climateRoot(), "s2"),
           "--no-cache",
           "--json",
         ])
@@ -104,7 +94,7 @@ describe("coldsoak plan", () => {
           "plan",
           (await writeCase(spread(1))).plan,
           "--out",
-          join(root, "s3"),
+          join(climateRoot(), "s3"),
           "--no-cache",
           "--json",
         ])
@@ -116,7 +106,7 @@ describe("coldsoak plan", () => {
           "plan",
           (await writeCase(spread(2))).plan,
           "--out",
-          join(root, "s4"),
+          join(climateRoot(), "s4"),
           "--no-cache",
           "--json",
         ])

@@ -3,10 +3,10 @@
  * plan + schedule files written beside it, one fresh folder per case; the output root as a user sees it.
  */
 import { readdirSync, readFileSync, readlinkSync } from "node:fs";
-import { mkdir, mkdtemp, writeFile } from "node:fs/promises";
+import { mkdir, mkdtemp, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { expect } from "vitest";
+import { afterAll, beforeAll, expect } from "vitest";
 import { parse, stringify } from "yaml";
 import { type SyntheticStation, writeSyntheticIsdLite } from "../../src/bench/plan.js";
 import { FIXTURE_TEXT, type Tree } from "../plan/helpers.js";
@@ -44,6 +44,25 @@ export async function makeClimateRoot(): Promise<string> {
 }
 
 let caseNo = 0;
+
+/**
+ * Registers the setup hooks of a test file's climate root (made before its tests, with a fixed
+ * SOURCE_DATE_EPOCH, and removed after them); returns the root's path and a case writer in it.
+ */
+export function useClimateRoot(): {
+  root: () => string;
+  writeCase: (plan: string, schedule?: string) => ReturnType<typeof writeCaseIn>;
+} {
+  let root = "";
+  beforeAll(async () => {
+    root = await makeClimateRoot();
+    process.env.SOURCE_DATE_EPOCH = "1700000000";
+  }, 120_000);
+  afterAll(async () => {
+    if (root !== "") await rm(root, { recursive: true, force: true });
+  });
+  return { root: () => root, writeCase: (plan, schedule = SCHEDULE) => writeCaseIn(root, plan, schedule) };
+}
 
 /** Writes plan + schedule in a fresh case folder under `root` (sharing its climate) and returns their paths. */
 export async function writeCaseIn(

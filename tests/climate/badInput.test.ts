@@ -7,7 +7,7 @@
 import { readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import fc from "fast-check";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { loadClimate, TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "../../src/climate/index.js";
 import { InputError } from "../../src/errors.js";
 import {
@@ -15,16 +15,15 @@ import {
   csvRow,
   droppedTotal,
   HAVE_SAMPLES,
+  noCache,
   sample,
   sampleLines,
+  scratchDir,
   setAt,
-  tempDir,
   writeLines,
 } from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 
 describe.skipIf(!HAVE_SAMPLES)("malformed lines in real files", () => {
   it("counts truncated lines, non-digits and binary garbage as malformed, with file:line examples", async () => {

@@ -3,21 +3,20 @@
  * layouts (product brief §2) gives the same hourly series as the full format; plain and gzip alike.
  */
 import { writeFileSync } from "node:fs";
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { HOUR_MS, loadClimate, readClimateFile } from "../../src/climate/index.js";
 import {
   CHICAGO_HISTORY,
   CSV_HEADER,
   csvRow,
   HAVE_SAMPLES,
+  noCache,
   sampleLines,
-  tempDir,
+  scratchDir,
   writeLines,
 } from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 
 /** 2014-01-06 (the cold day) of the Chicago sample, plus the evening before for the first hour's window. */
 function realDay(): string[] {

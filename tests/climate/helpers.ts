@@ -4,6 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { gunzipSync, gzipSync } from "node:zlib";
+import { afterAll } from "vitest";
 
 /** `../shared/isd-samples` relative to the repository (real, public-domain NOAA ISD files). */
 export const SAMPLES_DIR = fileURLToPath(new URL("../../../shared/isd-samples/", import.meta.url));
@@ -22,9 +23,19 @@ export function sampleLines(name: string): string[] {
     .filter((l) => l !== "");
 }
 
+/** Options of loadClimate for tests: the default gap length, no cache. */
+export const noCache = { gapHours: 3, cacheDir: null };
+
 export function tempDir(): { dir: string; cleanup: () => void } {
   const dir = mkdtempSync(join(tmpdir(), "coldsoak-climate-"));
   return { dir, cleanup: () => rmSync(dir, { recursive: true, force: true }) };
+}
+
+/** A temporary folder for the tests of one file, removed after them. */
+export function scratchDir(): { dir: string } {
+  const tmp = tempDir();
+  afterAll(() => tmp.cleanup());
+  return tmp;
 }
 
 export function writeLines(path: string, lines: string[], gzip = false): string {

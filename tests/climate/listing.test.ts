@@ -5,14 +5,12 @@
  */
 import { mkdirSync, symlinkSync } from "node:fs";
 import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { listClimateFiles, loadClimate } from "../../src/climate/index.js";
 import { InputError } from "../../src/errors.js";
-import { HAVE_SAMPLES, sample, tempDir } from "./helpers.js";
+import { HAVE_SAMPLES, noCache, sample, scratchDir } from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 
 describe.skipIf(!HAVE_SAMPLES)("symbolic links in climate folders", () => {
   it("a folder of links only is read through them", async () => {

@@ -2,13 +2,20 @@
  * Quality codes, the order of reasons and duplicates, on real lines of the NOAA samples edited inside
  * the test (positions as the ISD format document counts them).
  */
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { loadClimate } from "../../src/climate/index.js";
-import { droppedTotal, HAVE_SAMPLES, sample, sampleLines, setAt, tempDir, writeLines } from "./helpers.js";
+import {
+  droppedTotal,
+  HAVE_SAMPLES,
+  noCache,
+  sample,
+  sampleLines,
+  scratchDir,
+  setAt,
+  writeLines,
+} from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 
 describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
   // First six routine FM-15 lines of the Chicago sample, all with quality code 5 (real file).

@@ -13,9 +13,7 @@ import {
   timeZoneFor,
   valueAtHour,
 } from "../../src/climate/index.js";
-import { droppedTotal, HAVE_SAMPLES, sample, sampleLines } from "./helpers.js";
-
-const noCache = { gapHours: 3, cacheDir: null };
+import { droppedTotal, HAVE_SAMPLES, noCache, sample, sampleLines } from "./helpers.js";
 
 async function one(name: string): Promise<StationClimate> {
   const stations = await loadClimate([sample(name)], noCache);

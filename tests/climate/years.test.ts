@@ -6,7 +6,7 @@
  */
 import { writeFileSync } from "node:fs";
 import { join } from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { HOUR_MS, loadClimate, type StationClimate } from "../../src/climate/index.js";
 import {
   CHICAGO_HISTORY,
@@ -14,15 +14,14 @@ import {
   csvRow,
   droppedTotal,
   HAVE_SAMPLES,
+  noCache,
   sampleLines,
+  scratchDir,
   setAt,
-  tempDir,
   writeLines,
 } from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 
 const UTC_2014 = Date.UTC(2014, 0, 1);
 const UTC_2015 = Date.UTC(2015, 0, 1);
