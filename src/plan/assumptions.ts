@@ -56,7 +56,7 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
   add(["climate", "gapHours"], "Longest gap filled linearly", `${c.gapHours} h`);
   add(["climate", "minYearShare"], "Share of hours for a year to count", `${c.minYearShare * 100} %`);
   add(["climate", "minYears"], "Usable years below which a base is flagged", String(c.minYears));
-  add(["climate", "cacheDir"], "Climate cache folder", c.cacheDir ?? "out/cache/climate");
+  add(["climate", "cacheDir"], "Climate cache folder", c.cacheDir ?? "<out>/.cache/climate");
   add(["climate", "stationHistory"], "Station-history list", c.stationHistory ?? "none");
   add(["schedule"], "Schedule file", plan.schedule ?? "given on the command line");
 
