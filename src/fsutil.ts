@@ -38,7 +38,7 @@ function sizeText(bytes: number): string {
 }
 
 /** The reason a read failed, in words (the error code's meaning, else the system's message). */
-function readFailure(err: unknown): string {
+export function readFailure(err: unknown): string {
   const e = err as NodeJS.ErrnoException;
   if (e.code === "ENOENT") return "no such file";
   if (e.code === "EISDIR") return "is a folder, not a file";

@@ -6,7 +6,7 @@
 import { readdir, realpath, stat } from "node:fs/promises";
 import { basename, join, resolve } from "node:path";
 import { inputError } from "../errors.js";
-import { type FileKind, specialFileKind } from "../fsutil.js";
+import { type FileKind, readFailure, specialFileKind } from "../fsutil.js";
 import { cacheKey, fileHash, readCache, writeCache } from "./cache.js";
 import { fillGapsInPlace, hourlyFromObservations } from "./hourly.js";
 import { timeZoneFor } from "./localTime.js";
@@ -242,7 +242,17 @@ export async function loadClimateSelection(
           stations: wanted === null ? null : [...wanted].sort(),
           history: historyPath ? await fileHash(historyPath).catch(() => "unreadable") : null,
           files: await Promise.all(
-            files.map(async (f) => ({ name: basename(f), sha256: await fileHash(f) })),
+            files.map(async (f) => ({
+              name: basename(f),
+              sha256: await fileHash(f).catch((err: unknown) => {
+                throw inputError(
+                  f,
+                  undefined,
+                  undefined,
+                  `cannot read the climate file: ${readFailure(err)}`,
+                );
+              }),
+            })),
           ),
         });
   let selection = options.cacheDir !== null && key !== null ? await readCache(options.cacheDir, key) : null;

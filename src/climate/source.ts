@@ -69,6 +69,8 @@ export async function* readChunks(path: string): AsyncGenerator<Buffer> {
   } catch (err) {
     const e = err as NodeJS.ErrnoException;
     if (e.code === "ENOENT") throw inputError(path, undefined, undefined, "file not found");
+    if (e.code === "EACCES" || e.code === "EPERM")
+      throw inputError(path, undefined, undefined, "cannot read the climate file: permission denied");
     if (gz && typeof e.code === "string" && e.code.startsWith("Z_"))
       throw inputError(
         path,
