@@ -1,7 +1,7 @@
 /**
  * `coldsoak climate <files or folders...>`: reads NOAA ISD climate files and prints, per station, the
  * period, hours, completeness, quality-control counts, monthly local-time climatology and extremes
- * (product brief, sections 4 and 6). `--json` prints the brief's contract on stdout.
+ * (docs/methods.md, "Climate data"). `--json` prints the same as JSON on stdout.
  */
 import { SingleBar } from "cli-progress";
 import { type Command, Option } from "commander";
@@ -141,7 +141,7 @@ export function climateCsv(stations: StationSummary[], units: Units): string {
   return `${rows.join("\r\n")}\r\n`;
 }
 
-/** The `--json` document (brief §6); temperatures always in °C. */
+/** The `--json` document; temperatures always in °C. */
 export function climateJson(stations: StationClimate[]): unknown {
   return {
     stations: stations.map((s) => ({

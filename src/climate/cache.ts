@@ -1,5 +1,5 @@
 /**
- * Cache of finished station series (product brief, section 4). One entry per set of input files; the
+ * Cache of finished station series. One entry per set of input files; the
  * key hashes every file's content, the reader version, the quality rules and every option that changes
  * the series. An entry that cannot be read, fails its checksum or its schema is ignored and rebuilt.
  *

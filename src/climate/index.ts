@@ -1,4 +1,4 @@
-/** Climate ingestion: NOAA ISD files in, cleaned hourly temperature series out (product brief, §2 and §4). */
+/** Climate ingestion: NOAA ISD files in, cleaned hourly temperature series out (docs/methods.md, "Climate data"). */
 export { cacheStats, fileHash, READER_VERSION, resetCacheStats } from "./cache.js";
 export {
   emptySeries,

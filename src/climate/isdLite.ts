@@ -2,7 +2,7 @@
  * Reader for ISD-Lite (NOAA NCEI's hourly subset of ISD): one line per UTC hour, 12 whitespace-separated
  * integers: year, month, day, hour, air temperature ×10 °C, dew point ×10 °C, sea-level pressure ×10 hPa,
  * wind direction, wind speed ×10 m/s, sky cover, 1-h and 6-h precipitation ×10 mm; −9999 = missing
- * (product brief, section 2). The layout carries no station, position or quality code: the station
+ * (NOAA NCEI ISD-Lite format). The layout carries no station, position or quality code: the station
  * comes from the file name (USAF-WBAN-YEAR) or an option, the position from another file of the same
  * station or the station-history CSV, and values are treated as having passed the gross limits check.
  */

@@ -1,5 +1,5 @@
 /**
- * Quality control of one station's records, across all the files that hold it (product brief, section 4):
+ * Quality control of one station's records, across all the files that hold it (docs/methods.md, "Quality control"):
  * every record lands in exactly one count, tested in the order malformed, summary, otherSite, missing,
  * range, erroneous, suspect, duplicate; the rest are kept.
  */
@@ -21,7 +21,7 @@ import type { Extremes, QcCounts } from "./types.js";
 /** Air-temperature limits of the ISD format document (POS 88-92): −93.2 … +61.8 °C, in tenths. */
 export const TEMP_MIN_TENTHS = -932;
 export const TEMP_MAX_TENTHS = 618;
-/** Second-site rule (brief §4): records farther than this from the station-year's usual position. */
+/** Second-site rule (docs/methods.md): records farther than this from the station-year's usual position. */
 export const SITE_RADIUS_M = 5000;
 export const SITE_ELEVATION_M = 30;
 

@@ -4,7 +4,7 @@
  * worker thread can hand back without copying.
  */
 
-/** Record kinds: how a record takes part in the hourly series (brief §4). */
+/** Record kinds: how a record takes part in the hourly series (docs/methods.md, "Hourly series"). */
 export const KIND_ROUTINE = 0;
 export const KIND_SPECIAL = 1;
 export const KIND_SUMMARY = 2;
@@ -135,7 +135,7 @@ export interface ParsedFile {
 
 /** Report types that are summaries, not observations (ISD format document, POS 42-46). */
 export const SUMMARY_TYPES = new Set(["SOD", "SOM", "COOPD"]);
-/** Special (non-routine) report types: used only where no routine report exists (brief §4). */
+/** Special (non-routine) report types: used only where no routine report exists (docs/methods.md, "Hourly series"). */
 export const SPECIAL_TYPES = new Set(["FM-16", "SAOSP"]);
 
 export function kindOfReportType(type: string): number {

@@ -1,11 +1,11 @@
 /**
  * Shared shapes of the climate module: options, station metadata, the hourly series and the
- * quality-control counts (product brief, section 4).
+ * quality-control counts (docs/methods.md, "Climate data").
  */
 
 /** Options of `loadClimate`. */
 export interface ClimateOptions {
-  /** Longest run of missing hours filled by linear interpolation (brief §4, default 3). */
+  /** Longest run of missing hours filled by linear interpolation (docs/methods.md, default 3). */
   gapHours: number;
   /** Cache folder; `null` disables the cache. Default `out/.cache/climate`. */
   cacheDir: string | null;
@@ -28,7 +28,7 @@ export const DEFAULT_GAP_HOURS = 3;
  */
 export const DEFAULT_CACHE_DIR = "out/.cache/climate";
 
-/** Reasons a record is not kept, in the order they are tested (brief §4). */
+/** Reasons a record is not kept, in the order they are tested (docs/methods.md, "Quality control"). */
 export const DROP_REASONS = [
   "malformed",
   "summary",

@@ -1,6 +1,6 @@
 /**
  * One real day of the Chicago sample written out, inside the test, in the ISD-Lite and global-hourly CSV
- * layouts (product brief §2) gives the same hourly series as the full format; plain and gzip alike.
+ * layouts (NOAA NCEI ISD-Lite and global-hourly CSV) gives the same hourly series as the full format; plain and gzip alike.
  */
 import { writeFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";

@@ -32,7 +32,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
       setAt(lines[2]!, 93, "6"),
       setAt(lines[3]!, 93, "7"),
       lines[4]!,
-      setAt(lines[5]!, 93, "A"), // A: flagged suspect but accepted as good (kept, brief §4)
+      setAt(lines[5]!, 93, "A"), // A: flagged suspect but accepted as good (kept, docs/methods.md)
     ];
     const [s] = await loadClimate([writeLines(`${tmp.dir}/q.txt`, edited)], noCache);
     expect(s!.qc.dropped.suspect).toBe(2);
@@ -47,7 +47,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     ["6", "suspect"],
     ["7", "erroneous"],
   ] as const)(
-    "temperature quality %s alone is counted as %s (ISD format document, POS 93; brief §4)",
+    "temperature quality %s alone is counted as %s (ISD format document, POS 93; docs/methods.md)",
     async (code, reason) => {
       // One edited line among five untouched ones, so a code filed under the wrong reason shows.
       const lines = routine();
@@ -61,7 +61,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     },
   );
 
-  it("second site: 5 km and 30 m from the most frequent position are the limits (brief §4)", async () => {
+  it("second site: 5 km and 30 m from the most frequent position are the limits (docs/methods.md)", async () => {
     // The Chicago sample's main position is +41.995 −087.934, 205 m (real file). One degree of latitude
     // is 111.2 km (spherical Earth, mean radius 6371 km; from memory): +0.040° = 4.45 km, +0.050° = 5.56 km.
     const lines = routine();
@@ -96,7 +96,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     expect(s!.extremes!.minC).toBe(-93.2);
   });
 
-  it("the first reason that applies wins, in the order of the brief (§4)", async () => {
+  it("the first reason that applies wins, in the order of docs/methods.md", async () => {
     const lines = routine();
     const otherSite = (l: string) => setAt(setAt(l, 29, "+30300"), 35, "-097700"); // Austin's second site
     const edited = [
