@@ -114,7 +114,7 @@ export function buildStations(
   return buildSelection(files, gapHours, history, null).stations;
 }
 
-/** buildStations for the stations in `wanted` only (all when null); the others are skipped, unread. */
+/** buildStations for the stations in `wanted` only (all when null): the others, read, are given no quality control or series. */
 export function buildSelection(
   files: ParsedFile[],
   gapHours: number,
