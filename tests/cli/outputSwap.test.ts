@@ -4,7 +4,7 @@
  * src/cli/outputFolder.ts and is killed with SIGKILL at every step of the swap (the test hook
  * COLDSOAK_TEST_SWAP_PAUSE_MS pauses after each) and at spread-out instants. Whatever the instant,
  * `out/<name>` holds the complete results of the run before or of the run killed, and the next run
- * removes what killed runs left. Concurrent `coldsoak plan` runs on one output root all succeed.
+ * removes what killed runs left. Concurrent runs on one output root all succeed.
  */
 import { type ChildProcess, spawn } from "node:child_process";
 import { existsSync, readlinkSync } from "node:fs";
@@ -16,7 +16,6 @@ import { folderFiles, makeClimateRoot, planText, visibleEntries, writeCaseIn } f
 import { runCli } from "./runCli.js";
 
 const DIST = fileURLToPath(new URL("../../dist/", import.meta.url));
-const MAIN = join(DIST, "cli", "main.js");
 const HAVE_BUILD = existsSync(join(DIST, "cli", "outputFolder.js"));
 if (!HAVE_BUILD) console.warn(`output-swap tests skipped: ${DIST} holds no build (run npm run build)`);
 
@@ -53,9 +52,7 @@ function runChild(
 }
 
 let root = "";
-/** Two plans named alike ("minimal") whose seeds give different results. */
-const plans: [string, string] = ["", ""];
-/** The complete output of each plan, from undisturbed runs, and the same saved as JSON for the child. */
+/** The complete output of two plans named alike ("minimal") whose seeds differ, and the same saved as JSON for the child. */
 const expected: [Map<string, string>, Map<string, string>] = [new Map(), new Map()];
 const outputJson: [string, string] = ["", ""];
 /** The child script: writes a saved output through the swap, as `coldsoak plan` does at its end. */
@@ -72,7 +69,6 @@ beforeAll(async () => {
         t.seed = i + 1;
       }),
     );
-    plans[i] = c.plan;
     const r = await runCli(["plan", c.plan, "--out", join(root, `clean${i}`), "--no-cache"]);
     expect(r.code, r.err).toBe(0);
     expected[i] = folderFiles(join(root, `clean${i}`, "minimal"));
@@ -163,10 +159,11 @@ describe.skipIf(!HAVE_BUILD)("output folder swap under kill -9", () => {
     expect(visibleEntries(out)).toEqual(["minimal"]);
   });
 
-  it("concurrent coldsoak plan runs on one output root all succeed and leave one complete folder", async () => {
+  it("concurrent runs on one output root all succeed and leave one complete folder", async () => {
     const out = join(root, "concurrent");
+    // Swaps paused at each step, so that they overlap: each sees the others' folders in progress.
     const runs = await Promise.all(
-      [0, 1, 0].map((i) => runChild([MAIN, "plan", plans[i as 0 | 1], "--out", out, "--no-cache"])),
+      [0, 1, 0, 1].map((i) => runChild(swapArgs(out, i as 0 | 1), { pauseMs: 100 })),
     );
     for (const r of runs) expect(r.code, r.stderr).toBe(0);
     expect(visibleResults(out)).not.toBeNull();
