@@ -1,7 +1,7 @@
 /**
  * `coldsoak climate <files or folders...>`: reads NOAA ISD climate files and prints, per station, the
  * period, hours, completeness, quality-control counts, monthly local-time climatology and extremes
- * (docs/methods.md §4; README, Outputs). `--json` prints the contract of README, Outputs, on stdout.
+ * (docs/methods.md, "Climate data"). `--json` prints the same as JSON on stdout.
  */
 import { SingleBar } from "cli-progress";
 import { type Command, Option } from "commander";
@@ -134,7 +134,7 @@ export function climateCsv(stations: StationSummary[], units: Units): string {
   return `${rows.join("\r\n")}\r\n`;
 }
 
-/** The `--json` document (README, Outputs); temperatures always in °C. */
+/** The `--json` document; temperatures always in °C. */
 export function climateJson(stations: StationClimate[]): unknown {
   return {
     stations: stations.map((s) => ({
@@ -152,6 +152,7 @@ export async function runClimate(paths: string[], opts: ClimateCliOptions): Prom
   const options: ClimateOptions = {
     gapHours,
     cacheDir: opts.cache ? opts.cacheDir : null,
+    onWarning: (w) => process.stderr.write(`coldsoak: warning: ${w}\n`),
     onProgress: (done, total) => {
       if (total < PROGRESS_MIN_FILES || !process.stderr.isTTY) return;
       if (bar === null) {

@@ -1,11 +1,8 @@
 /**
  * `coldsoak plan <plan.yaml> [--schedule file] [--out dir] [--json]`: runs the planning engine and
- * writes `out/<plan name>/` (results.json, one CSV per table, report.html), built in a temporary
- * sibling folder and renamed into place only after every file is written (README, Outputs).
+ * writes `out/<plan name>/` (results.json, one CSV per table, report.html), made visible in one step
+ * only after every file is written (see outputFolder.ts).
  */
-import { randomBytes } from "node:crypto";
-import { existsSync } from "node:fs";
-import { mkdir, rename, rm, writeFile } from "node:fs/promises";
 import { join, resolve } from "node:path";
 import { SingleBar } from "cli-progress";
 import type { Command } from "commander";
@@ -18,6 +15,7 @@ import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
 import { renderReport, writePdf } from "../report/index.js";
 import { formatDisplay, pct, showWithUnit, unitSystem } from "../units/index.js";
+import { writeOutputFolder } from "./outputFolder.js";
 
 export interface PlanCliOptions {
   schedule?: string;
@@ -29,35 +27,6 @@ export interface PlanCliOptions {
 }
 
 const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
-
-/** Writes every output file into a temporary sibling folder, then renames it into place. */
-export async function writeOutputFolder(
-  outRoot: string,
-  name: string,
-  files: Map<string, string>,
-): Promise<string> {
-  await mkdir(outRoot, { recursive: true });
-  const final = join(outRoot, name);
-  const tmp = join(outRoot, `.${name}.tmp-${randomBytes(4).toString("hex")}`);
-  const old = join(outRoot, `.${name}.old-${randomBytes(4).toString("hex")}`);
-  try {
-    await mkdir(tmp);
-    for (const [f, text] of files) await writeFile(join(tmp, f), text);
-    const hadOld = existsSync(final);
-    if (hadOld) await rename(final, old);
-    try {
-      await rename(tmp, final);
-    } catch (err) {
-      if (hadOld) await rename(old, final);
-      throw err;
-    }
-    if (hadOld) await rm(old, { recursive: true, force: true });
-  } catch (err) {
-    await rm(tmp, { recursive: true, force: true });
-    throw err;
-  }
-  return final;
-}
 
 /** Short terminal summary: the bases and months that need action. */
 export function summaryText(r: Results): string {
@@ -119,11 +88,27 @@ function progressBar(label: string): { update: (done: number, total: number) => 
   };
 }
 
+/**
+ * The climate cache of a run: none with --no-cache; else --cache-dir, else the plan's
+ * `climate.cacheDir` (undefined: the loader takes it from the plan), else `<out>/.cache/climate`,
+ * a name no plan folder can take (plan names start with a letter or digit).
+ */
+function cacheDirOf(plan: Plan, opts: PlanCliOptions): string | null | undefined {
+  if (!opts.cache) return null;
+  if (opts.cacheDir !== undefined) return opts.cacheDir;
+  return plan.climate.cacheDir !== undefined ? undefined : join(resolve(opts.out), ".cache", "climate");
+}
+
+/** What a plan run gives: the visible output folder, the results, warnings beyond the results' own, the PDF step's note. */
+export interface PlanRun {
+  folder: string;
+  results: Results;
+  climateWarnings: string[];
+  pdf: { ok: boolean; message: string } | null;
+}
+
 /** Runs a plan file end to end; returns the output folder and the results. */
-export async function runPlanCommand(
-  planFile: string,
-  opts: PlanCliOptions,
-): Promise<{ folder: string; results: Results }> {
+export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Promise<PlanRun> {
   const plan: Plan = await loadPlan(planFile);
   const scheduleFile =
     opts.schedule !== undefined
@@ -145,9 +130,12 @@ export async function runPlanCommand(
     plan.profiles.map((p) => p.name),
   );
   const files = progressBar("climate files");
+  const climateWarnings: string[] = [];
+  const cacheDir = cacheDirOf(plan, opts);
   const climate = await loadPlanClimate(plan, {
-    ...(opts.cache ? (opts.cacheDir !== undefined ? { cacheDir: opts.cacheDir } : {}) : { cacheDir: null }),
+    ...(cacheDir !== undefined ? { cacheDir } : {}),
     onProgress: files.update,
+    onWarning: (w) => climateWarnings.push(w),
   });
   files.stop();
   const sims = progressBar("stay-years");
@@ -157,8 +145,18 @@ export async function runPlanCommand(
   out.set("results.json", resultsJson(results));
   for (const t of resultTables(results)) out.set(`${t.name}.csv`, toCsv(t));
   out.set("report.html", await renderReport({ ...results, files: [...out.keys()] }));
-  const folder = await writeOutputFolder(resolve(opts.out), plan.name, out);
-  return { folder, results };
+  let pdf: PlanRun["pdf"] = null;
+  const folder = await writeOutputFolder(resolve(opts.out), plan.name, out, {
+    // The PDF is printed inside the new folder before it is made visible: it is part of the swap.
+    ...(opts.pdf
+      ? {
+          beforeSwap: async (dir: string) => {
+            pdf = await writePdf(join(dir, "report.html"), join(dir, "report.pdf"));
+          },
+        }
+      : {}),
+  });
+  return { folder, results, climateWarnings, pdf };
 }
 
 export function registerPlan(program: Command): void {
@@ -181,7 +179,7 @@ export function registerPlan(program: Command): void {
     .option("--no-cache", "read the climate files again instead of using the climate cache")
     .option(
       "--cache-dir <dir>",
-      "climate cache folder (default: the plan's climate.cacheDir or out/cache/climate)",
+      "climate cache folder (default: the plan's climate.cacheDir, else <out>/.cache/climate)",
     )
     .addHelpText(
       "after",
@@ -205,12 +203,9 @@ Planning estimates, not maintenance data: service from the approved maintenance 
 manufacturer's instructions, follow local rules, and take high-pressure gas precautions.`,
     )
     .action(async (planFile: string, opts: PlanCliOptions) => {
-      const { folder, results } = await runPlanCommand(planFile, opts);
-      for (const w of results.warnings) process.stderr.write(`warning: ${w}\n`);
-      if (opts.pdf) {
-        const pdf = await writePdf(join(folder, "report.html"), join(folder, "report.pdf"));
-        process.stderr.write(`${pdf.ok ? "pdf" : "pdf skipped"}: ${pdf.message}\n`);
-      }
+      const { folder, results, climateWarnings, pdf } = await runPlanCommand(planFile, opts);
+      for (const w of [...climateWarnings, ...results.warnings]) process.stderr.write(`warning: ${w}\n`);
+      if (pdf !== null) process.stderr.write(`${pdf.ok ? "pdf" : "pdf skipped"}: ${pdf.message}\n`);
       if (opts.json) {
         process.stdout.write(resultsJson(results));
       } else {

@@ -1,5 +1,5 @@
 /**
- * Cache of finished station series (docs/methods.md §4). One entry per set of input files; the
+ * Cache of finished station series. One entry per set of input files; the
  * key hashes every file's content, the reader version, the quality rules and every option that changes
  * the series. An entry that cannot be read, fails its checksum or its schema is ignored and rebuilt.
  *
@@ -19,13 +19,14 @@ import { writeFileAtomic } from "../fsutil.js";
 import { DROP_REASONS, type StationClimate } from "./types.js";
 
 /** Bump whenever a reader or a rule changes what a file turns into. */
-export const READER_VERSION = "climate-reader-1";
+export const READER_VERSION = "climate-reader-2";
 
 /** The quality rules in force, spelled out so that a change of rules changes the cache key. */
 export const QUALITY_RULES =
   "keep TMP q 0,1,4,5,9,A,C,I,M,P,R,U; suspect 2,6; erroneous 3,7; missing +9999; range -93.2..61.8 C; " +
   "summary SOD,SOM,COOPD; site 5 km / 30 m of the station-year mode; hour window 30 min; special FM-16,SAOSP; " +
-  "duplicate = same time, type, value; order malformed,summary,otherSite,missing,range,erroneous,suspect,duplicate";
+  "duplicate = same time, type, value; order malformed,summary,otherSite,missing,range,erroneous,suspect,duplicate; " +
+  "years 1890..2100; USAF-WBAN-YEAR file: that UTC year only; stray years < 100 records and < 5 % with empty neighbours";
 
 let hits = 0;
 let misses = 0;
@@ -44,10 +45,15 @@ export function resetCacheStats(): void {
 /** Files up to this size are hashed from one read; larger ones are streamed. */
 const HASH_WHOLE_BYTES = 64 * 1024 * 1024;
 
-/** SHA-256 of a file's bytes (one read for files of usual size, streamed for larger ones). */
+/**
+ * SHA-256 of a file's bytes (one read for files of usual size, streamed for larger ones). Throws for
+ * what is not a regular file (a device or pipe could block or never end).
+ */
 export async function fileHash(path: string): Promise<string> {
   const h = createHash("sha256");
-  if ((await stat(path)).size <= HASH_WHOLE_BYTES) return h.update(await readFile(path)).digest("hex");
+  const st = await stat(path);
+  if (!st.isFile()) throw new Error(`${path}: not a regular file`);
+  if (st.size <= HASH_WHOLE_BYTES) return h.update(await readFile(path)).digest("hex");
   for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 })) h.update(chunk as Buffer);
   return h.digest("hex");
 }
@@ -92,6 +98,7 @@ const bodySchema = z.object({
   dataBytes: z.number().int().nonnegative(),
   dataSha256: z.string(),
   stations: z.array(stationSchema),
+  skipped: z.array(z.string()),
 });
 const entrySchema = z.object({
   kind: z.literal("coldsoak-climate-cache"),
@@ -110,7 +117,7 @@ function align8(n: number): number {
 }
 
 /** The body text and the binary file of an entry. */
-function encode(stations: StationClimate[]): { body: string; data: Buffer } {
+function encode({ stations, skipped }: CachedSelection): { body: string; data: Buffer } {
   let size = 0;
   const layout = stations.map((s) => {
     const hours = s.series.tempC.length;
@@ -138,15 +145,16 @@ function encode(stations: StationClimate[]): { body: string; data: Buffer } {
       meanStationPressureHpa: s.meanStationPressureHpa,
       malformedExamples: s.malformedExamples,
     })),
+    skipped,
   });
   return { body, data };
 }
 
 /** The stations of an entry, or null when the binary file does not match the body. */
-function decode(body: string, data: Buffer): StationClimate[] | null {
+function decode(body: string, data: Buffer): CachedSelection | null {
   const parsed = bodySchema.safeParse(JSON.parse(body));
   if (!parsed.success) return null;
-  const { dataBytes, dataSha256, stations } = parsed.data;
+  const { dataBytes, dataSha256, stations, skipped } = parsed.data;
   if (data.length !== dataBytes || sha256(data) !== dataSha256) return null;
   // Float64 views need an 8-byte aligned start; a read buffer normally has one, else copy.
   const bytes =
@@ -174,7 +182,7 @@ function decode(body: string, data: Buffer): StationClimate[] | null {
       malformedExamples: s.malformedExamples,
     });
   }
-  return out;
+  return { stations: out, skipped };
 }
 
 /** The JSON envelope of the entry for `key`. */
@@ -187,8 +195,14 @@ export function cacheDataPath(cacheDir: string, key: string): string {
   return join(cacheDir, `${key}.bin`);
 }
 
+/** The stations built and the ids skipped, as an entry holds them. */
+export interface CachedSelection {
+  stations: StationClimate[];
+  skipped: string[];
+}
+
 /** The cached stations for `key`, or null (absent, unreadable, corrupt: the caller rebuilds). */
-export async function readCache(cacheDir: string, key: string): Promise<StationClimate[] | null> {
+export async function readCache(cacheDir: string, key: string): Promise<CachedSelection | null> {
   let text: string;
   let data: Buffer;
   try {
@@ -217,8 +231,8 @@ export async function readCache(cacheDir: string, key: string): Promise<StationC
 }
 
 /** Writes the binary file first, then the envelope: an envelope is only ever seen with its data. */
-export async function writeCache(cacheDir: string, key: string, stations: StationClimate[]): Promise<void> {
-  const { body, data } = encode(stations);
+export async function writeCache(cacheDir: string, key: string, selection: CachedSelection): Promise<void> {
+  const { body, data } = encode(selection);
   const entry = { kind: "coldsoak-climate-cache", key, checksum: sha256(body), body };
   await writeFileAtomic(cacheDataPath(cacheDir, key), data);
   await writeFileAtomic(cachePath(cacheDir, key), JSON.stringify(entry));

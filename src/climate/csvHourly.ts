@@ -1,13 +1,17 @@
 /**
- * Reader for the comma-separated global-hourly layout (README, Inputs): a quoted header row;
+ * Reader for the comma-separated global-hourly layout (NOAA NCEI): a quoted header row;
  * `STATION` is the 11-character USAF+WBAN id, `DATE` an ISO UTC time, `LATITUDE`, `LONGITUDE`,
  * `ELEVATION`, `NAME`, `REPORT_TYPE`, `CALL_SIGN`, and each ISD element as its comma-joined sub-fields
- * (`TMP` = "-0267,5": value ×10 °C, quality code), with the codes of the full format. Rows arrive
- * already split by csv-parse.
+ * (`TMP` = "-0267,5": value ×10 °C, quality code), with the codes of the full format.
+ *
+ * NOAA writes one record per line (no field holds a line break), so the file is read line by line like
+ * the fixed layouts and each line split into its fields here: every line is exactly one record, read
+ * or malformed, and a stray quote can never swallow the lines after it.
  */
 import { inputError } from "../errors.js";
 import {
   daysFromCivil,
+  isRecordYear,
   isValidDate,
   kindOfReportType,
   MISSING_ELEV,
@@ -18,8 +22,10 @@ import {
   noteMalformed,
   type ParsedFile,
   pushMalformed,
+  recordDateProblem,
   reportTypeIndex,
   stationIndex,
+  UNKNOWN_STATION,
 } from "./records.js";
 
 export interface CsvColumns {
@@ -40,7 +46,7 @@ export interface CsvColumns {
 }
 
 /** Column positions from the header row; STATION, DATE and TMP are required. */
-export function csvColumns(header: string[], path: string): CsvColumns {
+export function csvColumns(header: string[], path: string, line = 1): CsvColumns {
   const at = (name: string) => header.findIndex((h) => h.trim().toUpperCase() === name);
   const cols: CsvColumns = {
     count: header.length,
@@ -63,7 +69,7 @@ export function csvColumns(header: string[], path: string): CsvColumns {
     ["date", "DATE"],
     ["tmp", "TMP"],
   ] as const)
-    if (cols[key] < 0) throw inputError(path, 1, name, `header row has no ${name} column`);
+    if (cols[key] < 0) throw inputError(path, line, name, `header row has no ${name} column`);
   return cols;
 }
 
@@ -80,7 +86,7 @@ function scaled(cell: string | undefined, scale: number, missing: number): numbe
 
 /** Stores one data row; returns false when the row is malformed (then stored as such). */
 export function readCsvRecord(file: ParsedFile, cols: CsvColumns, row: string[], lineNo: number): boolean {
-  const bad = (field: string, why: string, station = 0xffff): false => {
+  const bad = (field: string, why: string, station = UNKNOWN_STATION): false => {
     pushMalformed(file.records, station, lineNo);
     noteMalformed(file, lineNo, field, why);
     return false;
@@ -90,6 +96,7 @@ export function readCsvRecord(file: ParsedFile, cols: CsvColumns, row: string[],
   if (!/^[0-9A-Z]{6}\d{5}$/.test(stationCell))
     return bad("STATION", "expected the 11-character USAF+WBAN id");
   const station = stationIndex(file, `${stationCell.slice(0, 6)}-${stationCell.slice(6)}`);
+  if (station === UNKNOWN_STATION) return bad("STATION", "more stations in one file than can be told apart");
   const m = DATE_RE.exec((row[cols.date] ?? "").trim());
   const year = Number(m?.[1]);
   const month = Number(m?.[2]);
@@ -98,6 +105,7 @@ export function readCsvRecord(file: ParsedFile, cols: CsvColumns, row: string[],
   const minute = Number(m?.[5]);
   if (!m || !isValidDate(year, month, day) || hour > 23 || minute > 59)
     return bad("DATE", "expected an ISO UTC time such as 2014-01-06T13:51:00", station);
+  if (!isRecordYear(year)) return bad("DATE", recordDateProblem(year), station);
   const [tv, tq] = (row[cols.tmp] ?? "").split(",");
   if (tv === undefined || tq === undefined || !SIGNED4_RE.test(tv) || !TEMP_Q_RE.test(tq))
     return bad("TMP", 'expected value ×10 °C and quality code, e.g. "-0267,5"', station);
@@ -117,6 +125,8 @@ export function readCsvRecord(file: ParsedFile, cols: CsvColumns, row: string[],
   const [sv] = (row[cols.slp] ?? "").split(",");
   const ma1 = (row[cols.ma1] ?? "").split(",");
   const type = (row[cols.reportType] ?? "").trim() || "CSV";
+  const typeIdx = reportTypeIndex(file, type);
+  if (typeIdx < 0) return bad("REPORT_TYPE", "more report types in one file than can be told apart", station);
 
   const name = (row[cols.name] ?? "").trim();
   if (name !== "" && file.stationNames[station] === null) file.stationNames[station] = name;
@@ -133,7 +143,6 @@ export function readCsvRecord(file: ParsedFile, cols: CsvColumns, row: string[],
   c.dewTenths[i] = dv !== undefined && SIGNED4_RE.test(dv) ? Number(dv) : 9999;
   c.slpTenths[i] = sv !== undefined && /^\d{5}$/.test(sv) ? Number(sv) : MISSING_PRESSURE;
   c.stationPresTenths[i] = stationPressureFromMa1(ma1);
-  const typeIdx = reportTypeIndex(file, type);
   c.kind[i] = kindOfReportType(type);
   c.type[i] = typeIdx;
   const src = (row[cols.source] ?? "9").trim();
@@ -153,4 +162,78 @@ function stationPressureFromMa1(ma1: string[]): number {
     return MISSING_PRESSURE;
   const v = Number(p);
   return v >= 4500 && v <= 10900 ? v : MISSING_PRESSURE;
+}
+
+const QUOTE = 34;
+const COMMA = 44;
+
+/**
+ * The fields of one CSV line (RFC 4180: fields separated by commas, a field in double quotes may hold
+ * commas and doubled quotes), or null when its quotes are not well formed: a quoted field left open, a
+ * quote inside an unquoted field, or text after a closing quote.
+ */
+export function splitCsvLine(line: string): string[] | null {
+  const out: string[] = [];
+  let i = 0;
+  const n = line.length;
+  for (;;) {
+    if (line.charCodeAt(i) === QUOTE) {
+      let field = "";
+      let from = i + 1;
+      for (;;) {
+        const q = line.indexOf('"', from);
+        if (q < 0) return null; // quoted field left open
+        field += line.slice(from, q);
+        if (line.charCodeAt(q + 1) === QUOTE) {
+          field += '"';
+          from = q + 2;
+          continue;
+        }
+        i = q + 1;
+        break;
+      }
+      out.push(field);
+      if (i === n) return out;
+      if (line.charCodeAt(i) !== COMMA) return null; // text after the closing quote
+      i++;
+    } else {
+      let comma = line.indexOf(",", i);
+      if (comma < 0) comma = n;
+      const field = line.slice(i, comma);
+      if (field.includes('"')) return null; // quote inside an unquoted field
+      out.push(field);
+      if (comma === n) return out;
+      i = comma + 1;
+    }
+  }
+}
+
+/** The CSV reader's state: the header's columns once its first line is read. */
+export interface CsvLineState {
+  columns: CsvColumns | null;
+}
+
+const UTF8 = new TextDecoder();
+
+/**
+ * One line b[s..e) of a global-hourly CSV file: the header row first (a UTF-8 byte-order mark before
+ * it is skipped), then one record per line, stored read or malformed.
+ */
+export function parseCsvLine(
+  file: ParsedFile,
+  st: CsvLineState,
+  b: Uint8Array,
+  s: number,
+  e: number,
+  lineNo: number,
+): void {
+  if (st.columns === null && b[s] === 0xef && b[s + 1] === 0xbb && b[s + 2] === 0xbf) s += 3;
+  const row = splitCsvLine(UTF8.decode(b.subarray(s, e)));
+  if (st.columns === null) {
+    if (row === null) throw inputError(file.path, lineNo, undefined, "unreadable CSV header row (quotes?)");
+    st.columns = csvColumns(row, file.path, lineNo);
+  } else if (row === null) {
+    pushMalformed(file.records, UNKNOWN_STATION, lineNo);
+    noteMalformed(file, lineNo, "CSV", "unreadable CSV record (quotes?)");
+  } else readCsvRecord(file, st.columns, row, lineNo);
 }

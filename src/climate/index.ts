@@ -1,4 +1,4 @@
-/** Climate ingestion: NOAA ISD files in, cleaned hourly temperature series out (README, Inputs; docs/methods.md §4). */
+/** Climate ingestion: NOAA ISD files in, cleaned hourly temperature series out (docs/methods.md, "Climate data"). */
 export { cacheStats, fileHash, READER_VERSION, resetCacheStats } from "./cache.js";
 export {
   type DailyRange,
@@ -19,7 +19,15 @@ export {
   windowCompleteness,
   yearCompleteness,
 } from "./hourly.js";
-export { buildStations, climateOptions, listClimateFiles, loadClimate, readClimateFiles } from "./load.js";
+export {
+  buildStations,
+  type ClimateSelection,
+  climateOptions,
+  listClimateFiles,
+  loadClimate,
+  loadClimateSelection,
+  readClimateFiles,
+} from "./load.js";
 export { hourlyOffsetsMin, localDays, timeZoneFor } from "./localTime.js";
 export { TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "./qc.js";
 export { detectFormat, readClimateFile } from "./source.js";

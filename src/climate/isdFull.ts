@@ -6,8 +6,14 @@
  */
 import {
   daysFromCivil,
+  FIRST_RECORD_YEAR,
+  isRecordYear,
   isValidDate,
   kindOfReportType,
+  knownStation,
+  LAST_RECORD_YEAR,
+  MAX_REPORT_TYPES,
+  MAX_STATIONS_PER_FILE,
   MISSING_LAT,
   MISSING_LON,
   MISSING_PRESSURE,
@@ -83,13 +89,10 @@ export interface IsdLineState {
   lastKind: number;
   lastCall: number; // POS 52-56 packed, -1 = none yet
   lastCallText: string | null;
-  /** Report types seen in this file: packed bytes, index in file.reportTypes, kind (a few per file). */
-  typeKeys: number[];
-  typeIndex: number[];
-  typeKind: number[];
-  /** Call letters seen in this file: packed bytes and text. */
-  callKeys: number[];
-  callTexts: string[];
+  /** Report types seen in this file, by packed bytes: index in file.reportTypes and kind. */
+  types: Map<number, { index: number; kind: number }>;
+  /** Call letters seen in this file, by packed bytes. */
+  calls: Map<number, string>;
   lineEnd: number; // end of the line being read
   callRun: number; // lines since the call letters or station last changed
   /** Date (year × 10000 + month × 100 + day) of the last good line and its first minute since 1970. */
@@ -110,11 +113,8 @@ export function createIsdLineState(file: ParsedFile): IsdLineState {
     lastKind: 0,
     lastCall: -1,
     lastCallText: null,
-    typeKeys: [],
-    typeIndex: [],
-    typeKind: [],
-    callKeys: [],
-    callTexts: [],
+    types: new Map(),
+    calls: new Map(),
     lineEnd: 0,
     callRun: 0,
     lastDateKey: -1,
@@ -154,7 +154,7 @@ function malformed(st: IsdLineState, b: Uint8Array, s: number, lineNo: number, f
   if (st.lastStation >= 0 && key6(b, s + 4) === st.lastUsaf && key5(b, s + 10) === st.lastWban)
     station = st.lastStation;
   else if (st.lineEnd >= s + 15 && printable(b, s + 4, 11)) {
-    const known = st.file.stations.indexOf(`${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
+    const known = knownStation(st.file, `${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
     if (known >= 0) station = known;
   }
   pushMalformed(st.file.records, station, lineNo);
@@ -227,6 +227,8 @@ function fixedPartProblem(b: Uint8Array, s: number, e: number): [string, string]
   const year = digits(b, s + 15, 4);
   if (year < 0 || !isValidDate(year, digits(b, s + 19, 2), digits(b, s + 21, 2)))
     return ["date", "expected a calendar date YYYYMMDD at positions 16-23"];
+  if (!isRecordYear(year))
+    return ["date", `year ${year} at positions 16-19 outside ${FIRST_RECORD_YEAR}–${LAST_RECORD_YEAR}`];
   const hour = digits(b, s + 23, 2);
   const minute = digits(b, s + 25, 2);
   if (hour < 0 || hour > 23 || minute < 0 || minute > 59)
@@ -279,7 +281,7 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
   if (
     !numbersOk ||
     len !== ISD_FIXED_LENGTH + f[F_VAR_CHARS]! ||
-    (dateKey !== st.lastDateKey && !isValidDate(year, month, day)) ||
+    (dateKey !== st.lastDateKey && !(isRecordYear(year) && isValidDate(year, month, day))) ||
     hour > 23 ||
     minute > 59 ||
     (lat !== MISSING_LAT && Math.abs(lat) > 90_000) ||
@@ -309,6 +311,10 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
   if (station < 0 || !sameStation) {
     flushCalls(st);
     station = stationIndex(st.file, `${ascii(b, s + 4, 6)}-${ascii(b, s + 10, 5)}`);
+    if (station === UNKNOWN_STATION) {
+      malformed(st, b, s, lineNo, "station", `more than ${MAX_STATIONS_PER_FILE} stations in one file`);
+      return;
+    }
     st.lastUsaf = usaf;
     st.lastWban = wban;
     st.lastStation = station;
@@ -316,28 +322,29 @@ export function parseIsdLine(st: IsdLineState, b: Uint8Array, s: number, e: numb
   }
   // Report type (POS 42-46).
   if (typeKey !== st.lastType) {
-    let k = st.typeKeys.indexOf(typeKey);
-    if (k < 0) {
+    let t = st.types.get(typeKey);
+    if (t === undefined) {
       const type = ascii(b, s + 41, 5).trim();
-      k = st.typeKeys.length;
-      st.typeKeys.push(typeKey);
-      st.typeIndex.push(reportTypeIndex(st.file, type));
-      st.typeKind.push(kindOfReportType(type));
+      const index = reportTypeIndex(st.file, type);
+      if (index < 0) {
+        malformed(st, b, s, lineNo, "REPORT-TYPE", `more than ${MAX_REPORT_TYPES} report types in one file`);
+        return;
+      }
+      t = { index, kind: kindOfReportType(type) };
+      st.types.set(typeKey, t);
     }
-    st.lastTypeIdx = st.typeIndex[k]!;
-    st.lastKind = st.typeKind[k]!;
+    st.lastTypeIdx = t.index;
+    st.lastKind = t.kind;
     st.lastType = typeKey;
   }
   // Call letters (POS 52-56), counted per station (by runs) to find the usual ones.
   if (st.lastCallText === null || callKey !== st.lastCall) {
     flushCalls(st);
-    let k = st.callKeys.indexOf(callKey);
-    if (k < 0) {
-      k = st.callKeys.length;
-      st.callKeys.push(callKey);
-      st.callTexts.push(ascii(b, s + 51, 5).trim());
+    let text = st.calls.get(callKey);
+    if (text === undefined) {
+      text = ascii(b, s + 51, 5).trim();
+      st.calls.set(callKey, text);
     }
-    const text = st.callTexts[k]!;
     st.lastCall = callKey;
     st.lastCallText = text;
   }

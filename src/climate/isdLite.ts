@@ -2,12 +2,13 @@
  * Reader for ISD-Lite (NOAA NCEI's hourly subset of ISD): one line per UTC hour, 12 whitespace-separated
  * integers: year, month, day, hour, air temperature ×10 °C, dew point ×10 °C, sea-level pressure ×10 hPa,
  * wind direction, wind speed ×10 m/s, sky cover, 1-h and 6-h precipitation ×10 mm; −9999 = missing
- * (README, Inputs). The layout carries no station, position or quality code: the station
+ * (NOAA NCEI ISD-Lite format). The layout carries no station, position or quality code: the station
  * comes from the file name (USAF-WBAN-YEAR) or an option, the position from another file of the same
  * station or the station-history CSV, and values are treated as having passed the gross limits check.
  */
 import {
   daysFromCivil,
+  isRecordYear,
   isValidDate,
   KIND_ROUTINE,
   MISSING_ELEV,
@@ -19,6 +20,7 @@ import {
   noteMalformed,
   type ParsedFile,
   pushMalformed,
+  recordDateProblem,
   reportTypeIndex,
 } from "./records.js";
 
@@ -63,10 +65,19 @@ export function looksLikeLiteLine(b: Uint8Array, s: number, e: number): boolean 
   return n === LITE_FIELDS && fields[0]! >= 1000 && isValidDate(fields[0]!, fields[1]!, fields[2]!);
 }
 
+/** A file name `USAF-WBAN[-YEAR][.ext...]`, as NOAA NCEI names the files of one station(-year). */
+const STATION_FILE_NAME = /^([0-9A-Z]{6})-(\d{5})(?:-(\d{4}))?(?:\.|$)/;
+
 /** "USAF-WBAN" from a file name such as `725300-94846-2014` or `725300-94846-2014.gz`. */
 export function stationIdFromFileName(name: string): string | null {
-  const m = /^([0-9A-Z]{6})-(\d{5})(?:-\d{4})?(?:\.|$)/.exec(name);
+  const m = STATION_FILE_NAME.exec(name);
   return m ? `${m[1]}-${m[2]}` : null;
+}
+
+/** The UTC year a file name `USAF-WBAN-YEAR[.ext...]` gives, or null when the name gives none. */
+export function yearFromFileName(name: string): number | null {
+  const y = STATION_FILE_NAME.exec(name)?.[3];
+  return y === undefined ? null : Number(y);
 }
 
 export function parseLiteLine(
@@ -92,9 +103,16 @@ export function parseLiteLine(
   const month = fields[1]!;
   const day = fields[2]!;
   const hour = fields[3]!;
-  if (!isValidDate(year, month, day) || hour < 0 || hour > 23) {
+  if (!isValidDate(year, month, day) || hour < 0 || hour > 23 || !isRecordYear(year)) {
     pushMalformed(file.records, station, lineNo);
-    noteMalformed(file, lineNo, "date", "expected year, month, day and hour (0-23) of a real date");
+    noteMalformed(
+      file,
+      lineNo,
+      "date",
+      isRecordYear(year)
+        ? "expected year, month, day and hour (0-23) of a real date"
+        : recordDateProblem(year),
+    );
     return;
   }
   const temp = fields[4]!;

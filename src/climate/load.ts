@@ -3,9 +3,10 @@
  * (read → quality control → second-site rule → hourly grid → duplicates across files → gap filling),
  * through the cache.
  */
-import { readdir, stat } from "node:fs/promises";
+import { readdir, realpath, stat } from "node:fs/promises";
 import { basename, join, resolve } from "node:path";
 import { inputError } from "../errors.js";
+import { type FileKind, readFailure, specialFileKind } from "../fsutil.js";
 import { cacheKey, fileHash, readCache, writeCache } from "./cache.js";
 import { fillGapsInPlace, hourlyFromObservations } from "./hourly.js";
 import { timeZoneFor } from "./localTime.js";
@@ -14,14 +15,25 @@ import { partsOfFile, qualityControl, type StationPart } from "./qc.js";
 import { MISSING_ELEV, type ParsedFile } from "./records.js";
 import { type ReadOptions, readClimateFile } from "./source.js";
 import { type HistoryEntry, readStationHistory } from "./stationHistory.js";
-import { type ClimateOptions, DEFAULT_CACHE_DIR, DEFAULT_GAP_HOURS, type StationClimate } from "./types.js";
+import {
+  type ClimateOptions,
+  DEFAULT_CACHE_DIR,
+  DEFAULT_GAP_HOURS,
+  DROP_REASONS,
+  type StationClimate,
+} from "./types.js";
 
 /** Below this many files the worker threads cost more than they save. */
 const MIN_FILES_FOR_WORKERS = 4;
 
-/** Every regular file under the given files and folders (recursively, hidden files skipped), sorted. */
+/**
+ * Every climate file under the given files and folders, sorted: folders are read recursively (hidden
+ * files and folders skipped) and symbolic links to files followed; a file reached twice (through a
+ * link, say) is listed once, under the first of its names. Named pipes, devices and sockets are
+ * refused, given directly or found in a folder.
+ */
 export async function listClimateFiles(paths: string[]): Promise<string[]> {
-  const out = new Set<string>();
+  const found = new Set<string>();
   for (const p of paths) {
     let st: Awaited<ReturnType<typeof stat>>;
     try {
@@ -30,24 +42,42 @@ export async function listClimateFiles(paths: string[]): Promise<string[]> {
       throw inputError(p, undefined, undefined, "no such file or folder; expected climate files or folders");
     }
     if (st.isDirectory()) {
-      const before = out.size;
+      const before = found.size;
       const entries = await readdir(p, { recursive: true, withFileTypes: true });
       for (const e of entries) {
         const full = join(e.parentPath ?? (e as unknown as { path: string }).path, e.name);
         const rel = full.slice(p.length);
-        if (!e.isFile() || rel.split(/[\\/]/).some((part) => part.startsWith("."))) continue;
-        out.add(resolve(full));
+        if (e.isDirectory() || rel.split(/[\\/]/).some((part) => part.startsWith("."))) continue;
+        const target = e.isSymbolicLink() ? await stat(full).catch(() => null) : e;
+        if (target === null || target.isDirectory()) continue; // a dangling link, or a link to a folder
+        refuseSpecialFile(full, target);
+        found.add(resolve(full));
       }
-      if (out.size === before)
+      if (found.size === before)
         throw inputError(
           p,
           undefined,
           undefined,
           "folder holds no climate files; expected NOAA ISD files (full, ISD-Lite or CSV layout, plain or .gz) in it or its sub-folders",
         );
-    } else out.add(resolve(p));
+    } else {
+      refuseSpecialFile(p, st);
+      found.add(resolve(p));
+    }
   }
-  return [...out].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
+  const byTarget = new Map<string, string>();
+  for (const f of [...found].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0))) {
+    const target = await realpath(f);
+    if (!byTarget.has(target)) byTarget.set(target, f);
+  }
+  return [...byTarget.values()];
+}
+
+/** Throws an input error for a named pipe, device or socket (reading one would block or never end). */
+function refuseSpecialFile(path: string, st: FileKind): void {
+  const why = specialFileKind(st);
+  if (why !== null)
+    throw inputError(path, undefined, undefined, `is ${why}, not a regular file; expected a climate file`);
 }
 
 /** Reads the files (on worker threads when there are several and the compiled worker exists). */
@@ -66,6 +96,12 @@ export async function readClimateFiles(
   return out;
 }
 
+/** The stations built from a set of files, and the ids of the stations the files hold but were not asked for. */
+export interface ClimateSelection {
+  stations: StationClimate[];
+  skipped: string[];
+}
+
 /**
  * Quality control, hourly grid and gap filling for every station found in the parsed files
  * (files in reading order; a station's records from all files are taken together), sorted by id.
@@ -75,6 +111,16 @@ export function buildStations(
   gapHours: number,
   history: Map<string, HistoryEntry> | null = null,
 ): StationClimate[] {
+  return buildSelection(files, gapHours, history, null).stations;
+}
+
+/** buildStations for the stations in `wanted` only (all when null): the others, read, are given no quality control or series. */
+export function buildSelection(
+  files: ParsedFile[],
+  gapHours: number,
+  history: Map<string, HistoryEntry> | null,
+  wanted: ReadonlySet<string> | null,
+): ClimateSelection {
   const typeCodes = new Map<string, number>();
   const typeCode = (t: string) => {
     const known = typeCodes.get(t);
@@ -92,54 +138,68 @@ export function buildStations(
       parts.set(id, list);
     }
   const ids = [...parts.keys()].sort();
-  return ids.map((id) => {
-    const stationParts = parts.get(id)!;
-    const r = qualityControl(stationParts, typeCode);
-    const hist = history?.get(id) ?? null;
-    const where = stationParts[0]!.file.path;
-    let lat = r.position ? r.position.latMilli / 1000 : (hist?.lat ?? null);
-    let lon = r.position ? r.position.lonMilli / 1000 : (hist?.lon ?? null);
-    let elevationM =
-      r.position && r.position.elevM !== MISSING_ELEV ? r.position.elevM : (hist?.elevationM ?? null);
-    if (lat === null || lon === null)
-      throw inputError(
-        where,
-        undefined,
-        "station",
-        `no coordinates for station ${id}: its records carry none (ISD-Lite does not); give a station-history CSV that lists it`,
-      );
-    if (elevationM === null)
-      throw inputError(
-        where,
-        undefined,
-        "elevation",
-        `no elevation for station ${id}; give a station-history CSV`,
-      );
-    lat = Number(lat.toFixed(3));
-    lon = Number(lon.toFixed(3));
-    elevationM = Number(elevationM);
-    const grid = hourlyFromObservations(r.keptTimeMin, r.keptTempTenths, r.keptSpecial);
-    fillGapsInPlace(grid, gapHours);
-    return {
-      meta: {
-        id,
-        name: r.name ?? hist?.name ?? null,
-        lat,
-        lon,
-        elevationM,
-        timeZone: timeZoneFor(lat, lon),
-        callLetters: r.callLetters ?? hist?.icao ?? null,
-      },
-      series: grid,
-      qc: r.qc,
-      extremes: r.extremes,
-      meanStationPressureHpa: r.meanStationPressureHpa,
-      malformedExamples: r.malformedExamples,
-    };
-  });
+  return {
+    stations: ids
+      .filter((id) => wanted === null || wanted.has(id))
+      .map((id) => buildStation(id, parts.get(id)!, typeCode, gapHours, history?.get(id) ?? null)),
+    skipped: wanted === null ? [] : ids.filter((id) => !wanted.has(id)),
+  };
 }
 
-/** Options with the documented defaults filled in. */
+/** One station from its parts in every file: quality control, position, hourly grid, gap filling. */
+function buildStation(
+  id: string,
+  stationParts: StationPart[],
+  typeCode: (type: string) => number,
+  gapHours: number,
+  hist: HistoryEntry | null,
+): StationClimate {
+  const r = qualityControl(stationParts, typeCode);
+  const where = stationParts[0]!.file.path;
+  let lat = r.position ? r.position.latMilli / 1000 : (hist?.lat ?? null);
+  let lon = r.position ? r.position.lonMilli / 1000 : (hist?.lon ?? null);
+  let elevationM =
+    r.position && r.position.elevM !== MISSING_ELEV ? r.position.elevM : (hist?.elevationM ?? null);
+  if (lat === null || lon === null)
+    throw inputError(
+      where,
+      undefined,
+      "station",
+      r.qc.dropped.malformed === r.qc.read
+        ? `no coordinates for station ${id}: none of its ${r.qc.read} record(s) is readable (e.g. ${r.malformedExamples[0] ?? "—"}); give a station-history CSV that lists it`
+        : `no coordinates for station ${id}: none of its records gives a position (ISD-Lite records never do); give a station-history CSV that lists it`,
+    );
+  if (elevationM === null)
+    throw inputError(
+      where,
+      undefined,
+      "elevation",
+      `no elevation for station ${id}: none of its records gives one; give a station-history CSV that lists it`,
+    );
+  lat = Number(lat.toFixed(3));
+  lon = Number(lon.toFixed(3));
+  elevationM = Number(elevationM);
+  const grid = hourlyFromObservations(r.keptTimeMin, r.keptTempTenths, r.keptSpecial);
+  fillGapsInPlace(grid, gapHours);
+  return {
+    meta: {
+      id,
+      name: r.name ?? hist?.name ?? null,
+      lat,
+      lon,
+      elevationM,
+      timeZone: timeZoneFor(lat, lon),
+      callLetters: r.callLetters ?? hist?.icao ?? null,
+    },
+    series: grid,
+    qc: r.qc,
+    extremes: r.extremes,
+    meanStationPressureHpa: r.meanStationPressureHpa,
+    malformedExamples: r.malformedExamples,
+  };
+}
+
+/** Options with the defaults filled in. */
 export function climateOptions(partial: Partial<ClimateOptions> = {}): ClimateOptions {
   return { gapHours: DEFAULT_GAP_HOURS, cacheDir: DEFAULT_CACHE_DIR, ...partial };
 }
@@ -151,6 +211,18 @@ export function climateOptions(partial: Partial<ClimateOptions> = {}): ClimateOp
  * with the same options again.
  */
 export async function loadClimate(paths: string[], options: ClimateOptions): Promise<StationClimate[]> {
+  return (await loadClimateSelection(paths, options)).stations;
+}
+
+/**
+ * loadClimate, also saying which stations the files hold beyond those asked for (`options.stations`).
+ * A station asked for that no record of it is kept is warned of (`options.onWarning`); so is a cache
+ * that cannot be written, once, and the run carries on without it.
+ */
+export async function loadClimateSelection(
+  paths: string[],
+  options: ClimateOptions,
+): Promise<ClimateSelection> {
   if (!Number.isInteger(options.gapHours) || options.gapHours < 0 || options.gapHours > 48)
     throw inputError(
       "options",
@@ -160,31 +232,66 @@ export async function loadClimate(paths: string[], options: ClimateOptions): Pro
     );
   const files = await listClimateFiles(paths);
   const historyPath = options.stationHistoryCsv;
+  const wanted = options.stations === undefined ? null : new Set(options.stations);
   const key =
     options.cacheDir === null
       ? null
       : cacheKey({
           gapHours: options.gapHours,
           stationIdOverride: options.stationIdOverride ?? null,
+          stations: wanted === null ? null : [...wanted].sort(),
           history: historyPath ? await fileHash(historyPath).catch(() => "unreadable") : null,
           files: await Promise.all(
-            files.map(async (f) => ({ name: basename(f), sha256: await fileHash(f) })),
+            files.map(async (f) => ({
+              name: basename(f),
+              sha256: await fileHash(f).catch((err: unknown) => {
+                throw inputError(
+                  f,
+                  undefined,
+                  undefined,
+                  `cannot read the climate file: ${readFailure(err)}`,
+                );
+              }),
+            })),
           ),
         });
-  if (options.cacheDir !== null && key !== null) {
-    const cached = await readCache(options.cacheDir, key);
-    if (cached !== null) {
-      options.onProgress?.(files.length, files.length);
-      return cached;
+  let selection = options.cacheDir !== null && key !== null ? await readCache(options.cacheDir, key) : null;
+  if (selection !== null) options.onProgress?.(files.length, files.length);
+  else {
+    const history = historyPath ? await readStationHistory(historyPath) : null;
+    const parsed = await readClimateFiles(
+      files,
+      { stationIdOverride: options.stationIdOverride },
+      options.onProgress,
+    );
+    selection = buildSelection(parsed, options.gapHours, history, wanted);
+    if (options.cacheDir !== null && key !== null) {
+      const failure = await writeCache(options.cacheDir, key, selection).catch((err: unknown) => err);
+      if (failure !== undefined) options.onWarning?.(cacheWriteWarning(options.cacheDir, failure));
     }
   }
-  const history = historyPath ? await readStationHistory(historyPath) : null;
-  const parsed = await readClimateFiles(
-    files,
-    { stationIdOverride: options.stationIdOverride },
-    options.onProgress,
-  );
-  const stations = buildStations(parsed, options.gapHours, history);
-  if (options.cacheDir !== null && key !== null) await writeCache(options.cacheDir, key, stations);
-  return stations;
+  for (const s of selection.stations) if (s.qc.kept === 0) options.onWarning?.(noneKeptWarning(s));
+  return selection;
+}
+
+function cacheWriteWarning(cacheDir: string, err: unknown): string {
+  const e = err as NodeJS.ErrnoException;
+  const why =
+    e.code === "EROFS" || e.code === "EACCES" || e.code === "EPERM"
+      ? "not writable"
+      : e.code === "ENOSPC" || e.code === "EDQUOT"
+        ? "no space left"
+        : e.code === "ENOTDIR" || e.code === "EEXIST"
+          ? "a file stands where a folder should"
+          : e.code === "EISDIR"
+            ? "a folder stands where a file should"
+            : (e.code ?? e.message);
+  return `climate cache ${cacheDir} cannot be written (${why}); carrying on without it`;
+}
+
+function noneKeptWarning(s: StationClimate): string {
+  const reasons = DROP_REASONS.filter((r) => s.qc.dropped[r] > 0)
+    .map((r) => `${r} ${s.qc.dropped[r]}`)
+    .join(", ");
+  return `station ${s.meta.id}: none of its ${s.qc.read} record(s) is kept (${reasons}); its position comes from all its records`;
 }

@@ -123,7 +123,7 @@ let nextSessionId = 1;
 
 export function startParseSession(
   path: string,
-  format: "isd" | "isd-lite",
+  format: ParsedFile["format"],
   options: ReadOptions,
   capacity: number,
 ): ParseSession {

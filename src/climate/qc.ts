@@ -1,5 +1,5 @@
 /**
- * Quality control of one station's records, across all the files that hold it (docs/methods.md §4):
+ * Quality control of one station's records, across all the files that hold it (docs/methods.md, "Quality control"):
  * every record lands in exactly one count, tested in the order malformed, summary, otherSite, missing,
  * range, erroneous, suspect, duplicate; the rest are kept.
  */
@@ -13,13 +13,15 @@ import {
   MISSING_PRESSURE,
   MISSING_TEMP,
   type ParsedFile,
+  yearCache,
+  yearOfMinute,
 } from "./records.js";
 import type { Extremes, QcCounts } from "./types.js";
 
 /** Air-temperature limits of the ISD format document (POS 88-92): −93.2 … +61.8 °C, in tenths. */
 export const TEMP_MIN_TENTHS = -932;
 export const TEMP_MAX_TENTHS = 618;
-/** Second-site rule (docs/methods.md §4): records farther than this from the station-year's usual position. */
+/** Second-site rule (docs/methods.md): records farther than this from the station-year's usual position. */
 export const SITE_RADIUS_M = 5000;
 export const SITE_ELEVATION_M = 30;
 
@@ -63,7 +65,10 @@ export interface QcResult {
   keptSpecial: Uint8Array;
   extremes: Extremes | null;
   meanStationPressureHpa: number | null;
-  /** Most frequent position of the station's observations (null when they carry none, as in ISD-Lite). */
+  /**
+   * Most frequent position of the station's observations; of all its records when none is kept (null
+   * when they carry none, as in ISD-Lite).
+   */
   position: { latMilli: number; lonMilli: number; elevM: number } | null;
   callLetters: string | null;
   name: string | null;
@@ -107,27 +112,6 @@ function keyToPosition(key: number): Position {
   const elev = (key % 20_000) - 10_000;
   const ll = Math.floor(key / 20_000);
   return { latMilli: Math.floor(ll / 360_001) - 90_000, lonMilli: (ll % 360_001) - 180_000, elevM: elev };
-}
-
-/** The UTC year last asked for and its bounds in minutes (records come mostly in time order). */
-interface YearCache {
-  lo: number;
-  hi: number;
-  year: number;
-}
-
-function yearCache(): YearCache {
-  return { lo: 0, hi: -1, year: 0 };
-}
-
-/** UTC year of a minute count since 1970. */
-function yearOfMinute(cache: YearCache, min: number): number {
-  if (min >= cache.lo && min < cache.hi) return cache.year;
-  const year = new Date(min * 60_000).getUTCFullYear();
-  cache.year = year;
-  cache.lo = Date.UTC(year, 0, 1) / 60_000;
-  cache.hi = Date.UTC(year + 1, 0, 1) / 60_000;
-  return year;
 }
 
 /** Most frequent key of a count map (first seen wins a tie). */
@@ -237,6 +221,18 @@ function countPositions(parts: StationPart[]): PositionCounts {
     add(counts.all, pairKey[p]!, pairN[p]!);
   }
   return counts;
+}
+
+/** How often each position occurs among all the readable records of a station (summaries included). */
+function positionsOfAllRecords(parts: StationPart[]): Map<number, number> {
+  const all = new Map<number, number>();
+  for (const { file, indices } of parts) {
+    const { kind, latMilli, lonMilli, elevM } = file.records;
+    for (const i of indices)
+      if (kind[i] !== KIND_MALFORMED && latMilli[i] !== MISSING_LAT && lonMilli[i] !== MISSING_LON)
+        add(all, positionKey(latMilli[i]!, lonMilli[i]!, elevM[i]!), 1);
+  }
+  return all;
 }
 
 /** Records that pass every rule but the duplicate one, in reading order. */
@@ -441,7 +437,8 @@ export function qualityControl(parts: StationPart[], typeCode: (type: string) =>
     presN,
   } = dropDuplicates(passing, qc.dropped);
   qc.kept = nKept;
-  const posKey = modeOf(positions.all);
+  // A station without a kept record takes its position from all its records, summaries included.
+  const posKey = nKept > 0 ? modeOf(positions.all) : modeOf(positionsOfAllRecords(parts));
   let callLetters: string | null = null;
   let callN = 0;
   for (const [k, n] of calls)

@@ -4,7 +4,7 @@
  * worker thread can hand back without copying.
  */
 
-/** Record kinds: how a record takes part in the hourly series (docs/methods.md §4). */
+/** Record kinds: how a record takes part in the hourly series (docs/methods.md, "Hourly series"). */
 export const KIND_ROUTINE = 0;
 export const KIND_SPECIAL = 1;
 export const KIND_SUMMARY = 2;
@@ -135,7 +135,7 @@ export interface ParsedFile {
 
 /** Report types that are summaries, not observations (ISD format document, POS 42-46). */
 export const SUMMARY_TYPES = new Set(["SOD", "SOM", "COOPD"]);
-/** Special (non-routine) report types: used only where no routine report exists (docs/methods.md §4). */
+/** Special (non-routine) report types: used only where no routine report exists (docs/methods.md, "Hourly series"). */
 export const SPECIAL_TYPES = new Set(["FM-16", "SAOSP"]);
 
 export function kindOfReportType(type: string): number {
@@ -144,21 +144,55 @@ export function kindOfReportType(type: string): number {
   return KIND_ROUTINE;
 }
 
-/** Gives each station of a file its index, creating it on first sight. */
+/**
+ * Most stations one file may hold: station indices are 16-bit and 0xffff marks an unknown station.
+ * Lines of further stations are malformed (see stationIndex).
+ */
+export const MAX_STATIONS_PER_FILE = UNKNOWN_STATION;
+
+/** Index of each station id of a file, so that finding a station costs the same however many there are. */
+const stationLookup = new WeakMap<ParsedFile, Map<string, number>>();
+
+function lookupOf(file: ParsedFile): Map<string, number> {
+  let m = stationLookup.get(file);
+  if (m === undefined || m.size !== file.stations.length) {
+    m = new Map(file.stations.map((id, i) => [id, i]));
+    stationLookup.set(file, m);
+  }
+  return m;
+}
+
+/** Index of a station already seen in the file, or -1. */
+export function knownStation(file: ParsedFile, id: string): number {
+  return lookupOf(file).get(id) ?? -1;
+}
+
+/**
+ * Gives each station of a file its index, creating it on first sight; UNKNOWN_STATION when the file
+ * already holds MAX_STATIONS_PER_FILE stations (the caller stores the line as malformed).
+ */
 export function stationIndex(file: ParsedFile, id: string): number {
-  let i = file.stations.indexOf(id);
-  if (i < 0) {
+  const lookup = lookupOf(file);
+  let i = lookup.get(id);
+  if (i === undefined) {
+    if (file.stations.length >= MAX_STATIONS_PER_FILE) return UNKNOWN_STATION;
     i = file.stations.length;
     file.stations.push(id);
     file.stationNames.push(null);
     file.callLetters.push(new Map());
+    lookup.set(id, i);
   }
   return i;
 }
 
+/** Most report types one file may hold (their index is one byte). */
+export const MAX_REPORT_TYPES = 256;
+
+/** Index of a report type in the file, created on first sight; -1 when the file holds MAX_REPORT_TYPES already. */
 export function reportTypeIndex(file: ParsedFile, type: string): number {
   let i = file.reportTypes.indexOf(type);
   if (i < 0) {
+    if (file.reportTypes.length >= MAX_REPORT_TYPES) return -1;
     i = file.reportTypes.length;
     file.reportTypes.push(type);
   }
@@ -216,6 +250,47 @@ export function isValidDate(year: number, month: number, day: number): boolean {
   const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
   const dim = month === 2 && leap ? 29 : DAYS_IN_MONTH[month - 1]!;
   return day <= dim;
+}
+
+/**
+ * Years a climate record may carry (docs/methods.md, "Quality control"): the oldest hourly records in
+ * ISD are from the 1890s; 2100 leaves room for every file to come. A fixed bound, so that a result
+ * never depends on the date of the run; it also keeps minute counts since 1970 far inside 32 bits.
+ */
+export const FIRST_RECORD_YEAR = 1890;
+export const LAST_RECORD_YEAR = 2100;
+
+/** True when the year lies within FIRST_RECORD_YEAR … LAST_RECORD_YEAR. */
+export function isRecordYear(year: number): boolean {
+  return year >= FIRST_RECORD_YEAR && year <= LAST_RECORD_YEAR;
+}
+
+/** Why a record's date is refused: the message of a malformed "date" field. */
+export function recordDateProblem(year: number): string {
+  return isRecordYear(year)
+    ? "expected a real calendar date"
+    : `year ${year} outside ${FIRST_RECORD_YEAR}–${LAST_RECORD_YEAR}`;
+}
+
+/** The UTC year last asked for and its bounds in minutes (records come mostly in time order). */
+export interface YearCache {
+  lo: number;
+  hi: number;
+  year: number;
+}
+
+export function yearCache(): YearCache {
+  return { lo: 0, hi: -1, year: 0 };
+}
+
+/** UTC year of a minute count since 1970. */
+export function yearOfMinute(cache: YearCache, min: number): number {
+  if (min >= cache.lo && min < cache.hi) return cache.year;
+  const year = new Date(min * 60_000).getUTCFullYear();
+  cache.year = year;
+  cache.lo = Date.UTC(year, 0, 1) / 60_000;
+  cache.hi = Date.UTC(year + 1, 0, 1) / 60_000;
+  return year;
 }
 
 /** Days since 1970-01-01 of a civil date (H. Hinnant's days_from_civil algorithm). */

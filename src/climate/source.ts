@@ -1,18 +1,16 @@
 /**
  * Opens a climate file (plain or gzip, told apart by the gzip magic bytes), detects its layout from
  * its first lines, and streams it through the matching reader. A file is never held whole in memory
- * as one string: the full and Lite readers split lines on the decompressed byte chunks, the CSV
- * reader streams through csv-parse.
+ * as one string: every reader takes the lines split here from the decompressed byte chunks, a line
+ * longer than MAX_LINE_BYTES being one malformed record.
  */
 import { createReadStream } from "node:fs";
 import { open } from "node:fs/promises";
 import { basename } from "node:path";
-import { Readable } from "node:stream";
-import { pipeline } from "node:stream/promises";
+import type { Readable } from "node:stream";
 import { createGunzip, type ZlibOptions } from "node:zlib";
-import { parse } from "csv-parse";
 import { inputError } from "../errors.js";
-import { type CsvColumns, csvColumns, readCsvRecord } from "./csvHourly.js";
+import { type CsvLineState, parseCsvLine } from "./csvHourly.js";
 import {
   createIsdLineState,
   flushCalls,
@@ -30,6 +28,7 @@ import {
   resolveUnknownStations,
   UNKNOWN_STATION,
 } from "./records.js";
+import { applyYearRules } from "./years.js";
 
 /** Bytes per read and per decompressed chunk, the same for the reader and the decompress-only baseline. */
 export const CHUNK_BYTES = 256 * 1024;
@@ -70,6 +69,8 @@ export async function* readChunks(path: string): AsyncGenerator<Buffer> {
   } catch (err) {
     const e = err as NodeJS.ErrnoException;
     if (e.code === "ENOENT") throw inputError(path, undefined, undefined, "file not found");
+    if (e.code === "EACCES" || e.code === "EPERM")
+      throw inputError(path, undefined, undefined, "cannot read the climate file: permission denied");
     if (gz && typeof e.code === "string" && e.code.startsWith("Z_"))
       throw inputError(
         path,
@@ -169,19 +170,11 @@ async function readFrom(path: string, it: AsyncGenerator<Buffer>, options: ReadO
   const rest = done ? null : it;
   const capacity = await estimateRecords(path, head);
   let file = emptyParsedFile(path, format, capacity);
-  if (format === "csv") {
-    async function* all(): AsyncGenerator<Buffer> {
-      yield head;
-      if (rest !== null) yield* rest;
-    }
-    await readCsv(file, all());
-  } else if (
-    capacity >= (options.parseOnWorkerFromRecords ?? PARSE_WORKER_MIN_RECORDS) &&
-    parseSessionsAvailable()
-  )
+  if (capacity >= (options.parseOnWorkerFromRecords ?? PARSE_WORKER_MIN_RECORDS) && parseSessionsAvailable())
     file = await readLinesOnWorker(path, head, rest, format, options, capacity);
   else await readLines(file, head, rest, format, options);
   resolveUnknownStations(file.records);
+  applyYearRules(file);
   if (file.stations.length === 0)
     throw inputError(
       path,
@@ -222,14 +215,15 @@ async function estimateRecords(path: string, head: Buffer): Promise<number> {
 }
 
 /**
- * Where the lines of a fixed-layout file go: the full-format parser's state, or the Lite file's
- * station; and the unfinished line at the end of the last chunk. A plain object and plain functions
- * (no closures made per file), so that the optimised line loop serves every file alike.
+ * Where the lines of a file go: the full-format parser's state, the Lite file's station or the CSV
+ * header's columns; and the unfinished line at the end of the last chunk. A plain object and plain
+ * functions (no closures made per file), so that the optimised line loop serves every file alike.
  */
 export interface LineReader {
   file: ParsedFile;
-  isd: IsdLineState | null; // null for ISD-Lite
-  liteStation: number;
+  isd: IsdLineState | null; // full format only
+  liteStation: number; // ISD-Lite only
+  csv: CsvLineState | null; // CSV only
   lineNo: number;
   carry: Buffer | null; // start of a line that continues in the next chunk
   skipping: boolean; // inside an over-long line, waiting for its end
@@ -241,6 +235,7 @@ function takeLine(r: LineReader, b: Uint8Array, s: number, e: number): void {
   if (e > s && b[e - 1] === 13) e--;
   if (e === s) return; // blank line: not a record
   if (r.isd !== null) parseIsdLine(r.isd, b, s, e, lineNo);
+  else if (r.csv !== null) parseCsvLine(r.file, r.csv, b, s, e, lineNo);
   else parseLiteLine(r.file, r.liteStation, b, s, e, lineNo);
 }
 
@@ -255,16 +250,21 @@ function takeLines(r: LineReader, chunk: Buffer, from: number): number {
 }
 
 /**
- * A line reader for a fixed-layout file (full or Lite). Throws InputError for an ISD-Lite file whose
- * station is known neither from its name nor from the options.
+ * A line reader for a file of the given layout. Throws InputError for an ISD-Lite file whose station is
+ * known neither from its name nor from the options.
  */
-export function createLineReader(
-  file: ParsedFile,
-  format: "isd" | "isd-lite",
-  options: ReadOptions,
-): LineReader {
-  const r: LineReader = { file, isd: null, liteStation: -1, lineNo: 0, carry: null, skipping: false };
+export function createLineReader(file: ParsedFile, format: ClimateFormat, options: ReadOptions): LineReader {
+  const r: LineReader = {
+    file,
+    isd: null,
+    liteStation: -1,
+    csv: null,
+    lineNo: 0,
+    carry: null,
+    skipping: false,
+  };
   if (format === "isd") r.isd = createIsdLineState(file);
+  else if (format === "csv") r.csv = { columns: null };
   else {
     const id = options.stationIdOverride ?? stationIdFromFileName(basename(file.path));
     if (id === null)
@@ -322,15 +322,17 @@ export function finishLines(r: LineReader): void {
   r.carry = null;
   r.skipping = false;
   if (r.isd !== null) flushCalls(r.isd);
+  if (r.csv !== null && r.csv.columns === null)
+    throw inputError(r.file.path, 1, undefined, "CSV without a header row");
   r.file.lines = r.lineNo;
 }
 
-/** Streams fixed-layout lines (full or Lite) from byte chunks to the line parser, without strings. */
+/** Streams the lines of a file from byte chunks to the line parser of its layout. */
 async function readLines(
   file: ParsedFile,
   head: Buffer,
   rest: AsyncGenerator<Buffer> | null,
-  format: "isd" | "isd-lite",
+  format: ClimateFormat,
   options: ReadOptions,
 ): Promise<void> {
   const r = createLineReader(file, format, options);
@@ -349,7 +351,7 @@ async function readLinesOnWorker(
   path: string,
   head: Buffer,
   rest: AsyncGenerator<Buffer> | null,
-  format: "isd" | "isd-lite",
+  format: ClimateFormat,
   options: ReadOptions,
   capacity: number,
 ): Promise<ParsedFile> {
@@ -374,39 +376,4 @@ async function nextChunk(rest: AsyncGenerator<Buffer> | null): Promise<Buffer | 
 function tooLong(file: ParsedFile, lineNo: number): void {
   pushMalformed(file.records, UNKNOWN_STATION, lineNo);
   noteMalformed(file, lineNo, "length", `line longer than ${MAX_LINE_BYTES} bytes (not a climate record)`);
-}
-
-/** Streams the comma-separated global-hourly layout through csv-parse. */
-async function readCsv(file: ParsedFile, chunks: AsyncIterable<Buffer>): Promise<void> {
-  const parser = parse({
-    bom: true,
-    info: true,
-    relax_column_count: true,
-    skip_empty_lines: true,
-    skip_records_with_error: true,
-  });
-  parser.on("skip", (err: { lines?: number } | undefined) => {
-    const lineNo = err?.lines ?? 0;
-    pushMalformed(file.records, UNKNOWN_STATION, lineNo);
-    noteMalformed(file, lineNo, "CSV", "unreadable CSV record (quotes?)");
-  });
-  const counting = async function* () {
-    for await (const c of chunks) {
-      file.bytes += c.length;
-      yield c;
-    }
-  };
-  const feed = pipeline(Readable.from(counting()), parser);
-  feed.catch(() => undefined);
-  let columns: CsvColumns | null = null;
-  for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
-    if (columns === null) {
-      columns = csvColumns(item.record, file.path);
-      continue;
-    }
-    readCsvRecord(file, columns, item.record, item.info.lines);
-    file.lines = item.info.lines;
-  }
-  await feed;
-  if (columns === null) throw inputError(file.path, 1, undefined, "CSV without a header row");
 }

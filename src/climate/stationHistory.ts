@@ -3,9 +3,12 @@
  * STATION NAME, CTRY, STATE, ICAO, LAT, LON, ELEV(M), BEGIN, END. It gives station names (the full
  * format carries none) and positions for files that carry none (ISD-Lite).
  */
-import { readFile } from "node:fs/promises";
 import { parse } from "csv-parse/sync";
 import { inputError } from "../errors.js";
+import { readInputText } from "../fsutil.js";
+
+/** Largest station-history CSV read (NOAA NCEI's list of every ISD station is about 3 MB). */
+const MAX_HISTORY_BYTES = 64 * 1024 * 1024;
 
 export interface HistoryEntry {
   name: string | null;
@@ -35,12 +38,7 @@ function optionalNumber(
 
 /** Reads the station-history CSV into a map from "USAF-WBAN" to its latest row. */
 export async function readStationHistory(path: string): Promise<Map<string, HistoryEntry>> {
-  let text: string;
-  try {
-    text = await readFile(path, "utf8");
-  } catch {
-    throw inputError(path, undefined, undefined, "cannot read the station-history CSV");
-  }
+  const text = await readInputText(path, "the station-history CSV", MAX_HISTORY_BYTES);
   let rows: string[][];
   try {
     rows = parse(text, { bom: true, relax_column_count: true, skip_empty_lines: true }) as string[][];

@@ -1,13 +1,13 @@
 /**
  * Shared shapes of the climate module: options, station metadata, the hourly series and the
- * quality-control counts (docs/methods.md §4).
+ * quality-control counts (docs/methods.md, "Climate data").
  */
 
 /** Options of `loadClimate`. */
 export interface ClimateOptions {
-  /** Longest run of missing hours filled by linear interpolation (docs/methods.md §4, default 3). */
+  /** Longest run of missing hours filled by linear interpolation (docs/methods.md, default 3). */
   gapHours: number;
-  /** Cache folder; `null` disables the cache. Default `out/cache/climate`. */
+  /** Cache folder; `null` disables the cache. Default `out/.cache/climate`. */
   cacheDir: string | null;
   /** Optional station-history CSV: USAF,WBAN,STATION NAME,CTRY,STATE,ICAO,LAT,LON,ELEV(M),BEGIN,END. */
   stationHistoryCsv?: string;
@@ -15,12 +15,20 @@ export interface ClimateOptions {
   stationIdOverride?: string;
   /** Called after each file is read (done of total). */
   onProgress?: (done: number, total: number) => void;
+  /** Stations ("USAF-WBAN") to build; the files' other stations are skipped. Default: all. */
+  stations?: readonly string[];
+  /** Told of what does not stop the load: a station with no kept record, a cache that cannot be written. */
+  onWarning?: (message: string) => void;
 }
 
 export const DEFAULT_GAP_HOURS = 3;
-export const DEFAULT_CACHE_DIR = "out/cache/climate";
+/**
+ * Default cache folder: beside the plan folders of the default output root, under a name no plan can
+ * take (plan names start with a letter or digit).
+ */
+export const DEFAULT_CACHE_DIR = "out/.cache/climate";
 
-/** Reasons a record is not kept, in the order they are tested (docs/methods.md §4). */
+/** Reasons a record is not kept, in the order they are tested (docs/methods.md, "Quality control"). */
 export const DROP_REASONS = [
   "malformed",
   "summary",

@@ -23,7 +23,7 @@ type Message =
       kind: "begin";
       id: number;
       path: string;
-      format: "isd" | "isd-lite";
+      format: ParsedFile["format"];
       options: ReadOptions;
       capacity: number;
     }

@@ -54,7 +54,7 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
   add(["climate", "gapHours"], "Longest gap filled linearly", "count", c.gapHours, { unit: "h" });
   add(["climate", "minYearShare"], "Share of hours for a year to count (0–1)", "fraction", c.minYearShare);
   add(["climate", "minYears"], "Usable years below which a base is flagged", "count", c.minYears);
-  add(["climate", "cacheDir"], "Climate cache folder", "text", c.cacheDir ?? "out/cache/climate");
+  add(["climate", "cacheDir"], "Climate cache folder", "text", c.cacheDir ?? "<out>/.cache/climate");
   add(["climate", "stationHistory"], "Station-history list", "text", c.stationHistory ?? "none");
   add(["schedule"], "Schedule file", "text", plan.schedule ?? "given on the command line");
 

@@ -4,7 +4,12 @@
  */
 import { existsSync } from "node:fs";
 import { resolve } from "node:path";
-import { climateOptions, loadClimate, mergeByPriority, type StationClimate } from "../climate/index.js";
+import {
+  climateOptions,
+  loadClimateSelection,
+  mergeByPriority,
+  type StationClimate,
+} from "../climate/index.js";
 import { inputError } from "../errors.js";
 import { standardAtmospherePa } from "../physics/atmosphere.js";
 import type { BaseClimate } from "./engine.js";
@@ -14,6 +19,7 @@ export interface ClimateLoadOptions {
   /** Cache folder; null disables; undefined: the plan's `climate.cacheDir` or the climate default. */
   cacheDir?: string | null;
   onProgress?: (done: number, total: number) => void;
+  onWarning?: (message: string) => void;
 }
 
 /** Local atmospheric pressure of a station: its mean reported station pressure, else ISO 2533 at its elevation. */
@@ -46,29 +52,33 @@ export async function loadPlanClimate(
       : plan.climate.cacheDir !== undefined
         ? resolve(plan.dir, plan.climate.cacheDir)
         : undefined;
-  const stations = await loadClimate(
+  // Only the stations the bases name are built: the others in the files are skipped.
+  const { stations, skipped } = await loadClimateSelection(
     paths,
     climateOptions({
+      stations: plan.bases.flatMap((b) => b.stations),
       gapHours: plan.climate.gapHours,
       ...(cacheDir !== undefined ? { cacheDir } : {}),
       ...(plan.climate.stationHistory !== undefined
         ? { stationHistoryCsv: resolve(plan.dir, plan.climate.stationHistory) }
         : {}),
       ...(opts.onProgress ? { onProgress: opts.onProgress } : {}),
+      ...(opts.onWarning ? { onWarning: opts.onWarning } : {}),
     }),
   );
   const byId = new Map(stations.map((s) => [s.meta.id, s]));
+  const inData = [...byId.keys(), ...skipped].sort();
   const out = new Map<string, BaseClimate>();
   plan.bases.forEach((base, bi) => {
     const list = base.stations.map((id, si) => {
       const s = byId.get(id);
       if (s === undefined) {
-        const found = [...byId.keys()].slice(0, 8).join(", ");
+        const found = inData.slice(0, 8).join(", ");
         throw inputError(
           plan.file,
           plan.lineOf(["bases", bi, "stations", si]),
           `bases[${bi}].stations[${si}]`,
-          `station "${id}" is not in the climate data (found: ${found || "none"}${byId.size > 8 ? ", …" : ""})`,
+          `station "${id}" is not in the climate data (found: ${found || "none"}${inData.length > 8 ? ", …" : ""})`,
         );
       }
       return s;

@@ -1,73 +1,13 @@
 import { existsSync, readdirSync, readFileSync } from "node:fs";
-import { mkdir, mkdtemp, rm, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import fc from "fast-check";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { parse, stringify } from "yaml";
-import { type SyntheticStation, writeSyntheticIsdLite } from "../../src/bench/plan.js";
-import { FIXTURE_TEXT, type Tree } from "../plan/helpers.js";
+import { describe, expect, it } from "vitest";
+import { folderFiles, planText, SCHEDULE, useClimateRoot, visibleEntries } from "./planCase.js";
 import { runCli } from "./runCli.js";
 
-const STATION: SyntheticStation = {
-  id: "999801-99999", // invented id (synthetic climate)
-  lat: 61.2,
-  lon: -149.9,
-  elevationM: 40,
-  meanC: 2,
-  annualC: 15,
-  dailyC: 5,
-};
-
-let root = "";
-const SCHEDULE =
-  "aircraft,base,arrive,depart,cold_start_option,profile\nA01,North Field,2027-01-04,2027-02-01,no,standard\nA02,North Field,2027-01-11,2027-02-08,yes,standard\n";
-
-function planText(edit: (t: Tree) => void = () => {}): string {
-  const t = parse(FIXTURE_TEXT);
-  t.climate.paths = ["climate"];
-  t.climate.stationHistory = "station-history.csv";
-  t.climate.years = { from: 2014, to: 2016 };
-  t.bases[0].stations = [STATION.id];
-  edit(t);
-  return stringify(t);
-}
-
 const run = runCli;
-
-/** Writes plan + schedule in a fresh case folder (sharing the generated climate) and returns its paths. */
-let caseNo = 0;
-async function writeCase(plan: string, schedule = SCHEDULE): Promise<{ plan: string; out: string }> {
-  const dir = join(root, `case${caseNo++}`);
-  await mkdir(dir);
-  await writeFile(
-    join(dir, "plan.yaml"),
-    plan
-      .replace("paths:\n    - climate", "paths:\n    - ../climate")
-      .replace("stationHistory: station-history.csv", "stationHistory: ../station-history.csv"),
-  );
-  await writeFile(join(dir, "minimal-schedule.csv"), schedule);
-  return { plan: join(dir, "plan.yaml"), out: join(dir, "out") };
-}
-
-function folderFiles(dir: string): Map<string, string> {
-  return new Map(
-    readdirSync(dir)
-      .sort()
-      .map((f) => [f, readFileSync(join(dir, f), "utf8")]),
-  );
-}
-
-beforeAll(async () => {
-  root = await mkdtemp(join(tmpdir(), "coldsoak-plan-cli-"));
-  await mkdir(join(root, "climate"));
-  await writeSyntheticIsdLite(join(root, "climate"), [STATION], [2014, 2015, 2016]);
-  process.env.SOURCE_DATE_EPOCH = "1700000000";
-}, 120_000);
-
-afterAll(async () => {
-  await rm(root, { recursive: true, force: true });
-});
+const { root: climateRoot, writeCase } = useClimateRoot();
 
 describe("coldsoak plan", () => {
   it("writes results.json, one CSV per table and report.html; two runs are byte-identical", async () => {
@@ -92,7 +32,7 @@ describe("coldsoak plan", () => {
     const second = folderFiles(join(c.out, "minimal"));
     for (const [name, text] of first) if (name !== "report.html") expect(second.get(name)).toBe(text);
     // Nothing left behind but the folder itself.
-    expect(readdirSync(c.out)).toEqual(["minimal"]);
+    expect(visibleEntries(c.out)).toEqual(["minimal"]);
     const r = JSON.parse(first.get("results.json")!);
     expect(r.plan).toBe("minimal");
     expect(r.climateYears).toEqual([2014, 2015, 2016]);
@@ -120,7 +60,7 @@ describe("coldsoak plan", () => {
           "plan",
           (await writeCase(fixed(1))).plan,
           "--out",
-          join(root, "s1"),
+          join(climateRoot(), "s1"),
           "--no-cache",
           "--json",
         ])
@@ -132,7 +72,7 @@ describe("coldsoak plan", () => {
           "plan",
           (await writeCase(fixed(2))).plan,
           "--out",
-          join(root, "s2"),
+          join(climateRoot(), "s2"),
           "--no-cache",
           "--json",
         ])
@@ -154,7 +94,7 @@ describe("coldsoak plan", () => {
           "plan",
           (await writeCase(spread(1))).plan,
           "--out",
-          join(root, "s3"),
+          join(climateRoot(), "s3"),
           "--no-cache",
           "--json",
         ])
@@ -166,7 +106,7 @@ describe("coldsoak plan", () => {
           "plan",
           (await writeCase(spread(2))).plan,
           "--out",
-          join(root, "s4"),
+          join(climateRoot(), "s4"),
           "--no-cache",
           "--json",
         ])
@@ -204,7 +144,7 @@ describe("coldsoak plan", () => {
     const r = await run(["plan", c.plan, "--out", c.out, "--no-cache"]);
     expect(r.code).toBe(2);
     expect(folderFiles(join(c.out, "minimal"))).toEqual(before);
-    expect(readdirSync(c.out)).toEqual(["minimal"]);
+    expect(visibleEntries(c.out)).toEqual(["minimal"]);
   });
 
   describe("input errors: one line naming file:line:field, exit code 2, no output", () => {
@@ -320,7 +260,7 @@ describe("coldsoak plan", () => {
           expect(r.err.trim().split("\n")).toHaveLength(1);
           expect(existsSync(c.out) ? readdirSync(c.out) : []).toEqual([]);
         } else {
-          expect(readdirSync(c.out).every((f) => !f.startsWith("."))).toBe(true);
+          expect(visibleEntries(c.out)).toEqual(["minimal"]);
         }
       }),
       { numRuns: 25, seed: 12 },

@@ -7,14 +7,23 @@
 import { readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import fc from "fast-check";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { loadClimate, TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "../../src/climate/index.js";
 import { InputError } from "../../src/errors.js";
-import { droppedTotal, HAVE_SAMPLES, sample, sampleLines, setAt, tempDir, writeLines } from "./helpers.js";
+import {
+  CSV_HEADER,
+  csvRow,
+  droppedTotal,
+  HAVE_SAMPLES,
+  noCache,
+  sample,
+  sampleLines,
+  scratchDir,
+  setAt,
+  writeLines,
+} from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 
 describe.skipIf(!HAVE_SAMPLES)("malformed lines in real files", () => {
   it("counts truncated lines, non-digits and binary garbage as malformed, with file:line examples", async () => {
@@ -45,6 +54,25 @@ describe.skipIf(!HAVE_SAMPLES)("malformed lines in real files", () => {
     const err = await loadClimate([cut], noCache).catch((e) => e);
     expect(err).toBeInstanceOf(InputError);
     expect(err.message).toMatch(/cut\.gz:gzip: gzip data ends early/);
+  });
+});
+
+describe.skipIf(!HAVE_SAMPLES)("global-hourly CSV: every line one record", () => {
+  it("counts each bad line once as malformed, however many faults it has; a stray quote swallows nothing", async () => {
+    const rows = sampleLines("725300-94846-2014.gz").slice(0, 30).map(csvRow);
+    rows[4] = rows[4]!.replace('"KORD "', '"KO"R"D"x" "'); // several stray quotes in one record (line 6)
+    rows[9] = rows[9]!.replace('"KORD ",', '"KORD ,'); // a quoted field left open (line 11)
+    rows[14] = `${rows[14]},"extra"`; // one column too many (line 16)
+    const path = writeLines(join(tmp.dir, "quotes.csv"), [CSV_HEADER, ...rows]);
+    const [s] = await loadClimate([path], noCache);
+    expect(s!.qc.read).toBe(30);
+    expect(s!.qc.read).toBe(s!.qc.kept + droppedTotal(s!.qc));
+    expect(s!.qc.dropped.malformed).toBe(3);
+    expect(s!.malformedExamples.map((e) => e.replace(/:[^:]*$/, ""))).toEqual([
+      `${path}:6:CSV`,
+      `${path}:11:CSV`,
+      `${path}:16:columns`,
+    ]);
   });
 });
 

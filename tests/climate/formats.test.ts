@@ -1,15 +1,22 @@
 /**
  * One real day of the Chicago sample written out, inside the test, in the ISD-Lite and global-hourly CSV
- * layouts (README, Inputs) gives the same hourly series as the full format; plain and gzip alike.
+ * layouts (NOAA NCEI ISD-Lite and global-hourly CSV) gives the same hourly series as the full format; plain and gzip alike.
  */
 import { writeFileSync } from "node:fs";
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { HOUR_MS, loadClimate, readClimateFile } from "../../src/climate/index.js";
-import { HAVE_SAMPLES, sampleLines, tempDir, writeLines } from "./helpers.js";
+import {
+  CHICAGO_HISTORY,
+  CSV_HEADER,
+  csvRow,
+  HAVE_SAMPLES,
+  noCache,
+  sampleLines,
+  scratchDir,
+  writeLines,
+} from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 
 /** 2014-01-06 (the cold day) of the Chicago sample, plus the evening before for the first hour's window. */
 function realDay(): string[] {
@@ -18,32 +25,6 @@ function realDay(): string[] {
     return d === "20140106" || (d === "20140105" && l.slice(23, 25) === "23");
   });
 }
-
-/** A full-format line as a global-hourly CSV row, field by field from the format document's positions. */
-function csvRow(l: string): string {
-  const q = (s: string) => `"${s}"`;
-  const date = `${l.slice(15, 19)}-${l.slice(19, 21)}-${l.slice(21, 23)}T${l.slice(23, 25)}:${l.slice(25, 27)}:00`;
-  const ma1 = l.indexOf("MA1", 105);
-  const ma1Cell =
-    ma1 > 0 ? `${l.slice(ma1 + 3, ma1 + 8)},${l[ma1 + 8]},${l.slice(ma1 + 9, ma1 + 14)},${l[ma1 + 14]}` : "";
-  return [
-    q(l.slice(4, 15)),
-    q(date),
-    q(l[27]!),
-    q((Number(l.slice(28, 34)) / 1000).toFixed(5)),
-    q((Number(l.slice(34, 41)) / 1000).toFixed(5)),
-    q(String(Number(l.slice(46, 51)))),
-    q("CHICAGO O'HARE INTERNATIONAL AIRPORT, IL US"),
-    q(l.slice(41, 46)),
-    q(l.slice(51, 56)),
-    q(`${l.slice(87, 92)},${l[92]}`),
-    q(`${l.slice(93, 98)},${l[98]}`),
-    q(`${l.slice(99, 104)},${l[104]}`),
-    q(ma1Cell),
-  ].join(",");
-}
-const CSV_HEADER =
-  '"STATION","DATE","SOURCE","LATITUDE","LONGITUDE","ELEVATION","NAME","REPORT_TYPE","CALL_SIGN","TMP","DEW","SLP","MA1"';
 
 describe.skipIf(!HAVE_SAMPLES)("ISD-Lite and CSV layouts", () => {
   it("the CSV layout gives the full format's series, QC counts and extremes", async () => {
@@ -92,12 +73,7 @@ describe.skipIf(!HAVE_SAMPLES)("ISD-Lite and CSV layouts", () => {
     const litePath = writeLines(`${tmp.dir}/725300-94846-2014`, lite, true);
     expect((await readClimateFile(litePath)).format).toBe("isd-lite");
     const history = `${tmp.dir}/history.csv`;
-    writeFileSync(
-      history,
-      '"USAF","WBAN","STATION NAME","CTRY","STATE","ICAO","LAT","LON","ELEV(M)","BEGIN","END"\n' +
-        // Position as in the sample's FM-15 records (real file); name from memory.
-        '"725300","94846","CHICAGO O\'HARE INTERNATIONAL AIRPORT","US","IL","KORD","+41.995","-087.934","+0205.0","19461001","20250101"\n',
-    );
+    writeFileSync(history, CHICAGO_HISTORY);
     const [b] = await loadClimate([litePath], { ...noCache, stationHistoryCsv: history });
     expect(b!.meta).toMatchObject({ id: "725300-94846", lat: 41.995, lon: -87.934, elevationM: 205 });
     expect(b!.meta.timeZone).toBe("America/Chicago");

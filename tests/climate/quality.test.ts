@@ -2,13 +2,20 @@
  * Quality codes, the order of reasons and duplicates, on real lines of the NOAA samples edited inside
  * the test (positions as the ISD format document counts them).
  */
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { loadClimate } from "../../src/climate/index.js";
-import { droppedTotal, HAVE_SAMPLES, sample, sampleLines, setAt, tempDir, writeLines } from "./helpers.js";
+import {
+  droppedTotal,
+  HAVE_SAMPLES,
+  noCache,
+  sample,
+  sampleLines,
+  scratchDir,
+  setAt,
+  writeLines,
+} from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 
 describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
   // First six routine FM-15 lines of the Chicago sample, all with quality code 5 (real file).
@@ -25,7 +32,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
       setAt(lines[2]!, 93, "6"),
       setAt(lines[3]!, 93, "7"),
       lines[4]!,
-      setAt(lines[5]!, 93, "A"), // A: flagged suspect but accepted as good (kept, docs/methods.md §4)
+      setAt(lines[5]!, 93, "A"), // A: flagged suspect but accepted as good (kept, docs/methods.md)
     ];
     const [s] = await loadClimate([writeLines(`${tmp.dir}/q.txt`, edited)], noCache);
     expect(s!.qc.dropped.suspect).toBe(2);
@@ -40,7 +47,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     ["6", "suspect"],
     ["7", "erroneous"],
   ] as const)(
-    "temperature quality %s alone is counted as %s (ISD format document, POS 93; docs/methods.md §4)",
+    "temperature quality %s alone is counted as %s (ISD format document, POS 93; docs/methods.md)",
     async (code, reason) => {
       // One edited line among five untouched ones, so a code filed under the wrong reason shows.
       const lines = routine();
@@ -54,7 +61,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     },
   );
 
-  it("second site: 5 km and 30 m from the most frequent position are the limits (docs/methods.md §4)", async () => {
+  it("second site: 5 km and 30 m from the most frequent position are the limits (docs/methods.md)", async () => {
     // The Chicago sample's main position is +41.995 −087.934, 205 m (real file). One degree of latitude
     // is 111.2 km (spherical Earth, mean radius 6371 km; from memory): +0.040° = 4.45 km, +0.050° = 5.56 km.
     const lines = routine();
@@ -89,7 +96,7 @@ describe.skipIf(!HAVE_SAMPLES)("quality control on real lines", () => {
     expect(s!.extremes!.minC).toBe(-93.2);
   });
 
-  it("the first reason that applies wins, in the documented order (docs/methods.md §4)", async () => {
+  it("the first reason that applies wins, in the order of docs/methods.md", async () => {
     const lines = routine();
     const otherSite = (l: string) => setAt(setAt(l, 29, "+30300"), 35, "-097700"); // Austin's second site
     const edited = [

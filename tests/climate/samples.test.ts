@@ -13,9 +13,7 @@ import {
   timeZoneFor,
   valueAtHour,
 } from "../../src/climate/index.js";
-import { droppedTotal, HAVE_SAMPLES, sample, sampleLines } from "./helpers.js";
-
-const noCache = { gapHours: 3, cacheDir: null };
+import { droppedTotal, HAVE_SAMPLES, noCache, sample, sampleLines } from "./helpers.js";
 
 async function one(name: string): Promise<StationClimate> {
   const stations = await loadClimate([sample(name)], noCache);
@@ -46,7 +44,7 @@ describe.skipIf(!HAVE_SAMPLES)("real ISD samples", () => {
     // −16 °F (−26.7 °C) that morning at 07:51 local (National Weather Service climate records; from memory).
     expect(s.extremes!.minC).toBe(-26.7);
     expect(s.extremes!.minUtc).toBe("2014-01-06T13:51:00Z");
-    // Two positions 3 km apart are one site (docs/methods.md §4).
+    // Two positions 3 km apart are one site (docs/methods.md, "Second site").
     expect(s.qc.dropped.otherSite).toBe(0);
     expect(s.meta.timeZone).toBe("America/Chicago");
   });
@@ -54,7 +52,7 @@ describe.skipIf(!HAVE_SAMPLES)("real ISD samples", () => {
   it("722540-13904 (Austin): the 474 synoptic reports of the second site are otherSite", async () => {
     const s = await one("722540-13904-2014.gz");
     // 474 FM-12 lines at +30300-097700, 189 m, about 13 km from the main site (count from the real file;
-    // docs/methods.md §4).
+    // docs/methods.md, "Second site").
     const lines = sampleLines("722540-13904-2014.gz");
     expect(lines.filter((l) => l.slice(28, 51) === "+30300-097700FM-12+0189")).toHaveLength(474);
     expect(s.qc.dropped.otherSite).toBe(474);
@@ -113,7 +111,7 @@ describe.skipIf(!HAVE_SAMPLES)("real ISD samples", () => {
     const lines = sampleLines(name);
     let read = 0;
     for (const s of stations) {
-      expect(s.qc.read).toBe(s.qc.kept + droppedTotal(s.qc)); // docs/methods.md §4 invariant
+      expect(s.qc.read).toBe(s.qc.kept + droppedTotal(s.qc)); // invariant of docs/methods.md
       read += s.qc.read;
     }
     expect(read).toBe(lines.length); // every line of the real file lands in one count

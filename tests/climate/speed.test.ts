@@ -8,18 +8,16 @@ import { readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { gzipSync } from "node:zlib";
 import fc from "fast-check";
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { cacheStats, loadClimate, resetCacheStats } from "../../src/climate/index.js";
 import { stationPressure } from "../../src/climate/isdFull.js";
 import { timeOrder } from "../../src/climate/qc.js";
 import { MISSING_PRESSURE } from "../../src/climate/records.js";
 import { readClimateFile } from "../../src/climate/source.js";
 import type { StationClimate } from "../../src/climate/types.js";
-import { HAVE_SAMPLES, sample, sampleLines, setAt, tempDir, writeLines } from "./helpers.js";
+import { HAVE_SAMPLES, noCache, sample, sampleLines, scratchDir, setAt, writeLines } from "./helpers.js";
 
-const noCache = { gapHours: 3, cacheDir: null };
-const tmp = tempDir();
-afterAll(() => tmp.cleanup());
+const tmp = scratchDir();
 beforeEach(() => resetCacheStats());
 
 /** Stable order by time, the plain way: indices sorted by (time, index). */
