@@ -75,7 +75,7 @@ export function summaryText(r: Results): string {
       if (oob > 0) parts.push(`${pct(oob)} % of preflights out of band`);
       if (advice?.fitColdStartOption) {
         parts.push(
-          `${pct(advice.shortPctOne)} % of starts short → fit the cold-start option (${pct(advice.shortPctTwo)} % with it)`,
+          `${pct(advice.shortPctOne)} % of starts short → fit the cold-start option to ${advice.aircraft.join(", ")} (${pct(advice.shortPctTwo)} % with it)`,
         );
       }
       if (parts.length > 0) items.push(`    ${MONTHS[m.month - 1]}: ${parts.join("; ")}`);
