@@ -58,7 +58,11 @@ function row(a: AircraftAction, noData: StayResult["noData"]): ActionRowView {
     action: a.action,
     label: ACTION_LABEL[a.action],
     needed:
-      a.neededFrom === null ? "–" : a.notNeededFrom === null ? `from ${a.neededFrom}` : `${a.neededFrom} to ${a.notNeededFrom}`,
+      a.neededFrom === null
+        ? "–"
+        : a.notNeededFrom === null
+          ? `from ${a.neededFrom}`
+          : `${a.neededFrom} to ${a.notNeededFrom}`,
     month: a.worstMonth === null ? "–" : monthName(a.worstMonth),
     one: pctInterval(a.shortPctOne, a.shortPctOneLo90, a.shortPctOneHi90) || "–",
     two: pctInterval(a.shortPctTwo, a.shortPctTwoLo90, a.shortPctTwoHi90) || "–",
