@@ -7,7 +7,14 @@
  * Like `report/`, this folder reads only the `Results` types of `plan/results.ts`: cli → output →
  * plan/results (types), never the engine, the climate or the physics code.
  */
-import type { BaseResult, MonthConfidence, ProfileResult, Results } from "../plan/results.js";
+import type {
+  AircraftAction,
+  BaseResult,
+  MonthConfidence,
+  ProfileResult,
+  Results,
+  StayResult,
+} from "../plan/results.js";
 import { formatMachine, shownText, unitSystem } from "../units/index.js";
 
 export type Cell = string | number | boolean | null;
@@ -65,6 +72,18 @@ function confidenceColumns<T>(
     `${snake}_${col}`,
     (row: T) => get(row)[`${name}${suffix}` as keyof MonthConfidence] ?? null,
   ]);
+}
+
+/** The columns naming a stay: aircraft, base, arrive, depart. */
+function stayColumns<T>(
+  get: (row: T) => Pick<StayResult, "aircraft" | "base" | "arrive" | "depart">,
+): Column<T>[] {
+  return [
+    ["aircraft", (row) => get(row).aircraft],
+    ["base", (row) => get(row).base],
+    ["arrive", (row) => get(row).arrive],
+    ["depart", (row) => get(row).depart],
+  ];
 }
 
 /** Every table of the results, in a fixed order. */
@@ -292,10 +311,7 @@ export function resultTables(r: Results): Table[] {
       ],
     ),
     table("stays", r.stays, [
-      ["aircraft", (s) => s.aircraft],
-      ["base", (s) => s.base],
-      ["arrive", (s) => s.arrive],
-      ["depart", (s) => s.depart],
+      ...stayColumns((s: StayResult) => s),
       ["profile", (s) => s.profile],
       ["cold_start_option", (s) => s.coldStartOption],
       ["years_used", (s) => s.yearsUsed.join(" ")],
@@ -307,9 +323,7 @@ export function resultTables(r: Results): Table[] {
       "stay_months",
       r.stays.flatMap((s) => s.months.map((x) => ({ s, x }))),
       [
-        ["aircraft", ({ s }) => s.aircraft],
-        ["base", ({ s }) => s.base],
-        ["arrive", ({ s }) => s.arrive],
+        ...stayColumns(({ s }: { s: StayResult }) => s),
         ["cold_start_option", ({ s }) => s.coldStartOption],
         ["month", ({ x }) => x.month],
         ["real_month", ({ x }) => x.realMonth],
@@ -328,10 +342,7 @@ export function resultTables(r: Results): Table[] {
       ],
     ),
     table("aircraft_actions", r.actions, [
-      ["aircraft", (a) => a.aircraft],
-      ["base", (a) => a.base],
-      ["arrive", (a) => a.arrive],
-      ["depart", (a) => a.depart],
+      ...stayColumns((a: AircraftAction) => a),
       ["cold_start_option", (a) => a.coldStartOption],
       ["action", (a) => a.action],
       ["needed_from", (a) => a.neededFrom],

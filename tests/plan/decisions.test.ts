@@ -9,7 +9,7 @@ import { runPlan } from "../../src/plan/engine.js";
 import type { StayMonthRow } from "../../src/plan/results.js";
 import type { Stay } from "../../src/plan/schedule.js";
 import { yearsSkippedText } from "../../src/report/shared.js";
-import { fixturePlan, syntheticClimate, type Tree } from "./helpers.js";
+import { fixturePlan, oneLitreUnit, syntheticClimate, type Tree } from "./helpers.js";
 
 const T: DecisionThresholds = { shortStartsPct: 1, outOfBandPct: 2, minYears: 5 };
 
@@ -28,13 +28,8 @@ function stay(aircraft: string, arrive: string, depart: string, coldStartOption 
  */
 function plan(edit: (t: Tree) => void = () => {}, pumpTimer = "2 s") {
   return fixturePlan((t) => {
+    oneLitreUnit(t);
     const p = t.profiles[0];
-    p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
-    p.precharge = { reference: "1450 psig @ 70 F", tolerance: "50 psi" };
-    p.system = { low: "2850 psig", nominal: "3000 psig", high: "3150 psig" };
-    p.fluid = { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" };
-    p.thermalTimeConstant = "0 s";
-    p.gasLoss = { rate: "0 psi/month", spread: 0 };
     p.pump = {
       curve: [
         { pressure: "0 psig", flow: "1 L/min" },
@@ -47,14 +42,12 @@ function plan(edit: (t: Tree) => void = () => {}, pumpTimer = "2 s") {
       { ambient: "-40 F", energy: "3 kJ" },
       { ambient: "70 F", energy: "3 kJ" },
     ];
-    t.operations.weekdays = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
     t.operations.startTimes = ["07:00", "12:00", "17:00"];
     t.operations.prechargeCheckDays = 30;
     t.operations.outOfBand = "log";
     t.climate.years = { from: 2014, to: 2015 };
     t.climate.minYears = 1;
     t.thresholds = { shortStartsPct: 1, outOfBandPct: 2 };
-    delete t.bases[0].hangar;
     edit(t);
   });
 }
