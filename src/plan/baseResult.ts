@@ -54,7 +54,7 @@ function nitrogenOf(sim: Simulator, base: BaseSamples, outcomes: BaseOutcomes, w
   const n = nitrogenSamples(base, outcomes);
   if (n.base !== base) {
     warnings.push(
-      `base "${sim.plan.bases[base.baseIndex]!.name}": nitrogen from the ${n.base.years.length} climate year${n.base.years.length === 1 ? "" : "s"} that cover every stay with data (${n.base.stays.length} of ${base.stays.length} stays)`,
+      `base "${sim.plan.bases[base.baseIndex]!.name}": nitrogen from the ${n.base.years.length} climate year${n.base.years.length === 1 ? " that covers" : "s that cover"} every stay with data (${n.base.stays.length} of ${base.stays.length} stays)`,
     );
   }
   return baseNitrogen(sim.plan, sim.model, n.base, n.outcomes, warnings);

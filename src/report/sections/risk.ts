@@ -18,12 +18,15 @@ import {
   type StatusCell,
   statusCell,
   type TableRow,
+  yearsShort,
 } from "../shared.js";
 import { sectionId } from "./glance.js";
 
 export interface AdviceView {
   month: string;
   cell: StatusCell;
+  /** Usable climate years behind the status (the fewest among the stays there). */
+  years: string;
   toFit: string;
   one: string;
   oneByYear: string;
@@ -195,6 +198,7 @@ function adviceRows(base: BaseResult, thresholds: ThresholdsView): AdviceView[] 
       return {
         month: monthName(m.month),
         cell: statusCell(base.name, m),
+        years: m.status === "no-data" ? "none" : yearsShort(m.statusYears),
         toFit: a && a.aircraft.length > 0 ? a.aircraft.join(", ") : "–",
         one: pctInterval(m.shortPctOne, m.shortPctOneLo90, m.shortPctOneHi90) || "–",
         oneByYear: byYear(m.shortPctOneYearMin, m.shortPctOneYearMedian, m.shortPctOneYearMax),
