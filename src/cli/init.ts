@@ -103,7 +103,7 @@ nitrogen:
   hoseVolume: "10 in3"                   # vented at each disconnect
   cylindersPerCart: 2
 
-thresholds: { shortStartsPct: 1 }        # share of starts short of energy that calls for the option
+thresholds: { shortStartsPct: 1, outOfBandPct: 2 }   # % of starts short that calls for the option; % of first preflights out of band that calls for a watch
 `;
 }
 

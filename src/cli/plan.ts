@@ -44,7 +44,7 @@ export function summaryText(r: Results): string {
       if (oob > 0) parts.push(`${pct(oob)} % of preflights out of band`);
       if (advice?.fitColdStartOption) {
         parts.push(
-          `${pct(advice.shortPctOne)} % of starts short → fit the cold-start option (${pct(advice.shortPctTwo)} % with it)`,
+          `${pct(advice.shortPctOne)} % of starts short → fit the cold-start option to ${advice.aircraft.join(", ")} (${pct(advice.shortPctTwo)} % with it)`,
         );
       }
       if (parts.length > 0) items.push(`    ${MONTHS[m.month - 1]}: ${parts.join("; ")}`);
@@ -188,7 +188,7 @@ Output (in <out>/<plan name>/, replaced only after a successful run):
   results.json   everything the report shows (°C, kPa gauge, kg, %; no wall-clock time)
   *.csv          one table each: bases, months, advice, out_of_band_by_hour, coldest_mornings,
                  climate_months, daily_range_histogram, nitrogen_stays, traces, stations,
-                 precharge_line, band, stays, assumptions
+                 precharge_line, band, stays, stay_months, aircraft_actions, assumptions
   report.html    the self-contained planning report
 
 Schedule CSV: aircraft,base,arrive,depart[,cold_start_option][,profile]

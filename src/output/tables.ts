@@ -7,7 +7,14 @@
  * Like `report/`, this folder reads only the `Results` types of `plan/results.ts`: cli → output →
  * plan/results (types), never the engine, the climate or the physics code.
  */
-import type { BaseResult, ProfileResult, Results } from "../plan/results.js";
+import type {
+  AircraftAction,
+  BaseResult,
+  MonthConfidence,
+  ProfileResult,
+  Results,
+  StayResult,
+} from "../plan/results.js";
 import { formatMachine, shownText, unitSystem } from "../units/index.js";
 
 export type Cell = string | number | boolean | null;
@@ -48,6 +55,37 @@ function perProfile<T>(r: Results, items: (p: ProfileResult) => T[]): { p: Profi
   return r.profiles.flatMap((p) => items(p).map((x) => ({ p, x })));
 }
 
+/** The confidence columns of a share (interval and spread across years), named after it in snake_case. */
+function confidenceColumns<T>(
+  name: "shortPctOne" | "shortPctTwo" | "belowBandPct" | "aboveBandPct" | "outOfBandPct",
+  snake: string,
+  get: (row: T) => Partial<MonthConfidence>,
+): Column<T>[] {
+  const parts = [
+    ["Lo90", "lo90"],
+    ["Hi90", "hi90"],
+    ["YearMin", "year_min"],
+    ["YearMedian", "year_median"],
+    ["YearMax", "year_max"],
+  ] as const;
+  return parts.map(([suffix, col]) => [
+    `${snake}_${col}`,
+    (row: T) => get(row)[`${name}${suffix}` as keyof MonthConfidence] ?? null,
+  ]);
+}
+
+/** The columns naming a stay: aircraft, base, arrive, depart. */
+function stayColumns<T>(
+  get: (row: T) => Pick<StayResult, "aircraft" | "base" | "arrive" | "depart">,
+): Column<T>[] {
+  return [
+    ["aircraft", (row) => get(row).aircraft],
+    ["base", (row) => get(row).base],
+    ["arrive", (row) => get(row).arrive],
+    ["depart", (row) => get(row).depart],
+  ];
+}
+
 /** Every table of the results, in a fixed order. */
 export function resultTables(r: Results): Table[] {
   const baseName: Column<{ b: BaseResult }> = ["base", ({ b }) => b.name];
@@ -67,6 +105,11 @@ export function resultTables(r: Results): Table[] {
       ["years_skipped", (b) => b.yearsSkipped.map((y) => y.year).join(" ")],
       ["coldest_morning_c", (b) => b.coldestMorningC],
       ["coldest_1in10_c", (b) => b.coldest1in10C],
+      ["coldest_1in10_c_lo90", (b) => b.coldest1in10CLo90],
+      ["coldest_1in10_c_hi90", (b) => b.coldest1in10CHi90],
+      ["coldest_1in30_c", (b) => b.coldest1in30C],
+      ["coldest_1in30_c_lo90", (b) => b.coldest1in30CLo90],
+      ["coldest_1in30_c_hi90", (b) => b.coldest1in30CHi90],
       ["nitrogen_kg_p50", (b) => b.nitrogen.kgP50],
       ["nitrogen_kg_p90", (b) => b.nitrogen.kgP90],
       ["nitrogen_kg_p95", (b) => b.nitrogen.kgP95],
@@ -110,6 +153,25 @@ export function resultTables(r: Results): Table[] {
         ["overnight_drop_reading_p90_pct", ({ x }) => x.overnightDropReadingP90Pct],
         ["daily_range_mean_c", ({ x }) => x.dailyRangeMeanC],
         ["daily_range_p90_c", ({ x }) => x.dailyRangeP90C],
+        ["out_of_band_pct", ({ x }) => x.outOfBandPct],
+        ...confidenceColumns<{ x: Partial<MonthConfidence> }>("shortPctOne", "short_pct_one", ({ x }) => x),
+        ...confidenceColumns<{ x: Partial<MonthConfidence> }>("shortPctTwo", "short_pct_two", ({ x }) => x),
+        ...confidenceColumns<{ x: Partial<MonthConfidence> }>("belowBandPct", "below_band_pct", ({ x }) => x),
+        ...confidenceColumns<{ x: Partial<MonthConfidence> }>("aboveBandPct", "above_band_pct", ({ x }) => x),
+        ...confidenceColumns<{ x: Partial<MonthConfidence> }>(
+          "outOfBandPct",
+          "out_of_band_pct",
+          ({ x }) => x,
+        ),
+        ["out_of_band_worst_hours", ({ x }) => x.outOfBandWorstHours.join(" ")],
+        ["status", ({ x }) => x.status],
+        ["status_years", ({ x }) => x.statusYears],
+        ["low_confidence", ({ x }) => x.lowConfidence],
+        ["part_no_data", ({ x }) => x.partNoData],
+        ["status_aircraft", ({ x }) => x.statusAircraft.join(" ")],
+        ["status_pct", ({ x }) => x.statusPct],
+        ["status_pct_lo90", ({ x }) => x.statusPctLo90],
+        ["status_pct_hi90", ({ x }) => x.statusPctHi90],
       ],
     ),
     table(
@@ -122,6 +184,7 @@ export function resultTables(r: Results): Table[] {
         ["short_pct_one", ({ x }) => x.shortPctOne],
         ["short_pct_two", ({ x }) => x.shortPctTwo],
         ["improvement_pct", ({ x }) => x.improvementPct],
+        ["aircraft", ({ x }) => x.aircraft.join(" ")],
       ],
     ),
     table(
@@ -248,12 +311,54 @@ export function resultTables(r: Results): Table[] {
       ],
     ),
     table("stays", r.stays, [
-      ["aircraft", (s) => s.aircraft],
-      ["base", (s) => s.base],
-      ["arrive", (s) => s.arrive],
-      ["depart", (s) => s.depart],
+      ...stayColumns((s: StayResult) => s),
       ["profile", (s) => s.profile],
       ["cold_start_option", (s) => s.coldStartOption],
+      ["years_used", (s) => s.yearsUsed.join(" ")],
+      ["years_skipped", (s) => s.yearsSkipped.map((y) => y.year).join(" ")],
+      ["no_data_months", (s) => s.noData?.months.join(" ") ?? null],
+      ["no_data_files", (s) => s.noData?.files.join(" ") ?? null],
+    ]),
+    table(
+      "stay_months",
+      r.stays.flatMap((s) => s.months.map((x) => ({ s, x }))),
+      [
+        ...stayColumns(({ s }: { s: StayResult }) => s),
+        ["cold_start_option", ({ s }) => s.coldStartOption],
+        ["month", ({ x }) => x.month],
+        ["real_month", ({ x }) => x.realMonth],
+        ["preflights", ({ x }) => x.preflights],
+        ["starts", ({ x }) => x.starts],
+        ["short_pct_one", ({ x }) => x.shortPctOne],
+        ["short_pct_two", ({ x }) => x.shortPctTwo],
+        ["out_of_band_pct", ({ x }) => x.outOfBandPct],
+        ...confidenceColumns<{ x: Partial<MonthConfidence> }>("shortPctOne", "short_pct_one", ({ x }) => x),
+        ...confidenceColumns<{ x: Partial<MonthConfidence> }>("shortPctTwo", "short_pct_two", ({ x }) => x),
+        ...confidenceColumns<{ x: Partial<MonthConfidence> }>(
+          "outOfBandPct",
+          "out_of_band_pct",
+          ({ x }) => x,
+        ),
+      ],
+    ),
+    table("aircraft_actions", r.actions, [
+      ...stayColumns((a: AircraftAction) => a),
+      ["cold_start_option", (a) => a.coldStartOption],
+      ["action", (a) => a.action],
+      ["needed_from", (a) => a.neededFrom],
+      ["not_needed_from", (a) => a.notNeededFrom],
+      ["still_short_with_option", (a) => a.stillShortWithOption],
+      ["months_above", (a) => a.monthsAbove.join(" ")],
+      ["worst_month", (a) => a.worstMonth],
+      ["short_pct_one", (a) => a.shortPctOne],
+      ["short_pct_one_lo90", (a) => a.shortPctOneLo90],
+      ["short_pct_one_hi90", (a) => a.shortPctOneHi90],
+      ["short_pct_two", (a) => a.shortPctTwo],
+      ["short_pct_two_lo90", (a) => a.shortPctTwoLo90],
+      ["short_pct_two_hi90", (a) => a.shortPctTwoHi90],
+      ["years", (a) => a.years],
+      ["low_confidence", (a) => a.lowConfidence],
+      ["text", (a) => a.text],
     ]),
     table("assumptions", r.assumptions, [
       ["key", (a) => a.key],

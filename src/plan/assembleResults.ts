@@ -7,10 +7,13 @@ import { ZERO_CELSIUS_K as K0, STANDARD_ATMOSPHERE_PA } from "../units/index.js"
 import { TOOL_VERSION } from "../version.js";
 import { assumptionsOf } from "./assumptions.js";
 import { bandCurves } from "./bandCurves.js";
+import type { AggregatedBase } from "./baseResult.js";
+import { BOOTSTRAP_RESAMPLES } from "./bootstrap.js";
+import type { StayFigures } from "./confidence.js";
 import { METHODS } from "./methods.js";
 import type { Plan } from "./planFile.js";
-import type { BaseResult, ProfileResult, Results } from "./results.js";
-import { gasLossDraws } from "./samples.js";
+import type { AircraftAction, ProfileResult, Results } from "./results.js";
+import { type BaseSamples, gasLossDraws } from "./samples.js";
 import type { Stay } from "./schedule.js";
 import { QUANTILE_METHOD } from "./stats.js";
 
@@ -61,6 +64,10 @@ function randomInputs(plan: Plan, stays: Stay[], weekdays: number[]): Results["r
         (drawn || "none"),
     },
   ];
+  out.push({
+    name: "bootstrap over climate years",
+    description: `${BOOTSTRAP_RESAMPLES} resamples of the climate years, drawn with replacement for each 90 % interval from streams of their own (SplitMix32 keyed "bootstrap:" with the base, the stay group or "coldest"), so the other random inputs do not change; the interval is the 5 % and 95 % type-7 quantiles of the figure recomputed on each resample.`,
+  });
   if (typeof plan.operations.weekdays === "number") {
     out.push({
       name: "weekdays flown",
@@ -70,14 +77,28 @@ function randomInputs(plan: Plan, stays: Stay[], weekdays: number[]): Results["r
   return out;
 }
 
+/** Each stay's own figures and action, found through the base it belongs to. */
+function perStay(stays: Stay[], samples: BaseSamples[], bases: AggregatedBase[]) {
+  const found = new Map<Stay, { figures: StayFigures; action: AircraftAction }>();
+  for (const [i, b] of samples.entries()) {
+    for (const [si, s] of b.stays.entries()) {
+      found.set(s, { figures: bases[i]!.stays[si]!, action: bases[i]!.actions[si]! });
+    }
+  }
+  return stays.map((s) => found.get(s)!);
+}
+
 /** The whole results of a run. */
 export function assembleResults(
   plan: Plan,
   stays: Stay[],
   weekdays: number[],
-  bases: BaseResult[],
+  samples: BaseSamples[],
+  aggregated: AggregatedBase[],
   warnings: string[],
 ): Results {
+  const bases = aggregated.map((a) => a.result);
+  const own = perStay(stays, samples, aggregated);
   return {
     plan: plan.name,
     generatedBy: `coldsoak ${TOOL_VERSION}`,
@@ -85,17 +106,23 @@ export function assembleResults(
     seed: plan.seed,
     climateYears: [...new Set(bases.flatMap((b) => b.yearsUsed))].sort((a, b) => a - b),
     quantileMethod: QUANTILE_METHOD,
-    thresholds: { shortPct: plan.thresholds.shortStartsPct },
+    thresholds: {
+      shortPct: plan.thresholds.shortStartsPct,
+      outOfBandPct: plan.thresholds.outOfBandPct,
+      minYears: plan.climate.minYears,
+    },
     profiles: profileCurves(plan),
     bases,
-    stays: stays.map((s) => ({
+    stays: stays.map((s, i) => ({
       aircraft: s.aircraft,
       base: s.base,
       arrive: s.arrive,
       depart: s.depart,
       profile: s.profile,
       coldStartOption: s.coldStartOption,
+      ...own[i]!.figures,
     })),
+    actions: own.map((o) => o.action),
     assumptions: assumptionsOf(plan, weekdays),
     methods: METHODS,
     randomInputs: randomInputs(plan, stays, weekdays),

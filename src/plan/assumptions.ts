@@ -160,5 +160,11 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
     "percent",
     plan.thresholds.shortStartsPct,
   );
+  add(
+    ["thresholds", "outOfBandPct"],
+    "Share of first preflights out of band (below + above) that calls for a watch",
+    "percent",
+    plan.thresholds.outOfBandPct,
+  );
   return out;
 }

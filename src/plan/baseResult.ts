@@ -1,12 +1,16 @@
 /**
  * One base's results from its simulated samples: the stations and years used, the statistics by
- * month and hour, the overnight traces and the nitrogen logistics, in the `BaseResult` shape of the
- * results.json contract.
+ * month and hour with their confidence, the statuses, advice and aircraft actions, the overnight
+ * traces and the nitrogen logistics, in the `BaseResult` shape of the results.json contract, with the
+ * figures of each of its stays for `results.json` `stays[]` and `actions[]`.
  */
 import { stationCoverage } from "../climate/index.js";
 import type { StationClimate } from "../climate/types.js";
+import { baseConfidence, type StayFigures } from "./confidence.js";
+import { baseDecisions, type DecisionThresholds } from "./decisions.js";
 import { baseStatistics } from "./monthStats.js";
-import type { BaseResult, StationResult } from "./results.js";
+import type { Plan } from "./planFile.js";
+import type { AircraftAction, BaseResult, StationResult } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 import { baseNitrogen } from "./supplyPlan.js";
@@ -17,16 +21,91 @@ function stationResult(s: StationClimate): StationResult {
   return { ...c, firstUtc: c.firstUtc ?? "", lastUtc: c.lastUtc ?? "" };
 }
 
+/**
+ * The samples the nitrogen cascade replays: the stays some year covers, on the years that cover all of
+ * them (one pool per year needs every stay's servicings of that year). The demo and any complete
+ * record keep every stay and year.
+ */
+function nitrogenSamples(
+  base: BaseSamples,
+  outcomes: BaseOutcomes,
+): { base: BaseSamples; outcomes: BaseOutcomes } {
+  const covered = base.groupOfStay.map((gi) => base.gaps[gi] === null);
+  if (covered.every((c) => c) && base.usable.every((row) => row.every((u) => u))) return { base, outcomes };
+  const keepStay = base.stays.flatMap((_s, si) => (covered[si] ? [si] : []));
+  const keepYear = base.years.flatMap((_y, yi) =>
+    keepStay.every((si) => base.usable[yi]![base.groupOfStay[si]!]) ? [yi] : [],
+  );
+  return {
+    base: {
+      ...base,
+      stays: keepStay.map((si) => base.stays[si]!),
+      groupOfStay: keepStay.map((si) => base.groupOfStay[si]!),
+      years: keepYear.map((yi) => base.years[yi]!),
+      usable: keepYear.map((yi) => base.usable[yi]!),
+      days: keepYear.map((yi) => base.days[yi]!),
+    },
+    outcomes: keepYear.map((yi) => outcomes[yi]!),
+  };
+}
+
+/** The base's nitrogen over the samples that cover every covered stay; a warning when stays or years drop out. */
+function nitrogenOf(sim: Simulator, base: BaseSamples, outcomes: BaseOutcomes, warnings: string[]) {
+  const n = nitrogenSamples(base, outcomes);
+  if (n.base !== base) {
+    warnings.push(
+      `base "${sim.plan.bases[base.baseIndex]!.name}": nitrogen from the ${n.base.years.length} climate year${n.base.years.length === 1 ? " that covers" : "s that cover"} every stay with data (${n.base.stays.length} of ${base.stays.length} stays)`,
+    );
+  }
+  return baseNitrogen(sim.plan, sim.model, n.base, n.outcomes, warnings);
+}
+
+/** A base's results with the figures and actions of its stays, in the order of the base's stays. */
+export interface AggregatedBase {
+  result: BaseResult;
+  stays: StayFigures[];
+  actions: AircraftAction[];
+}
+
+/** The plan's thresholds that decide statuses and actions. */
+export function decisionThresholds(plan: Plan): DecisionThresholds {
+  return {
+    shortStartsPct: plan.thresholds.shortStartsPct,
+    outOfBandPct: plan.thresholds.outOfBandPct,
+    minYears: plan.climate.minYears,
+  };
+}
+
 /** Aggregates one base; warnings (starts without data, unreachable servicings) go to `warnings`. */
 export function aggregateBase(
   sim: Simulator,
   base: BaseSamples,
   outcomes: BaseOutcomes,
   warnings: string[],
-): BaseResult {
+): AggregatedBase {
   const { plan } = sim;
   const statistics = baseStatistics(plan, base, outcomes, warnings);
-  return {
+  const conf = baseConfidence(
+    plan,
+    base,
+    outcomes,
+    statistics.coldestMorningByYear.map((c) => c.tempC),
+  );
+  const decided = baseDecisions(
+    base.stays.map((s, si) => ({
+      aircraft: s.aircraft,
+      base: s.base,
+      arrive: s.arrive,
+      depart: s.depart,
+      coldStartOption: s.coldStartOption,
+      years: conf.stays[si]!.yearsUsed.length,
+      noData: conf.stays[si]!.noData,
+      months: conf.stays[si]!.months,
+    })),
+    statistics.months.map((m, i) => ({ ...m, ...conf.months[i]! })),
+    decisionThresholds(plan),
+  );
+  const result: BaseResult = {
     name: plan.bases[base.baseIndex]!.name,
     stations: base.climate.stations.map(stationResult),
     timeZone: base.climate.timeZone,
@@ -34,13 +113,19 @@ export function aggregateBase(
     yearsSkipped: base.skipped,
     climateMonths: statistics.climateMonths,
     dailyRangeHistogram: statistics.dailyRangeHistogram,
-    months: statistics.months,
+    months: statistics.months.map((m, i) => ({ ...m, ...conf.months[i]!, ...decided.months[i]! })),
     outOfBandByHour: statistics.outOfBandByHour,
     coldestMorningC: statistics.coldestMorningC,
     coldestMorningByYear: statistics.coldestMorningByYear,
     coldest1in10C: statistics.coldest1in10C,
-    advice: statistics.advice,
+    coldest1in10CLo90: conf.coldest.coldest1in10CLo90,
+    coldest1in10CHi90: conf.coldest.coldest1in10CHi90,
+    coldest1in30C: statistics.coldest1in30C,
+    coldest1in30CLo90: conf.coldest.coldest1in30CLo90,
+    coldest1in30CHi90: conf.coldest.coldest1in30CHi90,
+    advice: decided.advice,
     traces: overnightTraces(sim, base, outcomes),
-    nitrogen: baseNitrogen(plan, sim.model, base, outcomes, warnings),
+    nitrogen: nitrogenOf(sim, base, outcomes, warnings),
   };
+  return { result, stays: conf.stays, actions: decided.actions };
 }

@@ -6,6 +6,22 @@
  */
 import { DateTime } from "luxon";
 
+/** Month abbreviations for the warnings and the decision texts, January first. */
+export const MONTH_NAMES = [
+  "Jan",
+  "Feb",
+  "Mar",
+  "Apr",
+  "May",
+  "Jun",
+  "Jul",
+  "Aug",
+  "Sep",
+  "Oct",
+  "Nov",
+  "Dec",
+];
+
 export interface CivilDate {
   year: number;
   month: number; // 1–12

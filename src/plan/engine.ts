@@ -7,7 +7,8 @@
  * 1. prepare the samples (`samples.ts`): weekdays flown, groups of identical stays, usable climate
  *    years and the days of each group on each of them;
  * 2. simulate all samples of a base (`simulateSamples.ts`, around `simulate.ts`);
- * 3. aggregate the base (`baseResult.ts`: `monthStats.ts`, `traces.ts`, `supplyPlan.ts`);
+ * 3. aggregate the base (`baseResult.ts`: `monthStats.ts`, `confidence.ts`, `decisions.ts`,
+ *    `traces.ts`, `supplyPlan.ts`);
  * 4. assemble the results (`assembleResults.ts`).
  * A new capability is a new step module here, not growth of this file.
  */
@@ -36,6 +37,6 @@ export function runPlan(
   const sim = simulator(plan, samples, opts);
   // Base by base, so that only one base's outcomes are held at a time.
   const bases = samples.map((base) => aggregateBase(sim, base, simulateBase(sim, base), warnings));
-  const results = assembleResults(plan, stays, weekdays, bases, warnings);
+  const results = assembleResults(plan, stays, weekdays, samples, bases, warnings);
   return { results, stats: sim.stats };
 }

@@ -59,11 +59,24 @@ export const METHODS: MethodNote[] = [
     description: `One method everywhere: ${QUANTILE_METHOD}.`,
   },
   {
-    name: "1-in-10-year coldest morning",
+    name: "1-in-10 and 1-in-30-year coldest morning",
     source:
       "Gumbel (1958) Statistics of Extremes; method of moments as in Chow, Maidment & Mays (1988) Applied Hydrology §12.2",
     description:
-      "Gumbel distribution fitted by the method of moments to the negated annual minima of the first-preflight ambient temperature (one value per climate year the stays map onto); needs two or more years. With n years of record the coldest observed morning is itself roughly a 1-in-n-year value, so the fitted 1-in-10-year value may lie a little above or below it.",
+      "Gumbel distribution fitted by the method of moments to the negated annual minima of the first-preflight ambient temperature (one value per climate year the stays map onto); needs two or more years. With n years of record the coldest observed morning is itself roughly a 1-in-n-year value, so the fitted values may lie a little above or below it; a 1-in-30-year value from fewer than 30 years is an extrapolation, and the report says from how many years it comes. Both carry a 90 % bootstrap interval over climate years.",
+  },
+  {
+    name: "Confidence over climate years",
+    source:
+      "Nonparametric bootstrap, Efron (1979) Annals of Statistics 7(1):1; percentile interval, Efron & Tibshirani (1993) An Introduction to the Bootstrap, ch. 13",
+    description:
+      "Every share that drives a status (short starts with one and with two accumulators, first preflights below and above the band) is given with its minimum, median and maximum across climate years and a 90 % interval: climate years are resampled with replacement (2000 resamples, seeded, on streams of their own), the pooled share — events over counts of the resampled years — is recomputed on each resample, and the interval is its 5 % and 95 % type-7 quantiles. The 1-in-10 and 1-in-30-year values are refitted on each resample of the annual minima.",
+  },
+  {
+    name: "Statuses and aircraft actions",
+    source: "coldsoak decision rules (docs/methods.md §6)",
+    description:
+      "A base-month is judged from the aircraft there, each with its own configuration: act when one without the cold-start option has more than the short-start threshold of its starts short with one accumulator, or one with the option still has with two; else watch when more than the out-of-band threshold of first preflights read below or above the band; else OK. No stay: no aircraft there; no data: aircraft there but no usable climate year covers their stay (a month with both says “part no data” and is judged from the covered stays); low confidence: fewer usable years than climate.minYears (the fewest among the stays there). Each stay gets an action from its own months: fit the option before arrival (needed from the first day of the first month above the threshold with one accumulator; not needed from the first day of the month after the last), fitted and needed, fitted and not needed, fitted but still short (hangar or a later first start), keep as is, or no data. Planning estimates, never instructions: fitting or removing equipment follows the approved data.",
   },
   {
     name: "Nitrogen cylinders",
@@ -75,6 +88,6 @@ export const METHODS: MethodNote[] = [
     name: "Climate years",
     source: "Past years of NOAA Integrated Surface Data as samples of the weather a stay may meet",
     description:
-      "Each stay's month-day window is mapped onto every year of record (a window across 31 December runs into the next year; a real 29 February folds onto 28 February when the climate year has none). All stays at a base share one mapping: the earliest arrival year there maps onto the sample year and each later real year onto the following climate year, so stays that overlap in real time see the same weather in every sample. A sample is labelled by the climate year its earliest real year maps onto. A year counts at a base when every stay there has at least the plan's share of its window hours present after gap filling.",
+      "Each stay's month-day window is mapped onto every year of record (a window across 31 December runs into the next year; a real 29 February folds onto 28 February when the climate year has none). All stays at a base share one mapping: the earliest arrival year there maps onto the sample year and each later real year onto the following climate year, so stays that overlap in real time see the same weather in every sample. A sample is labelled by the climate year its earliest real year maps onto. A year counts for a stay when its window on that year has at least the plan's share of its hours present after gap filling; each stay uses its own usable years, and a year is a sample of the base when it counts for any stay there.",
   },
 ];

@@ -2,18 +2,21 @@
  * Statistics of one base, pooled over its climate years (docs/methods.md, "Statistics"): by local
  * month the preflight shares below and above band, the morning gauge pressure and reading, the starts
  * short of energy with one and with two accumulators and their energy margins, the overnight drops
- * and the daily range over the days the stays cover; the cold-start advice; the out-of-band share by
- * local hour of day; the coldest morning of each year and its 1-in-10-year value (Gumbel, method of
- * moments); the monthly climate of the whole record.
+ * and the daily range over the days the stays cover, and the month's worst hours of day out of band;
+ * the out-of-band share by local hour of day; the coldest morning of each year and its 1-in-10 and
+ * 1-in-30-year values (Gumbel, method of moments); the monthly climate of the whole record.
  */
 import { localClimatology } from "../climate/index.js";
 import type { Plan } from "./planFile.js";
-import type { AdviceRow, BaseResult, HourRow, MonthRow } from "./results.js";
+import type { BaseResult, HourRow, MonthStatistics } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
 import { gumbelMinimumReturnLevel, mean, pct, quantile } from "./stats.js";
 
-const RETURN_PERIOD_YEARS = 10;
+/** Return periods of the coldest-morning values, years. */
+export const RETURN_PERIODS_YEARS = { oneIn10: 10, oneIn30: 30 } as const;
+/** Hours of day named as a month's worst out of band. */
+const WORST_HOURS = 3;
 /** Width of a bin of the daily-range histogram, °C. */
 const HISTOGRAM_BIN_C = 2;
 
@@ -40,6 +43,9 @@ interface BaseTally {
   /** Hourly what-if readings and those out of band, by local hour of day. */
   hourReadings: number[];
   hourOutOfBand: number[];
+  /** The same by `[month−1][hour]`, flattened (index (month − 1)·24 + hour). */
+  monthHourReadings: number[];
+  monthHourOutOfBand: number[];
   /** Coldest preflight ambient of each usable year (index as the base's years), °C. */
   coldestC: (number | undefined)[];
   startsWithoutAmbient: number;
@@ -69,6 +75,8 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
     months: Array.from({ length: 13 }, emptyMonth),
     hourReadings: new Array<number>(24).fill(0),
     hourOutOfBand: new Array<number>(24).fill(0),
+    monthHourReadings: new Array<number>(12 * 24).fill(0),
+    monthHourOutOfBand: new Array<number>(12 * 24).fill(0),
     coldestC: base.years.map(() => undefined),
     startsWithoutAmbient: 0,
   };
@@ -103,6 +111,8 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
       for (let i = 0; i < 12 * 24; i++) {
         t.hourReadings[i % 24]! += o.hourlyReadings[i]!;
         t.hourOutOfBand[i % 24]! += o.hourlyOutOfBand[i]!;
+        t.monthHourReadings[i]! += o.hourlyReadings[i]!;
+        t.monthHourOutOfBand[i]! += o.hourlyOutOfBand[i]!;
       }
     }
   }
@@ -111,14 +121,32 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
 
 const q = (v: number[], p: number): number | null => (v.length > 0 ? quantile(v, p) : null);
 
+/**
+ * The local hours of day of a month whose hourly what-if readings are most often out of band (worst
+ * first, ties by hour, only hours with a share above zero), from `[month−1][hour]` counts.
+ */
+function worstHours(readings: number[], outOfBand: number[], month: number): number[] {
+  const hours: { hour: number; share: number }[] = [];
+  for (let h = 0; h < 24; h++) {
+    const n = readings[(month - 1) * 24 + h]!;
+    const k = outOfBand[(month - 1) * 24 + h]!;
+    if (n > 0 && k > 0) hours.push({ hour: h, share: k / n });
+  }
+  return hours
+    .sort((a, b) => b.share - a.share || a.hour - b.hour)
+    .slice(0, WORST_HOURS)
+    .map((h) => h.hour);
+}
+
 /** One month's row; the daily range only in months with preflights. */
-function monthRow(month: number, a: MonthTally, dailyRangesC: number[]): MonthRow {
+function monthRow(month: number, a: MonthTally, dailyRangesC: number[], t: BaseTally): MonthStatistics {
   const has = a.preflights > 0;
   return {
     month,
     preflights: a.preflights,
     belowBandPct: has ? pct(a.below, a.preflights) : null,
     aboveBandPct: has ? pct(a.above, a.preflights) : null,
+    outOfBandPct: has ? pct(a.below + a.above, a.preflights) : null,
     shortPctOne: pct(a.shortOne, a.starts),
     shortPctTwo: pct(a.shortTwo, a.starts),
     morningKPaGaugeP10: q(a.gasKPaGauge, 0.1),
@@ -140,20 +168,8 @@ function monthRow(month: number, a: MonthTally, dailyRangesC: number[]): MonthRo
     energyMarginOneP50Pct: q(a.marginOnePct, 0.5),
     energyMarginTwoP10Pct: q(a.marginTwoPct, 0.1),
     energyMarginTwoP50Pct: q(a.marginTwoPct, 0.5),
+    outOfBandWorstHours: worstHours(t.monthHourReadings, t.monthHourOutOfBand, month),
   };
-}
-
-/** The advice of every month with starts: fit the option where one accumulator falls short too often. */
-function adviceRows(plan: Plan, months: MonthRow[]): AdviceRow[] {
-  return months
-    .filter((m) => m.starts > 0)
-    .map((m) => ({
-      month: m.month,
-      fitColdStartOption: m.shortPctOne! > plan.thresholds.shortStartsPct,
-      shortPctOne: m.shortPctOne,
-      shortPctTwo: m.shortPctTwo,
-      improvementPct: m.shortPctOne! - m.shortPctTwo!,
-    }));
 }
 
 /**
@@ -192,13 +208,12 @@ export type BaseStatistics = Pick<
   BaseResult,
   | "climateMonths"
   | "dailyRangeHistogram"
-  | "months"
   | "outOfBandByHour"
   | "coldestMorningC"
   | "coldestMorningByYear"
   | "coldest1in10C"
-  | "advice"
->;
+  | "coldest1in30C"
+> & { months: MonthStatistics[] };
 
 /** The statistics of one base from its outcomes; a warning counts starts without temperature data. */
 export function baseStatistics(
@@ -215,8 +230,8 @@ export function baseStatistics(
   }
   const climatology = localClimatology(base.climate.series, base.climate.timeZone);
   const ranges = windowDailyRanges(base, climatology.dailyRanges);
-  const months: MonthRow[] = [];
-  for (let m = 1; m <= 12; m++) months.push(monthRow(m, t.months[m]!, ranges.byMonth[m]!));
+  const months: MonthStatistics[] = [];
+  for (let m = 1; m <= 12; m++) months.push(monthRow(m, t.months[m]!, ranges.byMonth[m]!, t));
   const outOfBandByHour: HourRow[] = t.hourReadings.map((n, hour) => ({
     hour,
     preflights: n,
@@ -234,7 +249,7 @@ export function baseStatistics(
     outOfBandByHour,
     coldestMorningC: minima.length > 0 ? Math.min(...minima) : null,
     coldestMorningByYear,
-    coldest1in10C: gumbelMinimumReturnLevel(minima, RETURN_PERIOD_YEARS),
-    advice: adviceRows(plan, months),
+    coldest1in10C: gumbelMinimumReturnLevel(minima, RETURN_PERIODS_YEARS.oneIn10),
+    coldest1in30C: gumbelMinimumReturnLevel(minima, RETURN_PERIODS_YEARS.oneIn30),
   };
 }

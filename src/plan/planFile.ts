@@ -240,8 +240,11 @@ export const planSchema = z
     operations: operationsSchema,
     nitrogen: nitrogenSchema,
     thresholds: z
-      .strictObject({ shortStartsPct: z.number().min(0).max(100).default(1) })
-      .default({ shortStartsPct: 1 }),
+      .strictObject({
+        shortStartsPct: z.number().min(0).max(100).default(1),
+        outOfBandPct: z.number().min(0).max(100).default(2),
+      })
+      .default({ shortStartsPct: 1, outOfBandPct: 2 }),
   })
   .superRefine((p, ctx) => {
     const seen = (items: { name: string }[], key: string) => {

@@ -88,11 +88,53 @@ export interface ProfileResult {
   band: BandRow[];
 }
 
-export interface MonthRow {
+/**
+ * A share's spread across climate years and its 90 % interval (docs/methods.md §6): `…YearMin`,
+ * `…YearMedian`, `…YearMax` of the share within each climate year (years with something to count), and
+ * `…Lo90`, `…Hi90`, the 5 % and 95 % type-7 quantiles of the pooled share over a seeded bootstrap of
+ * climate years. Null where nothing is counted.
+ */
+export type Confidence<Name extends string> = {
+  [K in `${Name}${"Lo90" | "Hi90" | "YearMin" | "YearMedian" | "YearMax"}`]: number | null;
+};
+
+/** The confidence of every base-month share that drives a status. */
+export type MonthConfidence = Confidence<
+  "shortPctOne" | "shortPctTwo" | "belowBandPct" | "aboveBandPct" | "outOfBandPct"
+>;
+
+/**
+ * Status of a base and local month (docs/methods.md §6): "act" (an aircraft present without the option
+ * short of energy above `thresholds.shortPct` with one accumulator, or one with the option still above
+ * it with two), "watch" (out-of-band first preflights above `thresholds.outOfBandPct`), "ok",
+ * "no-stay" (no aircraft there), "no-data" (aircraft there, but no usable climate year covers a stay).
+ */
+export type StatusName = "act" | "watch" | "ok" | "no-stay" | "no-data";
+
+/** The status of a base-month and what set it. */
+export interface MonthDecision {
+  status: StatusName;
+  /** Usable climate years behind the status: the fewest among the stays present with data (0 when none). */
+  statusYears: number;
+  /** Fewer usable years than `climate.minYears`. */
+  lowConfidence: boolean;
+  /** Some stays present have data and some have none: the status comes from those with data. */
+  partNoData: boolean;
+  /** Aircraft whose own short share set "act" (without the option: with one; with it: with two). */
+  statusAircraft: string[];
+  /** The figure that set the status, %: the largest such short share ("act"), the out-of-band share ("watch"); else null. */
+  statusPct: number | null;
+  statusPctLo90: number | null;
+  statusPctHi90: number | null;
+}
+
+export interface MonthRow extends MonthConfidence, MonthDecision {
   month: number; // 1–12, local
   preflights: number;
   belowBandPct: number | null;
   aboveBandPct: number | null;
+  /** belowBandPct + aboveBandPct: the share the watch status compares with its threshold. */
+  outOfBandPct: number | null;
   shortPctOne: number | null;
   shortPctTwo: number | null;
   morningKPaGaugeP10: number | null;
@@ -116,7 +158,12 @@ export interface MonthRow {
   energyMarginOneP50Pct: number | null;
   energyMarginTwoP10Pct: number | null;
   energyMarginTwoP50Pct: number | null;
+  /** Local hours of day with the highest out-of-band share of the hourly what-if readings in the month (up to 3, worst first). */
+  outOfBandWorstHours: number[];
 }
+
+/** A month's statistics before the confidence and the status are added (`monthStats.ts`). */
+export type MonthStatistics = Omit<MonthRow, keyof MonthConfidence | keyof MonthDecision>;
 
 export interface ClimateMonthRow {
   month: number;
@@ -140,11 +187,15 @@ export interface HourRow {
 
 export interface AdviceRow {
   month: number;
+  /** An aircraft present lacks the option and its own short share with one is above the threshold. */
   fitColdStartOption: boolean;
+  /** Pooled over the aircraft present with data. */
   shortPctOne: number | null;
   shortPctTwo: number | null;
   /** shortPctOne − shortPctTwo: what a second accumulator buys, in percentage points. */
   improvementPct: number | null;
+  /** The aircraft present without the option whose own short share with one is above the threshold (those to fit). */
+  aircraft: string[];
 }
 
 /** One hour of an overnight trace (36 hours from the last recharge of an evening). */
@@ -210,7 +261,9 @@ export interface BaseResult {
   name: string;
   stations: StationResult[];
   timeZone: string;
+  /** Climate years usable for at least one stay window at the base. */
   yearsUsed: number[];
+  /** Candidate years usable for no stay window, with the share of hours of the best-covered window. */
   yearsSkipped: { year: number; completenessPct: number }[];
   climateMonths: ClimateMonthRow[];
   /** Distribution of daily range, pooled over years: bin edges in °C and day counts. */
@@ -220,9 +273,37 @@ export interface BaseResult {
   coldestMorningC: number | null;
   coldestMorningByYear: { year: number; tempC: number }[];
   coldest1in10C: number | null;
+  coldest1in10CLo90: number | null;
+  coldest1in10CHi90: number | null;
+  /** 1-in-30-year coldest morning, same Gumbel fit (docs/methods.md §6), with its bootstrap interval. */
+  coldest1in30C: number | null;
+  coldest1in30CLo90: number | null;
+  coldest1in30CHi90: number | null;
   advice: AdviceRow[];
   traces: { typical: Trace | null; worst: Trace | null };
   nitrogen: NitrogenBase;
+}
+
+/** One local month of a stay: its own figures, pooled over the stay's usable years, with 90 % intervals. */
+export interface StayMonthRow extends Confidence<"shortPctOne" | "shortPctTwo" | "outOfBandPct"> {
+  month: number; // 1–12, local
+  /** The real calendar month of the schedule (YYYY-MM) the local month first falls in. */
+  realMonth: string;
+  preflights: number;
+  starts: number;
+  /** Short of energy with one accumulator and with two; with `coldStartOption` "two" is the stay's own configuration. */
+  shortPctOne: number | null;
+  shortPctTwo: number | null;
+  /** First preflights below or above the band. */
+  outOfBandPct: number | null;
+}
+
+/** A climate year a stay window was left out of: the window on that year and the share of its hours found. */
+export interface StayYearSkipped {
+  year: number;
+  fromIso: string;
+  toIso: string;
+  completenessPct: number;
 }
 
 export interface StayResult {
@@ -232,6 +313,55 @@ export interface StayResult {
   depart: string;
   profile: string;
   coldStartOption: boolean;
+  /** Climate years usable for this stay's window (docs/methods.md §4). */
+  yearsUsed: number[];
+  yearsSkipped: StayYearSkipped[];
+  /** When no year covers the stay: the months it lacks and the ISD files that would hold them; else null. */
+  noData: { months: number[]; files: string[] } | null;
+  months: StayMonthRow[];
+}
+
+/**
+ * What the plan suggests for one aircraft on one stay (docs/methods.md §6), judged on the stay's own
+ * short share per month: "fit" (no option, some month above the threshold with one accumulator),
+ * "fitted-needed", "fitted-not-needed", "fitted-still-short" (above the threshold even with the
+ * option), "keep" (no option, none needed), "no-data". A planning estimate, never an instruction.
+ */
+export type ActionName =
+  | "fit"
+  | "fitted-needed"
+  | "fitted-not-needed"
+  | "fitted-still-short"
+  | "keep"
+  | "no-data";
+
+export interface AircraftAction {
+  aircraft: string;
+  base: string;
+  arrive: string;
+  depart: string;
+  coldStartOption: boolean;
+  action: ActionName;
+  /** First day of the first month above the threshold with one accumulator (not before arrival). */
+  neededFrom: string | null;
+  /** First day of the month after the last month above it, when that is before departure. */
+  notNeededFrom: string | null;
+  /** Some month stays above the threshold with two accumulators. */
+  stillShortWithOption: boolean;
+  /** Local months above the threshold with one accumulator, in the stay's order. */
+  monthsAbove: number[];
+  /** The month the figures below come from: the stay's worst with one accumulator. */
+  worstMonth: number | null;
+  shortPctOne: number | null;
+  shortPctOneLo90: number | null;
+  shortPctOneHi90: number | null;
+  shortPctTwo: number | null;
+  shortPctTwoLo90: number | null;
+  shortPctTwoHi90: number | null;
+  /** Usable climate years of the stay, and whether they are fewer than `climate.minYears`. */
+  years: number;
+  lowConfidence: boolean;
+  text: string;
 }
 
 export interface Results {
@@ -241,10 +371,13 @@ export interface Results {
   seed: number;
   climateYears: number[];
   quantileMethod: string;
-  thresholds: { shortPct: number };
+  /** The plan's thresholds: `thresholds.shortStartsPct`, `thresholds.outOfBandPct` and `climate.minYears`. */
+  thresholds: { shortPct: number; outOfBandPct: number; minYears: number };
   profiles: ProfileResult[];
   bases: BaseResult[];
   stays: StayResult[];
+  /** One per stay, in schedule order. */
+  actions: AircraftAction[];
   assumptions: Assumption[];
   methods: MethodNote[];
   randomInputs: { name: string; description: string }[];

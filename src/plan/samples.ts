@@ -11,7 +11,7 @@
  * equal windows share.
  */
 import type { HourlySeries, StationClimate } from "../climate/types.js";
-import { type CivilDate, isoWeekday, stayDays } from "./calendar.js";
+import { type CivilDate, isoWeekday, MONTH_NAMES, stayDays } from "./calendar.js";
 import { buildDays, type DayOptions, type DayPlan, HOUR_MS } from "./days.js";
 import type { Plan } from "./planFile.js";
 import { drawWeekdays, gasLossFactor } from "./random.js";
@@ -37,10 +37,28 @@ export interface StayGroup {
   realDays: CivilDate[];
 }
 
-/** A climate year left out for a base: too few of its stay hours have a value. */
+/** A climate year left out for a base: no stay window there has enough of its hours with a value. */
 export interface SkippedYear {
   year: number;
+  /** Share of the hours present in the best-covered stay window of that year, %. */
   completenessPct: number;
+}
+
+/** A climate year left out for one stay window: the window on that year and the share of its hours found. */
+export interface WindowSkip {
+  year: number;
+  /** First and last climate date of the window on that year (YYYY-MM-DD). */
+  fromIso: string;
+  toIso: string;
+  completenessPct: number;
+}
+
+/** What a stay window lacks when no candidate year covers it. */
+export interface WindowGap {
+  /** Local months of the window that no candidate year fills to the plan's share, 1–12. */
+  months: number[];
+  /** ISD file names (`USAF-WBAN-YEAR.gz`, the base's first station) that would hold those months. */
+  files: string[];
 }
 
 /** One base ready to simulate. */
@@ -52,10 +70,17 @@ export interface BaseSamples {
   groups: StayGroup[];
   /** Group index of each stay. */
   groupOfStay: number[];
-  /** Usable climate years, ascending. */
+  /** Climate years usable for at least one stay window, ascending. */
   years: number[];
+  /** Candidate years usable for no stay window. */
   skipped: SkippedYear[];
-  /** Days of each group on each usable year: `days[yearIndex][groupIndex]`. */
+  /** Whether each group's window is usable on each year: `usable[yearIndex][groupIndex]`. */
+  usable: boolean[][];
+  /** Candidate years each group's window was left out of: `windowSkips[groupIndex]`. */
+  windowSkips: WindowSkip[][];
+  /** What each group's window lacks when no year covers it, else null: `gaps[groupIndex]`. */
+  gaps: (WindowGap | null)[];
+  /** Days of each group on each usable year (empty where the window is not usable): `days[yearIndex][groupIndex]`. */
   days: DayPlan[][][];
 }
 
@@ -143,20 +168,22 @@ function groupStays(
   return { groups, groupOfStay };
 }
 
-/** Share of the grid hours of the days that have a value. */
-function windowShare(series: HourlySeries, days: DayPlan[]): number {
-  let total = 0;
-  let present = 0;
+/** Grid hours of the days and those with a value, by local month (index 1–12). */
+function hoursByMonth(series: HourlySeries, days: DayPlan[]): { total: number[]; present: number[] } {
+  const total = new Array<number>(13).fill(0);
+  const present = new Array<number>(13).fill(0);
   for (const d of days) {
     const first = Math.ceil((d.midnightUtcMs - series.startUtcMs) / HOUR_MS);
     const last = Math.ceil((d.nextMidnightUtcMs - series.startUtcMs) / HOUR_MS);
-    total += last - first;
+    total[d.month]! += last - first;
     for (let i = Math.max(0, first); i < Math.min(series.tempC.length, last); i++) {
-      if (!Number.isNaN(series.tempC[i]!)) present++;
+      if (!Number.isNaN(series.tempC[i]!)) present[d.month]!++;
     }
   }
-  return total === 0 ? 0 : present / total;
+  return { total, present };
 }
+
+const sum = (v: number[]): number => v.reduce((a, b) => a + b, 0);
 
 /** Calendar years (UTC) that hold at least one value of the series. */
 function dataYears(series: HourlySeries): [number, number] | null {
@@ -175,9 +202,33 @@ function dataYears(series: HourlySeries): [number, number] | null {
   ];
 }
 
+type YearSamples = Pick<BaseSamples, "years" | "skipped" | "usable" | "windowSkips" | "gaps" | "days">;
+
+/** Per group, per local month: the best share found over candidate years and the climate years visited. */
+interface MonthCover {
+  bestShare: number[][];
+  calendarYears: Set<number>[][];
+}
+
+/** The months a never-covered window lacks and the files of the base's first station that would fill them. */
+function windowGap(
+  cover: MonthCover,
+  gi: number,
+  months: number[],
+  minShare: number,
+  station: string | null,
+): WindowGap {
+  const lacking = months.filter((m) => cover.bestShare[gi]![m]! < minShare || cover.bestShare[gi]![m]! === 0);
+  const years = new Set<number>();
+  for (const m of lacking) for (const y of cover.calendarYears[gi]![m]!) years.add(y);
+  const files = station === null ? [] : [...years].sort((a, b) => a - b).map((y) => `${station}-${y}.gz`);
+  return { months: lacking, files };
+}
+
 /**
  * Every candidate climate year (the plan's range, else the years the data covers) on which all groups'
- * windows fit; a year is usable when each group's window has at least the plan's share of its hours.
+ * windows fit; a year counts for a group's window when at least the plan's share of that window's hours
+ * have a value (docs/methods.md §4), and it is a sample of the base when it counts for any window.
  */
 function usableYears(
   plan: Plan,
@@ -185,43 +236,103 @@ function usableYears(
   groups: StayGroup[],
   refYear: number,
   dayOptions: DayOptions,
-): Pick<BaseSamples, "years" | "skipped" | "days"> {
-  const out: Pick<BaseSamples, "years" | "skipped" | "days"> = { years: [], skipped: [], days: [] };
+): YearSamples {
+  const out: YearSamples = {
+    years: [],
+    skipped: [],
+    usable: [],
+    windowSkips: groups.map(() => []),
+    gaps: groups.map(() => null),
+    days: [],
+  };
+  const minShare = plan.climate.minYearShare;
+  const cover: MonthCover = {
+    bestShare: groups.map(() => new Array<number>(13).fill(0)),
+    calendarYears: groups.map(() => Array.from({ length: 13 }, () => new Set<number>())),
+  };
   const range = plan.climate.years
     ? [plan.climate.years.from, plan.climate.years.to]
     : dataYears(climate.series);
-  if (range === null || groups.length === 0) return out;
   const span = Math.max(0, ...groups.map((g) => g.realDays[g.realDays.length - 1]!.year - refYear));
-  for (let y = range[0]!; y + span <= range[1]!; y++) {
+  for (let y = range?.[0] ?? 1; range !== null && y + span <= range[1]!; y++) {
     const days = groups.map((g) => buildDays(g.realDays, y, dayOptions, refYear));
-    const worst = Math.min(1, ...days.map((d) => windowShare(climate.series, d)));
-    if (worst >= plan.climate.minYearShare && worst > 0) {
+    const ok = days.map((d, gi) => {
+      const hours = hoursByMonth(climate.series, d);
+      for (let m = 1; m <= 12; m++) {
+        if (hours.total[m] === 0) continue;
+        const share = hours.present[m]! / hours.total[m]!;
+        cover.bestShare[gi]![m] = Math.max(cover.bestShare[gi]![m]!, share);
+        for (const day of d) if (day.month === m) cover.calendarYears[gi]![m]!.add(day.climateYear);
+      }
+      const total = sum(hours.total);
+      const share = total === 0 ? 0 : sum(hours.present) / total;
+      const usable = share >= minShare && share > 0;
+      if (!usable) {
+        out.windowSkips[gi]!.push({
+          year: y,
+          fromIso: d[0]!.climateIso,
+          toIso: d[d.length - 1]!.climateIso,
+          completenessPct: 100 * share,
+        });
+      }
+      return usable;
+    });
+    if (ok.some((u) => u)) {
       out.years.push(y);
-      out.days.push(days);
+      out.usable.push(ok);
+      out.days.push(days.map((d, gi) => (ok[gi] ? d : [])));
     } else {
-      out.skipped.push({ year: y, completenessPct: 100 * worst });
+      const best = Math.max(...out.windowSkips.map((w) => w[w.length - 1]?.completenessPct ?? 0));
+      out.skipped.push({ year: y, completenessPct: best });
     }
   }
+  const station = climate.stations[0]?.meta.id ?? null;
+  groups.forEach((g, gi) => {
+    if (out.usable.some((row) => row[gi])) return;
+    const months = [...new Set(g.realDays.map((d) => d.month))];
+    out.gaps[gi] = windowGap(cover, gi, months, minShare, station);
+  });
   return out;
+}
+
+/** "2027-11-15 to 2028-03-01 (AC01, AC02)": a group's stay dates (arrive, depart) and its aircraft. */
+function windowLabel(stays: Stay[], g: StayGroup): string {
+  const first = stays[g.stays[0]!]!;
+  const aircraft = [...new Set(g.stays.map((si) => stays[si]!.aircraft))].join(", ");
+  return `${first.arrive} to ${first.depart} (${aircraft})`;
 }
 
 function yearWarnings(
   plan: Plan,
   name: string,
-  b: Pick<BaseSamples, "groups" | "years" | "skipped">,
+  stays: Stay[],
+  groups: StayGroup[],
+  y: YearSamples,
 ): string[] {
   const out: string[] = [];
-  const { years, skipped } = b;
-  if (b.groups.length > 0 && years.length < plan.climate.minYears) {
+  const { years } = y;
+  if (groups.length > 0 && years.length < plan.climate.minYears) {
     out.push(
       `base "${name}": ${years.length} usable climate year${years.length === 1 ? "" : "s"} (${years.join(", ") || "none"}), fewer than climate.minYears = ${plan.climate.minYears}`,
     );
   }
-  if (skipped.length > 0) {
-    out.push(
-      `base "${name}": climate years skipped (under ${Math.round(plan.climate.minYearShare * 100)} % of the stay hours present): ${skipped.map((s) => `${s.year} (${s.completenessPct.toFixed(1)} %)`).join(", ")}`,
-    );
-  }
+  const under = `under ${Math.round(plan.climate.minYearShare * 100)} % of the window's hours present`;
+  groups.forEach((g, gi) => {
+    const gap = y.gaps[gi];
+    if (gap) {
+      const files = gap.files.length > 0 ? `; files that would hold them: ${gap.files.join(", ")}` : "";
+      out.push(
+        `base "${name}": no usable climate year for the stay window ${windowLabel(stays, g)}: it lacks ${gap.months.map((m) => MONTH_NAMES[m - 1]).join(", ")}${files}`,
+      );
+      return;
+    }
+    const skips = y.windowSkips[gi]!;
+    if (skips.length > 0) {
+      out.push(
+        `base "${name}": climate years skipped for the stay window ${windowLabel(stays, g)} (${under}): ${skips.map((s) => `${s.year} (${s.completenessPct.toFixed(1)} %)`).join(", ")}`,
+      );
+    }
+  });
   return out;
 }
 
@@ -247,7 +358,7 @@ export function prepareSamples(
       hangar: base.hangar ? { inMin: base.hangar.in, outMin: base.hangar.out } : null,
     };
     const years = usableYears(plan, clim, groups, refYear, dayOptions);
-    warnings.push(...yearWarnings(plan, base.name, { groups, ...years }));
+    warnings.push(...yearWarnings(plan, base.name, here, groups, years));
     return { baseIndex, climate: clim, stays: here, groups, groupOfStay, ...years };
   });
 }

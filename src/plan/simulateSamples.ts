@@ -10,6 +10,7 @@ import { ProfileContexts } from "./context.js";
 import type { Plan } from "./planFile.js";
 import type { BaseSamples } from "./samples.js";
 import { type SimInputs, type SimOutcome, simulateStayYear } from "./simulate.js";
+import { emptyOutcome } from "./stayRun.js";
 
 export interface RunOptions {
   /** Called after each simulated stay-year: done of total. */
@@ -46,7 +47,7 @@ export function simulator(plan: Plan, samples: BaseSamples[], opts: RunOptions):
     model,
     contexts: new ProfileContexts(model),
     stats: { accumulatorHours: 0, stayYearsSimulated: 0, simulationS: 0 },
-    total: samples.reduce((n, b) => n + b.groups.length * b.years.length, 0),
+    total: samples.reduce((n, b) => n + b.usable.flat().filter((u) => u).length, 0),
     onProgress: opts.onProgress,
   };
 }
@@ -68,11 +69,18 @@ export function sampleInputs(sim: Simulator, base: BaseSamples, gi: number, yi: 
   };
 }
 
-/** Simulates every group of a base on every usable year, group by group. */
+/**
+ * Simulates every group of a base on every year usable for its window, group by group; a window not
+ * usable on a year gets an empty outcome (no records).
+ */
 export function simulateBase(sim: Simulator, base: BaseSamples): BaseOutcomes {
   const outcomes: BaseOutcomes = base.years.map(() => []);
   for (let gi = 0; gi < base.groups.length; gi++) {
     for (let yi = 0; yi < base.years.length; yi++) {
+      if (!base.usable[yi]![gi]) {
+        outcomes[yi]![gi] = emptyOutcome();
+        continue;
+      }
       const inputs = sampleInputs(sim, base, gi, yi);
       const t0 = performance.now();
       const o = simulateStayYear(inputs);

@@ -16,17 +16,40 @@ export { writePdf } from "./pdf.js";
 const TEMPLATE_DIR = new URL("../../templates/", import.meta.url);
 
 /**
- * Status marks: a distinct shape per status (square, triangle, circle, dash) as well as a colour from
- * the Okabe–Ito palette, so the fleet summary reads in greyscale and for colour-blind readers.
- * Constant markup only: no data goes into these.
+ * Status marks: a distinct shape per status (square, triangle, circle, dash, cross) as well as a colour
+ * from the Okabe–Ito palette, so the fleet summary reads in greyscale and for colour-blind readers; at
+ * low confidence the same shape is drawn outlined (hollow). Constant markup only: no data goes into
+ * these.
  */
-const MARKS: Record<Status, string> = {
-  act: '<svg class="mark" viewBox="0 0 10 10" aria-hidden="true"><rect x="1" y="1" width="8" height="8" fill="#D55E00" stroke="#000" stroke-width="0.8"/></svg>',
-  watch:
-    '<svg class="mark" viewBox="0 0 10 10" aria-hidden="true"><path d="M5 0.8 L9.4 9 L0.6 9 Z" fill="#E69F00" stroke="#000" stroke-width="0.8"/></svg>',
-  ok: '<svg class="mark" viewBox="0 0 10 10" aria-hidden="true"><circle cx="5" cy="5" r="4" fill="#0072B2" stroke="#000" stroke-width="0.8"/></svg>',
-  none: '<svg class="mark" viewBox="0 0 10 10" aria-hidden="true"><rect x="1.5" y="4.2" width="7" height="1.6" fill="#8a929b"/></svg>',
+const SHAPES: Record<Status, { d: string; color: string }> = {
+  act: { d: "M1 1 H9 V9 H1 Z", color: "#D55E00" },
+  watch: { d: "M5 0.8 L9.4 9 L0.6 9 Z", color: "#E69F00" },
+  ok: { d: "M1 5 A4 4 0 1 0 9 5 A4 4 0 1 0 1 5 Z", color: "#0072B2" },
+  "no-stay": { d: "M1.5 4.2 H8.5 V5.8 H1.5 Z", color: "#8a929b" },
+  "no-data": {
+    d: "M1.5 0.5 L5 4 L8.5 0.5 L9.5 1.5 L6 5 L9.5 8.5 L8.5 9.5 L5 6 L1.5 9.5 L0.5 8.5 L4 5 L0.5 1.5 Z",
+    color: "#CC79A7",
+  },
 };
+
+function markSvg(status: Status, outlined: boolean): string {
+  const { d, color } = SHAPES[status];
+  const paint =
+    status === "no-stay"
+      ? `fill="${color}"`
+      : outlined
+        ? `fill="#fff" stroke="${color}" stroke-width="1.6"`
+        : `fill="${color}" stroke="#000" stroke-width="0.8"`;
+  return `<svg class="mark${outlined ? " mark-low" : ""}" viewBox="0 0 10 10" aria-hidden="true"><path d="${d}" ${paint}/></svg>`;
+}
+
+const STATUSES = Object.keys(SHAPES) as Status[];
+const MARKS = new Map(
+  STATUSES.flatMap((st) => [
+    [`${st}`, markSvg(st, false)],
+    [`${st}-low`, markSvg(st, true)],
+  ]),
+);
 
 /** Generation time: `SOURCE_DATE_EPOCH` (whole seconds since 1970, UTC) when set, else now. */
 export function generationTime(
@@ -59,7 +82,11 @@ function template(): Handlebars.TemplateDelegate {
   }
   // The chart SVG is rendered by vega from data it escapes, with our escaped <title>: placed as is.
   hb.registerHelper("chartSvg", (chart: Chart) => new hb.SafeString(chart.svg));
-  hb.registerHelper("mark", (status: Status) => new hb.SafeString(MARKS[status] ?? MARKS.none));
+  // {{mark status}} or {{mark status lowConfidence}}: the last argument of a helper is handlebars' options.
+  hb.registerHelper("mark", (status: Status, ...rest: unknown[]) => {
+    const low = rest.length > 1 && rest[0] === true;
+    return new hb.SafeString(MARKS.get(low ? `${status}-low` : status) ?? MARKS.get("no-stay")!);
+  });
   css = readFileSync(new URL("report.css", TEMPLATE_DIR), "utf8");
   compiled = hb.compile(readFileSync(new URL("report.hbs", TEMPLATE_DIR), "utf8"), {
     strict: true,

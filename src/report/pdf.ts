@@ -7,6 +7,13 @@ import { chromiumAvailable, chromiumPath, launchChromium } from "./browser.js";
 
 export type Paper = "a4" | "letter";
 
+/** The one-line caution repeated in every PDF page footer. */
+export const PDF_FOOTER_CAUTION =
+  "Planning estimates, not maintenance data: service from the approved maintenance data and the manufacturer's instructions.";
+
+/** Footer of every printed page: the caution, then the page number. Constant markup only. */
+export const PDF_FOOTER_TEMPLATE = `<div style="font-size:7px;width:100%;padding:0 12mm;display:flex;justify-content:space-between;color:#555"><span>${PDF_FOOTER_CAUTION}</span><span><span class="pageNumber"></span> / <span class="totalPages"></span></span></div>`;
+
 /**
  * Writes `pdfPath` from `htmlPath`. Never throws for a missing browser: returns `ok: false` with a
  * one-line message, so `coldsoak plan --pdf` can still succeed with the HTML. Every request other than
@@ -40,8 +47,7 @@ export async function writePdf(
       printBackground: true,
       displayHeaderFooter: true,
       headerTemplate: "<span></span>",
-      footerTemplate:
-        '<div style="font-size:8px;width:100%;text-align:center;color:#666"><span class="pageNumber"></span> / <span class="totalPages"></span></div>',
+      footerTemplate: PDF_FOOTER_TEMPLATE,
       margin: { top: "14mm", bottom: "16mm", left: "12mm", right: "12mm" },
     });
     if (pdf.length === 0) return { ok: false, message: "no PDF: the browser returned an empty file" };

@@ -1,9 +1,9 @@
 /**
  * Small pieces shared by the report's sections and by `view.ts`: the context a base's section is
- * built from, the figure counter, table rows, the month status of the fleet summary, and the text
- * helpers for months, years and local times. Reads only the `Results` types.
+ * built from, the figure counter, table rows, the status cells of base-months, and the text helpers
+ * for months, years, intervals and local times. Reads only the `Results` types.
  */
-import type { BaseResult, Results } from "../plan/results.js";
+import type { BaseResult, MonthRow, Results, StatusName } from "../plan/results.js";
 import { pct, showWithUnit, type UnitSystem, unitSystem } from "../units/index.js";
 import type { Chart } from "./charts.js";
 
@@ -13,15 +13,64 @@ export function monthName(month: number): string {
   return MONTHS[month - 1] ?? String(month);
 }
 
-/** Status of one base and month in the fleet summary. */
-export type Status = "act" | "watch" | "ok" | "none";
+/** Status of one base and month, as the results decide it (`MonthRow.status`). */
+export type Status = StatusName;
 
 export const STATUS_LABEL: Record<Status, string> = {
   act: "Act",
   watch: "Watch",
   ok: "OK",
-  none: "No stay",
+  "no-stay": "No stay",
+  "no-data": "No data",
 };
+
+/** One status as a cell shows it: mark (outlined at low confidence), word, years, figure with its interval. */
+export interface StatusCell {
+  status: Status;
+  label: string;
+  /** Outlined mark and "(n yrs)": fewer usable years than the plan's minimum. */
+  lowConfidence: boolean;
+  years: string;
+  /** "part no data" where some stays there have no data. */
+  part: string;
+  /** The figure that set the status with its 90 % interval, or "". */
+  figure: string;
+  title: string;
+}
+
+/** "12.3 % (9.5–15.1)": a share with its 90 % interval ("" without a value). */
+export function pctInterval(v: number | null, lo: number | null, hi: number | null): string {
+  if (v === null) return "";
+  return lo === null || hi === null ? `${pct(v)} %` : `${pct(v)} % (${pct(lo)}–${pct(hi)})`;
+}
+
+/** "9 yrs" / "1 yr". */
+export function yearsShort(n: number): string {
+  return `${n} yr${n === 1 ? "" : "s"}`;
+}
+
+/** The status cell of a base-month. */
+export function statusCell(base: string, m: MonthRow): StatusCell {
+  const label = STATUS_LABEL[m.status];
+  const figure = pctInterval(m.statusPct, m.statusPctLo90, m.statusPctHi90);
+  const why =
+    m.status === "act"
+      ? `: ${m.statusAircraft.join(", ")} short of energy, up to ${figure} of starts (90 % interval)`
+      : m.status === "watch"
+        ? `: ${figure} of first preflights out of band (90 % interval)`
+        : "";
+  const years =
+    m.status === "no-stay" || m.status === "no-data" ? "" : `; ${yearsShort(m.statusYears)} of climate data`;
+  return {
+    status: m.status,
+    label,
+    lowConfidence: m.lowConfidence,
+    years: m.lowConfidence ? `(${yearsShort(m.statusYears)})` : "",
+    part: m.partNoData ? "part no data" : "",
+    figure,
+    title: `${base}, ${monthName(m.month)}: ${label}${why}${years}${m.lowConfidence ? ", low confidence" : ""}${m.partNoData ? "; part no data" : ""}`,
+  };
+}
 
 export interface Figure {
   chart: Chart;
@@ -91,11 +140,40 @@ export function yearsText(years: number[]): string {
   return `${parts.join(", ")} (${sorted.length} year${sorted.length === 1 ? "" : "s"})`;
 }
 
-/** "2016 (61.2 % complete), …": the climate years a base skipped, or "none". */
-export function yearsSkippedText(base: BaseResult): string {
-  return base.yearsSkipped.length === 0
-    ? "none"
-    : base.yearsSkipped.map((y) => `${y.year} (${pct(y.completenessPct)} % complete)`).join(", ");
+/**
+ * The climate years skipped at a base, window by window: "2014: window 2013-11-15 to 2014-02-29
+ * (AC01, AC02) 0.0 % of hours present; …", the stays no year covers with the months they lack and the
+ * files that would hold them; "none" when every year counts for every stay.
+ */
+export function yearsSkippedText(results: Results, base: BaseResult): string {
+  const here = results.stays.filter((s) => s.base === base.name);
+  const parts: string[] = [];
+  const seen = new Map<string, string[]>();
+  for (const s of here) {
+    for (const y of s.yearsSkipped) {
+      const key = `${y.year}: window ${y.fromIso} to ${y.toIso}, ${pct(y.completenessPct)} % of hours present`;
+      const list = seen.get(key) ?? [];
+      if (!list.includes(s.aircraft)) list.push(s.aircraft);
+      seen.set(key, list);
+    }
+  }
+  const sorted = [...seen.entries()].sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+  for (const [key, aircraft] of sorted) parts.push(`${key} (${aircraft.join(", ")})`);
+  for (const s of here) {
+    if (s.noData === null) continue;
+    const files =
+      s.noData.files.length > 0 ? `; files that would hold them: ${filesText(s.noData.files)}` : "";
+    parts.push(
+      `no year covers ${s.aircraft} ${s.arrive} to ${s.depart}: lacks ${s.noData.months.map(monthName).join(", ")}${files}`,
+    );
+  }
+  return parts.length === 0 ? "none" : parts.join("; ");
+}
+
+/** A list of file names, shortened to the first two, "…" and the last when long, with the count. */
+export function filesText(files: string[]): string {
+  if (files.length <= 4) return files.join(", ");
+  return `${files[0]}, ${files[1]}, …, ${files[files.length - 1]} (${files.length} files)`;
 }
 
 /** "2018-12-01T15:00:00-06:00" → "2018-12-01 15:00 (UTC−06:00)"; anything else is shown as given. */

@@ -3,29 +3,21 @@
  * and unit conversion happens in the view; the templates only lay out text (escaped by handlebars) and
  * the chart SVG (rendered by vega from data it escapes itself).
  *
- * This file builds the fleet summary and the report's frame, and fixes the order of each base's
- * sections (`BASE_SECTIONS`). Each section is one builder in `sections/<name>.ts` and one partial in
+ * This file builds the report's frame (the first screen from `sections/glance.ts`, the aircraft
+ * actions from `sections/actions.ts`) and fixes the order of each base's sections (`BASE_SECTIONS`). Each section is one builder in `sections/<name>.ts` and one partial in
  * `templates/partials/<name>.hbs`; `shared.ts` holds what the sections share.
  */
-import type { AdviceRow, BaseResult, MonthRow, Results, StationResult } from "../plan/results.js";
+import type { Results, StationResult } from "../plan/results.js";
 import { pct, shownText, type UnitSystem, unitSystem } from "../units/index.js";
+import { type ActionRowView, actionsSection } from "./sections/actions.js";
 import { climateSection } from "./sections/climate.js";
 import { type CoverageView, coverageSection } from "./sections/coverage.js";
+import { type GlanceView, glanceSection } from "./sections/glance.js";
 import { nitrogenSection } from "./sections/nitrogen.js";
 import { overnightSection } from "./sections/overnight.js";
 import { profileSection } from "./sections/profile.js";
 import { riskSection } from "./sections/risk.js";
-import {
-  type BaseContext,
-  baseAnchor,
-  FigureCounter,
-  MONTHS,
-  monthName,
-  STATUS_LABEL,
-  type Status,
-  yearsSkippedText,
-  yearsText,
-} from "./shared.js";
+import { type BaseContext, baseAnchor, FigureCounter, yearsSkippedText, yearsText } from "./shared.js";
 
 /**
  * The sections of each base, in report order. A section is a builder in `sections/<partial>.ts`
@@ -38,20 +30,6 @@ const BASE_SECTIONS: { partial: string; build: (ctx: BaseContext) => Promise<obj
   { partial: "risk", build: riskSection },
   { partial: "nitrogen", build: nitrogenSection },
 ];
-
-export interface Cell {
-  status: Status;
-  label: string;
-  title: string;
-}
-
-export interface ActionRow {
-  base: string;
-  month: string;
-  status: Status;
-  label: string;
-  text: string;
-}
 
 /** One section of a base: the partial that lays it out and the view it is given. */
 export interface SectionView {
@@ -86,7 +64,10 @@ export interface ReportView {
   seed: string;
   files: { name: string; linkable: boolean }[];
   thresholdText: string;
-  fleet: { months: string[]; rows: { base: string; anchor: string; cells: Cell[] }[]; actions: ActionRow[] };
+  outOfBandThresholdText: string;
+  minYears: string;
+  fleet: GlanceView;
+  actions: ActionRowView[];
   bases: BaseView[];
   methods: { name: string; source: string; description: string }[];
   quantileMethod: string;
@@ -103,100 +84,13 @@ export interface ViewOptions {
   generatedAt: string;
 }
 
-/** Status of a month from its statistics and advice: act, watch, ok, or none (no preflights). */
-export function monthStatus(
-  m: MonthRow | undefined,
-  advice: AdviceRow | undefined,
-  shortPct: number,
-): Status {
-  if (!m || m.preflights === 0) return "none";
-  if (advice?.fitColdStartOption || (m.shortPctOne ?? 0) > shortPct) return "act";
-  if ((m.belowBandPct ?? 0) + (m.aboveBandPct ?? 0) > 0) return "watch";
-  return "ok";
-}
-
-function maxOf(values: (number | null)[]): number | null {
-  const v = values.filter((x): x is number => x !== null);
-  return v.length === 0 ? null : Math.max(...v);
-}
-
-/** The action for a run of months with the same status, quoting the worst month of the run. */
-function actionText(run: MonthRow[], status: Status, shortPct: number): string {
-  const upTo = (v: number | null) => `${run.length > 1 && (v ?? 0) > 0 ? "up to " : ""}${pct(v)} %`;
-  const below = maxOf(run.map((m) => m.belowBandPct));
-  const above = maxOf(run.map((m) => m.aboveBandPct));
-  const outOfBand = (below ?? 0) + (above ?? 0) > 0;
-  const readings = `out-of-band fill readings at the first preflight (${upTo(below)} below band, ${upTo(above)} above)`;
-  if (status === "act") {
-    const one = maxOf(run.map((m) => m.shortPctOne));
-    const two = maxOf(run.map((m) => m.shortPctTwo));
-    let text = `Fit the cold-start option: ${upTo(one)} of starts short of energy with one accumulator, ${upTo(two)} with two.`;
-    if ((two ?? 0) > shortPct)
-      text += ` Still above the ${pct(shortPct)} % threshold with two: plan overnight hangar space or a later first start.`;
-    if (outOfBand) text += ` Also expect ${readings}.`;
-    return text;
-  }
-  return `Expect ${readings}. Allow servicing time and brief technicians on the overnight drop.`;
-}
-
-/** Action rows of one base: consecutive calendar months with the same status share one row. */
-function groupActions(b: BaseResult, shortPct: number): ActionRow[] {
-  const adv = new Map(b.advice.map((a) => [a.month, a]));
-  const byMonth = new Map(b.months.map((m) => [m.month, m]));
-  const rows: ActionRow[] = [];
-  let run: MonthRow[] = [];
-  let runStatus: Status = "none";
-  const flush = () => {
-    if (run.length > 0 && (runStatus === "act" || runStatus === "watch")) {
-      const first = monthName(run[0]!.month);
-      const last = monthName(run[run.length - 1]!.month);
-      rows.push({
-        base: b.name,
-        month: run.length === 1 ? first : `${first}–${last}`,
-        status: runStatus,
-        label: STATUS_LABEL[runStatus],
-        text: actionText(run, runStatus, shortPct),
-      });
-    }
-    run = [];
-  };
-  for (let month = 1; month <= 12; month++) {
-    const m = byMonth.get(month);
-    const status = monthStatus(m, adv.get(month), shortPct);
-    if (status !== runStatus) {
-      flush();
-      runStatus = status;
-    }
-    if (m) run.push(m);
-  }
-  flush();
-  return rows;
-}
-/** Fleet summary grid: one row per base, one cell per calendar month with its status. */
-function fleetRows(results: Results): ReportView["fleet"]["rows"] {
-  const shortPct = results.thresholds.shortPct;
-  return results.bases.map((b, i) => {
-    const byMonth = new Map(b.months.map((m) => [m.month, m]));
-    const adv = new Map(b.advice.map((a) => [a.month, a]));
-    const cells = MONTHS.map((_name, k) => {
-      const status = monthStatus(byMonth.get(k + 1), adv.get(k + 1), shortPct);
-      return {
-        status,
-        label: STATUS_LABEL[status],
-        title: `${b.name}, ${MONTHS[k]}: ${STATUS_LABEL[status]}`,
-      };
-    });
-    return { base: b.name, anchor: baseAnchor(i), cells };
-  });
-}
-
 function stationLabel(s: StationResult): string {
   return s.name ? `${s.id} (${s.name})` : s.id;
 }
 
 /** One base: its header, then its sections in the order of `BASE_SECTIONS`. */
 async function buildBase(ctx: BaseContext): Promise<BaseView> {
-  const { base } = ctx;
+  const { base, results } = ctx;
   const sections: SectionView[] = [];
   for (const { partial, build } of BASE_SECTIONS) sections.push({ partial, view: await build(ctx) });
   return {
@@ -205,7 +99,7 @@ async function buildBase(ctx: BaseContext): Promise<BaseView> {
     timeZone: base.timeZone,
     stationList: base.stations.map(stationLabel).join("; ") || "none",
     yearsUsed: yearsText(base.yearsUsed),
-    yearsSkipped: yearsSkippedText(base),
+    yearsSkipped: yearsSkippedText(results, base),
     sections,
   };
 }
@@ -247,11 +141,10 @@ export async function buildView(results: Results, options: ViewOptions): Promise
     seed: String(results.seed),
     files: files.map((name) => ({ name, linkable: linkable(name) })),
     thresholdText: pct(shortPct),
-    fleet: {
-      months: MONTHS,
-      rows: fleetRows(results),
-      actions: results.bases.flatMap((b) => groupActions(b, shortPct)),
-    },
+    outOfBandThresholdText: pct(results.thresholds.outOfBandPct),
+    minYears: String(results.thresholds.minYears),
+    fleet: glanceSection(results, u),
+    actions: actionsSection(results),
     bases,
     methods: results.methods,
     quantileMethod: results.quantileMethod,

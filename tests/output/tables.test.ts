@@ -29,6 +29,26 @@ describe("CSV text", () => {
   });
 });
 
+describe("CSV text neutralised for spreadsheets", () => {
+  it("prefixes a text cell starting with = + - @ tab or carriage return with an apostrophe", () => {
+    // OWASP, "CSV Injection": cells starting with these characters are read as formulas.
+    const cells = ["=SUM(A1)", "+1", "-40 F", "@cmd", "\tx", "\rx", "ok", "a=b"];
+    const csv = toCsv({ name: "t", columns: cells.map((_c, i) => `c${i}`), rows: [cells] });
+    const [, record] = parse(csv, { relax_quotes: true }) as string[][];
+    expect(record).toEqual(["'=SUM(A1)", "'+1", "'-40 F", "'@cmd", "'\tx", "'\rx", "ok", "a=b"]);
+  });
+
+  it("neutralises hostile text in the aircraft actions", () => {
+    const results = makeResults({ units: "si" });
+    results.actions[0]!.aircraft = "=HYPERLINK(1)";
+    results.actions[0]!.text = "@SUM(1)";
+    const t = resultTables(results).find((x) => x.name === "aircraft_actions")!;
+    const [header, first] = parse(toCsv(t)) as string[][];
+    expect(first![header!.indexOf("aircraft")]).toBe("'=HYPERLINK(1)");
+    expect(first![header!.indexOf("text")]).toBe("'@SUM(1)");
+  });
+});
+
 describe("result tables", () => {
   const results = makeResults({ units: "si", hostile: true });
   const tables = resultTables(results);
@@ -53,6 +73,9 @@ describe("result tables", () => {
     expect(rows("nitrogen_stays")).toBe(perBase((b) => b.nitrogen.stays));
     expect(rows("stations")).toBe(perBase((b) => b.stations));
     expect(rows("stays")).toBe(results.stays.length);
+    expect(rows("aircraft_actions")).toBe(results.actions.length);
+    expect(rows("stay_months")).toBe(results.stays.reduce((n, s) => n + s.months.length, 0));
+    expect(rows("advice")).toBe(perBase((b) => b.advice));
     expect(rows("assumptions")).toBe(results.assumptions.length);
   });
 

@@ -69,25 +69,61 @@ describe("groups of identical stays", () => {
   });
 });
 
-describe("usable climate years", () => {
-  it("skips a year whose window lacks data, says so, and keeps the days by year and group", () => {
+describe("usable climate years, window by window (docs/methods.md §4)", () => {
+  it("skips a year only for the window that lacks data, says which window and the share found", () => {
     const plan = twoProfiles(0);
     const stays = [stay("A1", "2027-01-05", "2027-01-10"), stay("A2", "2027-02-01", "2027-02-03")];
     const warnings: string[] = [];
     const [base] = prepareSamples(plan, stays, climate, [1, 2, 3, 4, 5, 6, 7], warnings);
-    expect(base!.years).toEqual([2014, 2015]);
-    // January 2016 has no value at all: the worst group's share is 0 %.
-    expect(base!.skipped).toEqual([{ year: 2016, completenessPct: 0 }]);
-    expect(warnings).toHaveLength(1);
-    expect(warnings[0]).toMatch(/^base "North Field": climate years skipped .*: 2016 \(0\.0 %\)$/);
-    expect(base!.days).toHaveLength(2);
-    for (const [yi, yearDays] of base!.days.entries()) {
-      expect(yearDays).toHaveLength(2);
+    // January 2016 has no value at all (the climate above): A1's window is skipped on 2016 with 0 %,
+    // while A2's February window of 2016 is complete, so 2016 is still a sample of the base.
+    expect(base!.years).toEqual([2014, 2015, 2016]);
+    expect(base!.skipped).toEqual([]);
+    expect(base!.usable).toEqual([
+      [true, true],
+      [true, true],
+      [false, true],
+    ]);
+    expect(base!.windowSkips).toEqual([
+      [{ year: 2016, fromIso: "2016-01-05", toIso: "2016-01-09", completenessPct: 0 }],
+      [],
+    ]);
+    expect(base!.gaps).toEqual([null, null]);
+    expect(warnings).toEqual([
+      'base "North Field": climate years skipped for the stay window 2027-01-05 to 2027-01-10 (A1) (under 80 % of the window\'s hours present): 2016 (0.0 %)',
+    ]);
+    expect(base!.days).toHaveLength(3);
+    expect(base!.days[2]![0]).toEqual([]); // not simulated where not usable
+    for (const [yi, yearDays] of base!.days.slice(0, 2).entries()) {
       expect(yearDays[0]!.map((d) => d.climateIso)).toEqual(
         [5, 6, 7, 8, 9].map((d) => `${base!.years[yi]}-01-0${d}`),
       );
       expect(yearDays[1]!.map((d) => d.climateIso)).toEqual([1, 2].map((d) => `${base!.years[yi]}-02-0${d}`));
     }
+  });
+
+  it("a window no year covers is listed with the months it lacks and the files that would hold them", () => {
+    const plan = twoProfiles(0);
+    // A3 stays over January only; with climate years 2016 only, January has no value at all.
+    const only2016 = fixturePlan((t: Tree) => {
+      t.operations.weekdays = ALL_DAYS;
+      t.climate.years = { from: 2016, to: 2016 };
+    });
+    const stays = [stay("A3", "2027-01-20", "2027-02-05"), stay("A4", "2027-02-10", "2027-02-12")];
+    const warnings: string[] = [];
+    const [base] = prepareSamples(only2016, stays, climate, [1, 2, 3, 4, 5, 6, 7], warnings);
+    expect(plan.climate.minYearShare).toBe(0.8);
+    expect(base!.years).toEqual([2016]);
+    // A3: 20–31 January missing (12 of 16 days) is 25 % present; the station id is the climate's own
+    // (tests/plan/helpers.ts), the file name pattern USAF-WBAN-YEAR.gz that of NOAA's ISD archive.
+    expect(base!.windowSkips[0]).toEqual([
+      { year: 2016, fromIso: "2016-01-20", toIso: "2016-02-04", completenessPct: 25 },
+    ]);
+    expect(base!.gaps[0]).toEqual({ months: [1], files: ["999999-99999-2016.gz"] });
+    expect(base!.gaps[1]).toBeNull();
+    expect(warnings).toContain(
+      'base "North Field": no usable climate year for the stay window 2027-01-20 to 2027-02-05 (A3): it lacks Jan; files that would hold them: 999999-99999-2016.gz',
+    );
   });
 });
 

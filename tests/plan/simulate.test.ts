@@ -1,19 +1,21 @@
 import { describe, expect, it } from "vitest";
 import { runPlan } from "../../src/plan/engine.js";
 import { PA_PER_PSI } from "../../src/units/index.js";
-import { fixturePlan, HOUR_MS, simulateUtcStay, syntheticClimate, type Tree } from "./helpers.js";
+import {
+  fixturePlan,
+  HOUR_MS,
+  oneLitreUnit,
+  simulateUtcStay,
+  syntheticClimate,
+  type Tree,
+} from "./helpers.js";
 
 const _ATM = 101325;
 
-/** The 1 L unit of the physics tests: 1450 psig at 70 °F, 3000 psig, α 8e-4/K, K 1.5 GPa, 0.2 L line. */
-function oneLitreUnit(t: Tree) {
+/** The 1 L unit of the physics tests (helpers.ts), with a pump that always finishes. */
+function oneLitreUnitFullPump(t: Tree) {
+  oneLitreUnit(t);
   const p = t.profiles[0];
-  p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
-  p.precharge = { reference: "1450 psig @ 70 F", tolerance: "50 psi" };
-  p.system = { low: "2850 psig", nominal: "3000 psig", high: "3150 psig" };
-  p.fluid = { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" };
-  p.thermalTimeConstant = "0 s";
-  p.gasLoss = { rate: "0 psi/month", spread: 0 };
   // A pump that always finishes within its timer, and a requirement far below delivery.
   p.pump = {
     curve: [
@@ -23,8 +25,6 @@ function oneLitreUnit(t: Tree) {
     timer: "10 min",
   };
   p.startEnergy = [{ ambient: "-60 C", energy: "0.1 kJ" }];
-  t.operations.weekdays = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
-  delete t.bases[0].hangar;
 }
 
 describe("simulation physics identities", () => {
@@ -32,7 +32,7 @@ describe("simulation physics identities", () => {
     // Physics identity (docs/methods.md §3): at one temperature with the fluid trapped and no gas loss,
     // the state after each recharge is the same equilibrium, so nothing moves overnight.
     const plan = fixturePlan((t) => {
-      oneLitreUnit(t);
+      oneLitreUnitFullPump(t);
       t.profiles[0].thermalTimeConstant = "2 h";
       t.operations.startTimes = ["06:30", "13:00", "18:00"];
     });
@@ -70,7 +70,7 @@ describe("simulation physics identities", () => {
     // Issue 4 / physics tests: computed independently from the equation of state (Span et al. 2000) and
     // the fluid model of docs/methods.md §3: 2311.6 psig ± 1.
     const plan = fixturePlan((t) => {
-      oneLitreUnit(t);
+      oneLitreUnitFullPump(t);
       t.operations.startTimes = ["07:00", "18:00"];
     });
     const day2 = Date.UTC(2014, 0, 2);
@@ -100,7 +100,7 @@ describe("hangar hours and the accumulator lag", () => {
     // Exact solution of dT/dt = (Ta − T)/τ for a constant ambient: T = Ta + (T0 − Ta)·exp(−t/τ)
     // (first-order linear ODE); τ = 2 h, one hour outside: −20 + 35·e^(−1/2) °C.
     const plan = fixturePlan((t) => {
-      oneLitreUnit(t);
+      oneLitreUnitFullPump(t);
       t.profiles[0].thermalTimeConstant = "2 h";
       t.bases[0].hangar = { temperature: "15 C", in: "18:00", out: "06:00" };
       t.operations.startTimes = ["07:00", "12:00"];

@@ -19,6 +19,15 @@ describe("statistics", () => {
     expect(gumbelMinimumReturnLevel(minima, 10)).toBeCloseTo(m - 1.3046 * s, 3);
     expect(gumbelMinimumReturnLevel([-20], 10)).toBeNull();
   });
+
+  it("Gumbel 1-in-30-year minimum: mean − K30·s with K30 = 2.1887", () => {
+    // Chow, Maidment & Mays (1988), eq. 12.3.6 at T = 30: K_30 = −(√6/π)(0.5772 + ln ln(30/29)) =
+    // 2.1887 (the equation evaluated by hand). The same fit as the 1-in-10-year value.
+    const minima = [-20, -25, -30, -22, -28, -18, -26];
+    const m = minima.reduce((a, b) => a + b, 0) / minima.length;
+    const s = Math.sqrt(minima.reduce((a, b) => a + (b - m) ** 2, 0) / (minima.length - 1));
+    expect(gumbelMinimumReturnLevel(minima, 30)).toBeCloseTo(m - 2.1887 * s, 3);
+  });
 });
 
 describe("seeded random inputs", () => {

@@ -10,8 +10,9 @@ import {
   launchChromium,
 } from "../../src/report/browser.js";
 import { renderReport } from "../../src/report/index.js";
-import { writePdf } from "../../src/report/pdf.js";
+import { PDF_FOOTER_CAUTION, PDF_FOOTER_TEMPLATE, writePdf } from "../../src/report/pdf.js";
 import { makeResults } from "../fixtures/report/results.js";
+import { readPng } from "./png.js";
 
 // Opens the report in the system Chromium (headless, no network). Where no browser exists this
 // skips, saying why; in CI (env CI set) it runs regardless, so a missing browser fails the suite.
@@ -96,6 +97,49 @@ describe.skipIf(SKIP)("report in a real browser", () => {
       `[...document.querySelectorAll("figure.chart svg")].map((e) => e.getBoundingClientRect().width)`,
     )) as number[];
     for (const w of printSizes) expect(w).toBeGreaterThan(100);
+    await v.page.close();
+  });
+
+  it("draws each status mark in its own shape, still distinct in greyscale, and gives every status its word", async () => {
+    // Use of colour (WCAG 2.1, success criterion 1.4.1): a status must not rest on colour alone. Every
+    // distinct mark of the report (five statuses, and the outlined marks of low confidence) is drawn
+    // 80 px wide in greyscale; each pair must differ in at least 5 % of its pixels' ink (threshold
+    // and share: common practice, no source).
+    const html = readFileSync(htmlUs, "utf8");
+    const marks = [...new Set(html.match(/<svg class="mark[^"]*"[^>]*>.*?<\/svg>/g) ?? [])];
+    const classes = marks.map((m) => /<path d="[^"]+" ([^/]+)\/>/.exec(m)![1]!);
+    expect(marks.length).toBeGreaterThanOrEqual(7); // 5 statuses + outlined "act" (legend) + outlined "ok" (fixture October)
+    expect(new Set(classes).size).toBe(marks.length);
+    const page = await launched.browser.newPage();
+    await page.setContent(
+      `<!doctype html><html style="filter: grayscale(1)"><body style="margin:0;background:#fff">${marks
+        .map(
+          (m, i) =>
+            `<div id="m${i}" style="width:80px;height:80px;display:inline-block;margin:4px">${m.replace('class="mark', 'style="width:80px;height:80px" class="mark')}</div>`,
+        )
+        .join("")}</body></html>`,
+    );
+    const inked: boolean[][] = [];
+    for (let i = 0; i < marks.length; i++) {
+      const shot = (await (await page.$(`#m${i}`))!.screenshot({ type: "png" })) as Uint8Array;
+      const px = readPng(shot);
+      inked.push(Array.from(px.luma, (l) => l < 230));
+    }
+    for (let a = 0; a < inked.length; a++) {
+      for (let b = a + 1; b < inked.length; b++) {
+        const differ = inked[a]!.filter((v, k) => v !== inked[b]![k]).length / inked[a]!.length;
+        expect(differ, `${classes[a]} vs ${classes[b]}`).toBeGreaterThanOrEqual(0.05);
+      }
+    }
+    await page.close();
+    // Every status cell of the report shows its word as text, and all five words appear.
+    const v = await visit(launched, htmlUs);
+    const words = (await v.page.evaluate(
+      `[...document.querySelectorAll("td.st")].map((td) => td.querySelector(".st-label")?.innerText ?? "")`,
+    )) as string[];
+    expect(words.length).toBeGreaterThan(24);
+    for (const w of words) expect(w.trim().length).toBeGreaterThan(0);
+    expect(new Set(words)).toEqual(new Set(["Act", "Watch", "OK", "No stay", "No data"]));
     await v.page.close();
   });
 
@@ -192,6 +236,13 @@ describe("PDF without a browser, and pdf command errors", () => {
     } finally {
       spy.mockRestore();
     }
+  });
+
+  it("repeats the one-line caution in every PDF page footer, beside the page number", () => {
+    // The report's caution (README, Limits and cautions): planning estimates, not maintenance data.
+    expect(PDF_FOOTER_CAUTION).toMatch(/^Planning estimates, not maintenance data/);
+    expect(PDF_FOOTER_TEMPLATE).toContain(PDF_FOOTER_CAUTION);
+    expect(PDF_FOOTER_TEMPLATE).toContain('class="pageNumber"');
   });
 
   it("treats a folder or a plain file as no browser", () => {

@@ -92,8 +92,9 @@ describe("report structure", () => {
     const h2 = hs.filter((h) => h.name === "h2").map(text);
     expect(h2).toEqual([
       "Caution: read before use",
-      "Contents",
       "Fleet summary",
+      "Contents",
+      "Aircraft actions",
       ...results.bases.map((b) => `Base ${b.name}`),
       "Methods",
       "Assumptions",
@@ -112,30 +113,57 @@ describe("report structure", () => {
       const cells = elements(inner(tokens, row)).filter((e) => e.name === "td");
       expect(cells).toHaveLength(12);
       for (const c of cells) {
-        expect(text(c)).toMatch(/^(Act|Watch|OK|No stay)$/);
-        expect(elements(inner(tokens, c)).some((e) => e.name === "svg" && e.attrs["class"] === "mark")).toBe(
-          true,
-        );
+        expect(text(c)).toMatch(/^(Act|Watch|OK|No stay|No data)( |$)/);
+        expect(
+          elements(inner(tokens, c)).some((e) => e.name === "svg" && e.attrs["class"]?.startsWith("mark")),
+        ).toBe(true);
       }
     }
-    // Fixture: July has no preflights, so it reads "No stay"; January is cold enough to need the option.
-    expect(text(rows[1]!)).toContain("No stay");
-    expect(text(fleet)).toMatch(/Fit the cold-start option/);
+    // Fixture statuses (tests/fixtures/report/results.ts): July "no-stay", August "no-data", February
+    // "part no data", October of low confidence on 3 years with an outlined mark.
+    const cells = elements(inner(tokens, rows[1]!)).filter((e) => e.name === "td");
+    expect(text(cells[6]!)).toBe("No stay");
+    expect(text(cells[7]!)).toBe("No data");
+    expect(text(cells[1]!)).toContain("part no data");
+    expect(text(cells[9]!)).toContain("(3 yrs)");
+    expect(elements(inner(tokens, cells[9]!)).some((e) => e.attrs["class"] === "mark mark-low")).toBe(true);
+    // An "act" cell carries the share that set it with its interval.
+    expect(text(cells[0]!)).toMatch(/^Act \d+\.\d % \(\d+\.\d–\d+\.\d\)$/);
   });
 
-  it("quotes out-of-band readings in a cold-start action, without 'up to 0.0 %'", () => {
-    const actions = els.find((e) => e.name === "table" && e.attrs["class"]?.includes("actions"))!;
-    const rows = elements(inner(tokens, actions))
+  it("puts the three users' lines on the first screen, each linked to its section", () => {
+    const fleet = els.find((e) => e.attrs["id"] === "fleet")!;
+    const ids = new Set(els.map((e) => e.attrs["id"]));
+    const blocks = elements(inner(tokens, fleet)).filter((e) => e.attrs["class"] === "glance-block");
+    expect(blocks.map((b) => text(elements(inner(tokens, b)).find((e) => e.name === "h3")!))).toEqual([
+      "Engineer: cold-start option by aircraft",
+      "Planner: out-of-band first preflights",
+      "Logistics: nitrogen to ship",
+    ]);
+    for (const b of blocks) {
+      const links = elements(inner(tokens, b)).filter((e) => e.name === "a");
+      expect(links.length).toBeGreaterThan(0);
+      for (const a of links) expect(ids.has(a.attrs["href"]!.slice(1)), a.attrs["href"]).toBe(true);
+    }
+    // Fixture actions: XQ-101 without the option needs it, XQ-202 has it without needing it.
+    expect(text(blocks[0]!)).toContain("Fit the cold-start option: XQ-101 at Northfield before 2027-01-05");
+    expect(text(blocks[0]!)).toContain("Fitted, not needed by this estimate: XQ-202");
+  });
+
+  it("lists one aircraft action per stay, with the caution that it is a planning estimate", () => {
+    const sec = els.find((e) => e.attrs["id"] === "actions")!;
+    expect(text(sec)).toContain("A planning estimate, not an instruction");
+    expect(text(sec)).toContain("fitting or removing equipment follows the approved data");
+    const table = elements(inner(tokens, sec)).find((e) => e.name === "table")!;
+    const rows = elements(inner(tokens, table))
       .filter((e) => e.name === "tr")
       .slice(1)
       .map(text);
-    // Fixture, base 1: January needs the option and also reads below band (belowBandPct > 0).
-    const act = rows.find(
-      (r) => r.startsWith(results.bases[0]!.name) && r.includes("Fit the cold-start option"),
-    );
-    expect(act).toBeDefined();
-    expect(act).toMatch(/Also expect out-of-band fill readings/);
-    for (const r of rows) expect(r).not.toMatch(/up to 0\.0 %/);
+    expect(rows).toHaveLength(results.actions.length);
+    expect(rows[0]).toContain("Fit the option");
+    expect(rows[1]).toContain("Fitted, not needed by this estimate");
+    expect(rows[2]).toContain("No data");
+    expect(rows[2]).toContain("lacks Jan, Feb");
   });
 
   it("names the air around the aircraft in the overnight traces: hangar air where the plan has a hangar", () => {
@@ -167,6 +195,10 @@ describe("report structure", () => {
       expect(subs).toEqual(SECTIONS);
       const t = text(sec);
       expect(t).toContain("One accumulator and two in parallel read alike");
+      // The precharge curves are charts captioned as model estimates, never a printable table.
+      expect(t).toContain("Model estimate — not servicing data.");
+      const precharge = elements(inner(tokens, sec)).find((e) => e.attrs["data-section"] === "precharge")!;
+      expect(elements(inner(tokens, precharge)).filter((e) => e.name === "table")).toEqual([]);
       expect(t).toContain("Typical overnight swing");
       expect(t).toContain("Worst overnight swing");
     }

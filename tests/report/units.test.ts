@@ -95,7 +95,8 @@ describe("report units: the same results in US and SI", () => {
     ] as const) {
       const pressures = list.filter((h) => /pressure|precharge(?! checks)/i.test(h) && !/drop/i.test(h));
       const drops = list.filter((h) => /pressure drop/i.test(h));
-      expect(pressures.length).toBeGreaterThan(3);
+      // The morning pressures of each base (the precharge table is a chart only, not a servicing table).
+      expect(pressures.length).toBeGreaterThan(0);
       expect(drops.length).toBeGreaterThan(0);
       for (const h of pressures) expect(h.endsWith(gauge), h).toBe(true);
       for (const h of drops) expect(h.endsWith(diff), h).toBe(true);

@@ -1,7 +1,8 @@
 /**
  * Report section "Climate summary" of a base (partial `climate`): monthly air temperature chart and
- * table, the daily-swing histogram, and the coldest mornings. Reads `BaseResult.climateMonths`,
- * `dailyRangeHistogram`, `coldestMorningC`, `coldest1in10C` and `coldestMorningByYear`.
+ * table, the daily-swing histogram, and the coldest mornings with the 1-in-10 and 1-in-30-year values
+ * and their 90 % intervals. Reads `BaseResult.climateMonths`, `dailyRangeHistogram`,
+ * `coldestMorningC`, `coldest1in10C`, `coldest1in30C` (with `…Lo90`, `…Hi90`) and `coldestMorningByYear`.
  */
 import type { ClimateMonthRow } from "../../plan/results.js";
 import { show } from "../../units/index.js";
@@ -11,7 +12,7 @@ import { type BaseContext, type Figure, monthName, nullable, type TableRow } fro
 export interface ClimateView {
   figures: Figure[];
   table: TableRow[];
-  coldest: { morning: string; oneIn10: string; byYear: string };
+  coldest: { morning: string; oneIn10: string; oneIn30: string; byYear: string };
 }
 
 export async function climateSection({ base, anchor, u, figs }: BaseContext): Promise<ClimateView> {
@@ -68,6 +69,12 @@ export async function climateSection({ base, anchor, u, figs }: BaseContext): Pr
     );
   }
   const degrees = (tempC: number | null) => (tempC === null ? "–" : `${show(u.temp, tempC)} ${T}`);
+  /** "−47.3 °F (90 % interval −51.2 to −43.0 °F)". */
+  const withInterval = (v: number | null, lo: number | null, hi: number | null) =>
+    v === null || lo === null || hi === null
+      ? degrees(v)
+      : `${degrees(v)} (90 % interval ${show(u.temp, lo)} to ${show(u.temp, hi)} ${T})`;
+  const n = base.coldestMorningByYear.length;
   return {
     figures,
     table: months.map((m) => ({
@@ -82,7 +89,8 @@ export async function climateSection({ base, anchor, u, figs }: BaseContext): Pr
     })),
     coldest: {
       morning: degrees(base.coldestMorningC),
-      oneIn10: degrees(base.coldest1in10C),
+      oneIn10: withInterval(base.coldest1in10C, base.coldest1in10CLo90, base.coldest1in10CHi90),
+      oneIn30: `${withInterval(base.coldest1in30C, base.coldest1in30CLo90, base.coldest1in30CHi90)}${base.coldest1in30C !== null && n < 30 ? `, from ${n} year${n === 1 ? "" : "s"} of minima` : ""}`,
       byYear: base.coldestMorningByYear.map((y) => `${y.year}: ${degrees(y.tempC)}`).join(", ") || "none",
     },
   };

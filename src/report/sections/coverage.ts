@@ -71,6 +71,6 @@ export function coverageSection(results: Results, u: UnitSystem): CoverageView[]
       ],
     })),
     yearsUsed: yearsText(b.yearsUsed),
-    yearsSkipped: yearsSkippedText(b),
+    yearsSkipped: yearsSkippedText(results, b),
   }));
 }

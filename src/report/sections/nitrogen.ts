@@ -6,13 +6,16 @@
 
 import { formatDisplay, show } from "../../units/index.js";
 import type { BaseContext, TableRow } from "../shared.js";
+import { sectionId } from "./glance.js";
 
 export interface NitrogenView {
+  /** Fragment id of the section, linked from the first screen. */
+  id: string;
   totals: TableRow[];
   stays: TableRow[];
 }
 
-export async function nitrogenSection({ base, u }: BaseContext): Promise<NitrogenView> {
+export async function nitrogenSection({ base, u, anchor }: BaseContext): Promise<NitrogenView> {
   const n = base.nitrogen;
   const M = u.mass;
   const G = u.gasVolume;
@@ -24,6 +27,7 @@ export async function nitrogenSection({ base, u }: BaseContext): Promise<Nitroge
   const gas = (kg: number) => show(G, kg);
   const count = (x: number) => formatDisplay(x, 0);
   return {
+    id: sectionId(anchor, "nitrogen"),
     totals: [
       row("Nitrogen mass drawn from cylinders", M.unit, mass(n.kgP50), mass(n.kgP90), mass(n.kgP95)),
       row("Nitrogen at standard conditions", G.unit, gas(n.kgP50), gas(n.kgP90), gas(n.kgP95)),

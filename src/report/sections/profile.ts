@@ -1,19 +1,21 @@
 /**
  * Report section "Precharge line and fill-reading band" of a base (partial `profile`): for each
- * profile flown at the base, the precharge line with its tolerance lines against the ideal gas, the
- * fill-reading band by temperature, and a thinned table of both. Reads `Results.profiles`
+ * profile flown at the base, the precharge line with its tolerance lines against the ideal gas and the
+ * fill-reading band by temperature, as charts captioned as model estimates, never as a printable
+ * servicing table (the numbers are in precharge_line.csv and band.csv). Reads `Results.profiles`
  * (`prechargeLine`, `band`), and `Results.stays` with `BaseResult.nitrogen.stays` to know which
  * profiles the base flies.
  */
 import type { BaseResult, PrechargeRow, ProfileResult, Results } from "../../plan/results.js";
-import { pct, show } from "../../units/index.js";
 import { PALETTE, xyChart } from "../charts.js";
-import type { BaseContext, Figure, TableRow } from "../shared.js";
+import type { BaseContext, Figure } from "../shared.js";
+
+/** Caption ending of every curve that looks like servicing data. */
+const NOT_SERVICING = "Model estimate — not servicing data.";
 
 export interface ProfileView {
   name: string;
   figures: Figure[];
-  table: TableRow[];
 }
 
 export interface ProfileSectionView {
@@ -26,14 +28,6 @@ function profilesForBase(results: Results, base: BaseResult): ProfileResult[] {
   for (const s of base.nitrogen.stays) names.add(s.profile);
   const used = results.profiles.filter((p) => names.has(p.name));
   return used.length > 0 ? used : results.profiles;
-}
-
-/** Rows of a long table thinned to whole multiples of `stepC` (or every k-th row when none fall there). */
-function thinByTemp<T extends { tempC: number }>(rows: T[], stepC: number, maxRows: number): T[] {
-  const onGrid = rows.filter((r) => Math.abs(r.tempC / stepC - Math.round(r.tempC / stepC)) < 1e-9);
-  if (onGrid.length >= 3 && onGrid.length <= maxRows) return onGrid;
-  const k = Math.max(1, Math.ceil(rows.length / maxRows));
-  return rows.filter((_r, i) => i % k === 0 || i === rows.length - 1);
 }
 
 async function profileView(
@@ -82,7 +76,7 @@ async function profileView(
         },
       ],
     }),
-    `Precharge line of profile ${p.name} (piston on the fluid-side stop) with its tolerance lines, real gas against the ideal-gas model, in ${P}.`,
+    `Precharge line of profile ${p.name} (piston on the fluid-side stop) with its tolerance lines, real gas against the ideal-gas model, in ${P}. ${NOT_SERVICING}`,
   );
   const band = figs.next(
     await xyChart({
@@ -116,25 +110,9 @@ async function profileView(
         },
       ],
     }),
-    `Fill-reading band at system pressure for profile ${p.name}. One accumulator and two in parallel read alike (each holds the same gas at the same pressure and temperature), so one band serves both; a second unit changes the start energy, not the reading.`,
+    `Fill-reading band at system pressure for profile ${p.name}. One accumulator and two in parallel read alike (each holds the same gas at the same pressure and temperature), so one band serves both; a second unit changes the start energy, not the reading. ${NOT_SERVICING}`,
   );
-  const bandByTemp = new Map(p.band.map((r) => [r.tempC, r]));
-  const table = thinByTemp(p.prechargeLine, 10, 12).map((r) => {
-    const b = bandByTemp.get(r.tempC);
-    return {
-      cells: [
-        show(u.temp, r.tempC),
-        show(u.pressure, r.prechargeLowKPaGauge),
-        show(u.pressure, r.prechargeKPaGauge),
-        show(u.pressure, r.prechargeHighKPaGauge),
-        show(u.pressure, r.idealPrechargeKPaGauge),
-        b ? pct(b.readingLowPct) : "–",
-        b ? pct(b.readingNominalPct) : "–",
-        b ? pct(b.readingHighPct) : "–",
-      ],
-    };
-  });
-  return { name: p.name, figures: [precharge, band], table };
+  return { name: p.name, figures: [precharge, band] };
 }
 
 export async function profileSection(ctx: BaseContext): Promise<ProfileSectionView> {

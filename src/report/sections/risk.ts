@@ -1,11 +1,12 @@
 /**
  * Report sections "Risk by month", "Out of band by hour of day" and "Cold-start advice" of a base
  * (partial `risk`): fill readings and overnight drop at the first preflight, start energy with one and
- * two accumulators, the risk chart, the out-of-band share by local hour, and the cold-start advice by
- * month. Reads `BaseResult.months`, `outOfBandByHour`, `advice`, `Results.thresholds.shortPct` and the
- * base's hangar assumptions (`Results.assumptions`).
+ * two accumulators, the risk chart, the out-of-band share by local hour, and the status and cold-start
+ * advice by month, every share that drives a status with its 90 % interval and its spread across
+ * climate years. Reads `BaseResult.months` (figures, confidence, status), `outOfBandByHour`, `advice`,
+ * `Results.thresholds` and the base's hangar assumptions (`Results.assumptions`).
  */
-import type { BaseResult, HourRow, MonthRow } from "../../plan/results.js";
+import type { AdviceRow, BaseResult, HourRow, MonthRow } from "../../plan/results.js";
 import { formatDisplay, pct, show, type UnitSystem } from "../../units/index.js";
 import { barChart, PALETTE, xyChart } from "../charts.js";
 import {
@@ -13,24 +14,33 @@ import {
   type Figure,
   hangarText,
   monthName,
-  STATUS_LABEL,
-  type Status,
+  pctInterval,
+  type StatusCell,
+  statusCell,
   type TableRow,
+  yearsShort,
 } from "../shared.js";
+import { sectionId } from "./glance.js";
 
 export interface AdviceView {
   month: string;
-  marginOne: string;
-  marginTwo: string;
-  status: Status;
-  label: string;
+  cell: StatusCell;
+  /** Usable climate years behind the status (the fewest among the stays there). */
+  years: string;
+  toFit: string;
   one: string;
+  oneByYear: string;
   two: string;
-  gain: string;
+  twoByYear: string;
+  outOfBand: string;
+  outOfBandByYear: string;
   text: string;
 }
 
 export interface RiskView {
+  /** Fragment ids of the hours and advice sections, linked from the first screen. */
+  hoursId: string;
+  adviceId: string;
   figure: Figure | null;
   readingTable: TableRow[];
   energyTable: TableRow[];
@@ -54,8 +64,8 @@ function readingRow(m: MonthRow, u: UnitSystem): TableRow {
   return monthRow(
     m,
     m.preflights,
-    pct(m.belowBandPct),
-    pct(m.aboveBandPct),
+    pctInterval(m.belowBandPct, m.belowBandPctLo90, m.belowBandPctHi90) || "–",
+    pctInterval(m.aboveBandPct, m.aboveBandPctLo90, m.aboveBandPctHi90) || "–",
     stats(p(m.morningKPaGaugeP10), p(m.morningKPaGaugeP50), p(m.morningKPaGaugeP90)),
     stats(pct(m.morningReadingPctP10), pct(m.morningReadingPctP50), pct(m.morningReadingPctP90)),
     stats(show(u.tempDelta, m.overnightDropTempMeanC), show(u.tempDelta, m.overnightDropTempP90C)),
@@ -68,8 +78,8 @@ function energyRow(m: MonthRow, u: UnitSystem): TableRow {
   return monthRow(
     m,
     m.starts,
-    pct(m.shortPctOne),
-    pct(m.shortPctTwo),
+    pctInterval(m.shortPctOne, m.shortPctOneLo90, m.shortPctOneHi90) || "–",
+    pctInterval(m.shortPctTwo, m.shortPctTwoLo90, m.shortPctTwoHi90) || "–",
     stats(pct(m.energyMarginOneP10Pct), pct(m.energyMarginOneP50Pct)),
     stats(pct(m.energyMarginTwoP10Pct), pct(m.energyMarginTwoP50Pct)),
     stats(show(u.tempDelta, m.dailyRangeMeanC), show(u.tempDelta, m.dailyRangeP90C)),
@@ -150,46 +160,73 @@ async function hourFigure(
   );
 }
 
-/** Cold-start advice rows by month, with the P10 energy margins of the month beside them. */
-function adviceRows(base: BaseResult, shortPct: number): AdviceView[] {
-  const monthByNumber = new Map(base.months.map((m) => [m.month, m]));
-  return [...base.advice]
+/** "0.0 / 4.1 / 9.8": a share's minimum, median and maximum across climate years. */
+function byYear(min: number | null, median: number | null, max: number | null): string {
+  return min === null ? "–" : stats(pct(min), pct(median), pct(max));
+}
+
+/** Why a month has its status, in words. */
+function statusText(m: MonthRow, advice: AdviceRow | undefined, thresholds: ThresholdsView): string {
+  const part = m.partNoData ? " Some stays here have no climate data; the status comes from the others." : "";
+  switch (m.status) {
+    case "act":
+      return `${m.statusAircraft.join(", ")} short of energy above ${thresholds.short} % in their own configuration${advice?.fitColdStartOption ? `; fit the cold-start option to ${advice.aircraft.join(", ")}` : "; the option is fitted: plan hangar space or a later first start"}.${part}`;
+    case "watch":
+      return `First preflights out of band above ${thresholds.outOfBand} %: allow servicing time and brief technicians on the overnight drop.${part}`;
+    case "ok":
+      return `No action expected.${part}`;
+    case "no-data":
+      return "Aircraft are here, but no usable climate year covers their stays.";
+    default:
+      return "No aircraft here this month.";
+  }
+}
+
+interface ThresholdsView {
+  short: string;
+  outOfBand: string;
+}
+
+/** Status and cold-start advice by month, with each driving share's interval and spread across years. */
+function adviceRows(base: BaseResult, thresholds: ThresholdsView): AdviceView[] {
+  const adviceByMonth = new Map(base.advice.map((a) => [a.month, a]));
+  return [...base.months]
     .sort((a, b) => a.month - b.month)
-    .map((a) => {
-      const m = monthByNumber.get(a.month);
-      const noPreflights = !m || m.preflights === 0;
-      const status: Status = noPreflights ? "none" : a.fitColdStartOption ? "act" : "ok";
-      let text = a.fitColdStartOption ? "Fit the cold-start option." : "One accumulator is enough.";
-      if (a.fitColdStartOption && (a.shortPctTwo ?? 0) > shortPct)
-        text += " Still short with two: plan hangar space or a later first start.";
-      if (noPreflights) text = "No preflights in this month.";
+    .filter((m) => m.status !== "no-stay")
+    .map((m) => {
+      const a = adviceByMonth.get(m.month);
       return {
-        month: monthName(a.month),
-        marginOne: m ? pct(m.energyMarginOneP10Pct) : "–",
-        marginTwo: m ? pct(m.energyMarginTwoP10Pct) : "–",
-        status,
-        label: STATUS_LABEL[status],
-        one: pct(a.shortPctOne),
-        two: pct(a.shortPctTwo),
-        gain: pct(a.improvementPct),
-        text,
+        month: monthName(m.month),
+        cell: statusCell(base.name, m),
+        years: m.status === "no-data" ? "none" : yearsShort(m.statusYears),
+        toFit: a && a.aircraft.length > 0 ? a.aircraft.join(", ") : "–",
+        one: pctInterval(m.shortPctOne, m.shortPctOneLo90, m.shortPctOneHi90) || "–",
+        oneByYear: byYear(m.shortPctOneYearMin, m.shortPctOneYearMedian, m.shortPctOneYearMax),
+        two: pctInterval(m.shortPctTwo, m.shortPctTwoLo90, m.shortPctTwoHi90) || "–",
+        twoByYear: byYear(m.shortPctTwoYearMin, m.shortPctTwoYearMedian, m.shortPctTwoYearMax),
+        outOfBand: pctInterval(m.outOfBandPct, m.outOfBandPctLo90, m.outOfBandPctHi90) || "–",
+        outOfBandByYear: byYear(m.outOfBandPctYearMin, m.outOfBandPctYearMedian, m.outOfBandPctYearMax),
+        text: statusText(m, a, thresholds),
       };
     });
 }
 
 export async function riskSection(ctx: BaseContext): Promise<RiskView> {
-  const { base, u } = ctx;
+  const { base, u, anchor } = ctx;
   const shortPct = ctx.results.thresholds.shortPct;
+  const thresholds = { short: pct(shortPct), outOfBand: pct(ctx.results.thresholds.outOfBandPct) };
   const months = [...base.months].sort((a, b) => a.month - b.month);
   const figure = await riskFigure(ctx, months, shortPct);
   const hours = [...base.outOfBandByHour].sort((a, b) => a.hour - b.hour).filter((h) => h.preflights > 0);
   return {
+    hoursId: sectionId(anchor, "hours"),
+    adviceId: sectionId(anchor, "advice"),
     figure,
     readingTable: months.map((m) => readingRow(m, u)),
     energyTable: months.map((m) => energyRow(m, u)),
     hourFigure: await hourFigure(ctx, hours),
     hourNote:
       hours.length > 0 ? "" : "No preflights with a reading in the years used, so no hourly breakdown.",
-    advice: adviceRows(base, shortPct),
+    advice: adviceRows(base, thresholds),
   };
 }

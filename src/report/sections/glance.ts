@@ -1,0 +1,153 @@
+/**
+ * The report's first screen, "Fleet summary", directly after the caution: the status grid of bases and
+ * local months, then a few lines for each user, each linked to its section — the engineer's aircraft
+ * actions, the planner's months with out-of-band first preflights and their worst hours of day, and the
+ * logistics officer's nitrogen to ship. Reads `BaseResult.months` (status, figures, intervals, worst
+ * hours), `Results.actions`, `Results.thresholds` and `BaseResult.nitrogen`.
+ */
+import type { AircraftAction, Results } from "../../plan/results.js";
+import { formatDisplay, pct, show, type UnitSystem } from "../../units/index.js";
+import { baseAnchor, MONTHS, monthName, pctInterval, type StatusCell, statusCell } from "../shared.js";
+
+export interface GlanceLine {
+  text: string;
+  href: string;
+  link: string;
+}
+
+export interface GlanceView {
+  months: string[];
+  rows: { base: string; anchor: string; cells: StatusCell[] }[];
+  engineer: GlanceLine[];
+  planner: GlanceLine[];
+  logistics: GlanceLine[];
+}
+
+/** Fragment ids of a base's sections the first screen links to. */
+export function sectionId(anchor: string, section: "advice" | "hours" | "nitrogen"): string {
+  return `${anchor}-sec-${section}`;
+}
+
+/** "AC01 at Korrash (needed 2027-12-01 to 2028-03-01)". */
+function needPhrase(a: AircraftAction): string {
+  const until = a.notNeededFrom ?? `departure ${a.depart}`;
+  return `${a.aircraft} at ${a.base} (needed ${a.neededFrom} to ${until})`;
+}
+
+/** The engineer's lines: which aircraft to fit, which have the option and need it or not, and the rest. */
+function engineerLines(actions: AircraftAction[]): GlanceLine[] {
+  const of = (kind: AircraftAction["action"]) => actions.filter((a) => a.action === kind);
+  const line = (text: string): GlanceLine => ({ text, href: "#actions", link: "Aircraft actions" });
+  const out: GlanceLine[] = [];
+  const fit = of("fit");
+  if (fit.length > 0)
+    out.push(
+      line(
+        `Fit the cold-start option: ${fit.map((a) => `${a.aircraft} at ${a.base} before ${a.arrive} (needed ${a.neededFrom} to ${a.notNeededFrom ?? `departure ${a.depart}`}${a.stillShortWithOption ? "; still short with it" : ""})`).join("; ")}.`,
+      ),
+    );
+  const stillShort = of("fitted-still-short");
+  if (stillShort.length > 0)
+    out.push(
+      line(
+        `Option fitted but still short (hangar or later first start): ${stillShort.map((a) => `${a.aircraft} at ${a.base} ${a.arrive} to ${a.depart}`).join("; ")}.`,
+      ),
+    );
+  const needed = of("fitted-needed");
+  if (needed.length > 0) out.push(line(`Fitted, needed: ${needed.map(needPhrase).join("; ")}.`));
+  const notNeeded = of("fitted-not-needed");
+  if (notNeeded.length > 0)
+    out.push(
+      line(
+        `Fitted, not needed by this estimate: ${notNeeded.map((a) => `${a.aircraft} at ${a.base} ${a.arrive} to ${a.depart}`).join("; ")}.`,
+      ),
+    );
+  const noData = of("no-data");
+  if (noData.length > 0)
+    out.push(
+      line(
+        `No data for: ${noData.map((a) => `${a.aircraft} at ${a.base} ${a.arrive} to ${a.depart}`).join("; ")}.`,
+      ),
+    );
+  const keep = of("keep").length;
+  if (keep > 0)
+    out.push(line(`Keep as is: ${keep} stay${keep === 1 ? "" : "s"} without the option that need none.`));
+  return out;
+}
+
+/** "06, 07, 05 h (local)". */
+function hoursText(hours: number[]): string {
+  return `${hours.map((h) => String(h).padStart(2, "0")).join(", ")} h local`;
+}
+
+/** The planner's lines: per base, the months above the out-of-band threshold and their worst hours of day. */
+function plannerLines(results: Results): GlanceLine[] {
+  const limit = results.thresholds.outOfBandPct;
+  const out: GlanceLine[] = [];
+  for (const [i, b] of results.bases.entries()) {
+    const months = b.months.filter((m) => (m.outOfBandPct ?? 0) > limit);
+    if (months.length === 0) continue;
+    const items = months.map(
+      (m) =>
+        `${monthName(m.month)} ${pctInterval(m.outOfBandPct, m.outOfBandPctLo90, m.outOfBandPctHi90)}${m.outOfBandWorstHours.length > 0 ? `, worst at ${hoursText(m.outOfBandWorstHours)}` : ""}`,
+    );
+    out.push({
+      text: `${b.name}: first preflights out of band in ${items.join("; ")} — allow servicing time and brief technicians on the overnight drop.`,
+      href: `#${sectionId(baseAnchor(i), "hours")}`,
+      link: `${b.name}, out of band by hour`,
+    });
+  }
+  if (out.length === 0)
+    out.push({
+      text: `No base and month has more than ${pct(limit)} % of first preflights out of band.`,
+      href: "#fleet",
+      link: "Status grid",
+    });
+  return out;
+}
+
+/** The logistics line: nitrogen and cylinders to ship with every base stocked at its own P95. */
+function logisticsLines(results: Results, u: UnitSystem): GlanceLine[] {
+  const bases = results.bases;
+  const kg = bases.reduce((n, b) => n + b.nitrogen.kgP95, 0);
+  const cylinders = bases.reduce((n, b) => n + b.nitrogen.cylindersP95, 0);
+  const carts = bases.reduce((n, b) => n + b.nitrogen.cartsP95, 0);
+  const each = bases.map((b) => `${b.name} ${show(u.mass, b.nitrogen.kgP95)}`).join(", ");
+  return [
+    {
+      text: `Nitrogen to ship, each base at its own P95 (a sum over bases, not a fleet quantile): ${show(u.mass, kg)} ${u.mass.unit} (${each} ${u.mass.unit}), ${formatDisplay(cylinders, 0)} cylinder${cylinders === 1 ? "" : "s"} on ${formatDisplay(carts, 0)} cart${carts === 1 ? "" : "s"}.`,
+      href: bases.length > 0 ? `#${sectionId(baseAnchor(0), "nitrogen")}` : "#tables",
+      link: "Nitrogen by base",
+    },
+  ];
+}
+
+export function glanceSection(results: Results, u: UnitSystem): GlanceView {
+  return {
+    months: MONTHS,
+    rows: results.bases.map((b, i) => {
+      const byMonth = new Map(b.months.map((m) => [m.month, m]));
+      return {
+        base: b.name,
+        anchor: baseAnchor(i),
+        cells: MONTHS.map((_n, k) => {
+          const m = byMonth.get(k + 1);
+          return m
+            ? statusCell(b.name, m)
+            : {
+                status: "no-stay" as const,
+                label: "No stay",
+                lowConfidence: false,
+                years: "",
+                part: "",
+                figure: "",
+                title: `${b.name}, ${MONTHS[k]}: No stay`,
+              };
+        }),
+      };
+    }),
+    engineer: engineerLines(results.actions),
+    planner: plannerLines(results),
+    logistics: logisticsLines(results, u),
+  };
+}
