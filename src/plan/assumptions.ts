@@ -155,6 +155,49 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
   add(["nitrogen", "hoseVolume"], "Hose volume vented per disconnect", "volume", n.hoseVolume);
   add(["nitrogen", "cylindersPerCart"], "Cylinders per cart", "count", n.cylindersPerCart);
   add(
+    ["nitrogen", "unscheduledRechargesPerAircraftMonth"],
+    "Unscheduled full recharges (Poisson rate)",
+    "number",
+    n.unscheduledRechargesPerAircraftMonth,
+    { unit: "per aircraft-month" },
+  );
+  if (n.otherUse) {
+    add(
+      ["nitrogen", "otherUse", "amount"],
+      "Other uses of the carts, per aircraft",
+      "mass",
+      n.otherUse.amount,
+    );
+    add(["nitrogen", "otherUse", "per"], "Other uses: amount per", "text", n.otherUse.per);
+  } else {
+    add(["nitrogen", "otherUse"], "Other uses of the carts", "text", "none");
+  }
+  const stock = n.stock;
+  if (stock) {
+    for (const [key, label, kind, unit] of [
+      ["cylinders", "Stock: full cylinders shipped", "count", ""],
+      ["resupplyEvery", "Stock: topped up every", "duration", undefined],
+    ] as const) {
+      const v = stock[key];
+      if (v === undefined) continue;
+      if (typeof v === "number") {
+        add(["nitrogen", "stock", key], `${label} (every base)`, kind, v, unit === undefined ? {} : { unit });
+        continue;
+      }
+      for (const [base, x] of Object.entries(v)) {
+        add(
+          ["nitrogen", "stock", key, base],
+          `${label} at ${base}`,
+          kind,
+          x,
+          unit === undefined ? {} : { unit },
+        );
+      }
+    }
+  } else {
+    add(["nitrogen", "stock"], "Stock of cylinders per base", "text", "none");
+  }
+  add(
     ["thresholds", "shortStartsPct"],
     "Share of starts short that calls for the option",
     "percent",

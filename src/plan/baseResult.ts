@@ -41,6 +41,6 @@ export function aggregateBase(
     coldest1in10C: statistics.coldest1in10C,
     advice: statistics.advice,
     traces: overnightTraces(sim, base, outcomes),
-    nitrogen: baseNitrogen(plan, sim.model, base, outcomes, warnings),
+    nitrogen: baseNitrogen(sim, base, outcomes, warnings),
   };
 }

@@ -1,4 +1,4 @@
-/** The methods the report lists (docs/methods.md §3; docs/methods.md §5), each with its published source or where it is defined. */
+/** The methods the report lists (docs/methods.md §3, §5, §7), each with its published source or where it is defined. */
 import type { MethodNote } from "./results.js";
 import { QUANTILE_METHOD } from "./stats.js";
 
@@ -66,10 +66,23 @@ export const METHODS: MethodNote[] = [
       "Gumbel distribution fitted by the method of moments to the negated annual minima of the first-preflight ambient temperature (one value per climate year the stays map onto); needs two or more years. With n years of record the coldest observed morning is itself roughly a 1-in-n-year value, so the fitted 1-in-10-year value may lie a little above or below it.",
   },
   {
+    name: "Nitrogen demand",
+    source:
+      "coldsoak demand model (docs/methods.md §7); Poisson counts by inversion, Devroye (1986) Non-Uniform Random Variate Generation, ch. X",
+    description:
+      "Servicing by the operations policy as simulated; unscheduled full recharges, a seeded Poisson count per stay (rate per aircraft-month × the stay's months, days uniform over the stay), each one accumulator from vented (local atmosphere) to the precharge line at the day's site temperature; other uses of the carts per aircraft per flown day or week. The two added items are built from the stays' days and the climate, outside the hour-by-hour simulation. Site temperature: the day's mean outdoor temperature. Samples: climate years × 20 draws of the seeded events (1 without unscheduled recharges).",
+  },
+  {
     name: "Nitrogen cylinders",
     source: "Cascade transfer between cylinders and accumulator, isothermal (Span et al. 2000 for the gas)",
     description:
-      "Per base and climate year the servicings of all stays draw, in time order, from one pool of cylinders, lowest pressure first, isothermal at the site temperature; a new full cylinder is opened when the pool cannot reach the target; the hose is vented at each disconnect. Quantiles are over climate years.",
+      "Per base and sample the demand events of all stays draw, in time order, from one pool of cylinders, lowest pressure first, isothermal at the site temperature; a new full cylinder is opened when the pool cannot meet an event; the hose is vented at each disconnect; other uses draw down to the spent pressure. A cylinder is spent below the lowest precharge target plus the transfer differential; usable gas = fill − residual at that pressure. Drawn from cylinders = added to accumulators + vented from hoses + given to other uses; gas released from accumulators is shown apart. Quantiles are over the samples.",
+  },
+  {
+    name: "Nitrogen stock and fleet",
+    source: "coldsoak stock and roll-up rules (docs/methods.md §7)",
+    description:
+      "Stock line: cylinders shipped × usable gas per cylinder at the day's site temperature; the stock runs out at P90 on the first day the P90 demand since the last top-up exceeds it. Fleet demand: quantiles of the fleet total per climate year and draw, all bases on one real-time mapping onto the climate years; fleet cylinders and carts: sums of the bases' own counts.",
   },
   {
     name: "Climate years",

@@ -12,6 +12,7 @@ import { pct, shownText, type UnitSystem, unitSystem } from "../units/index.js";
 import { climateSection } from "./sections/climate.js";
 import { type CoverageView, coverageSection } from "./sections/coverage.js";
 import { nitrogenSection } from "./sections/nitrogen.js";
+import { type NitrogenFleetView, nitrogenFleetSection } from "./sections/nitrogenFleet.js";
 import { overnightSection } from "./sections/overnight.js";
 import { profileSection } from "./sections/profile.js";
 import { riskSection } from "./sections/risk.js";
@@ -87,6 +88,8 @@ export interface ReportView {
   files: { name: string; linkable: boolean }[];
   thresholdText: string;
   fleet: { months: string[]; rows: { base: string; anchor: string; cells: Cell[] }[]; actions: ActionRow[] };
+  /** The fleet's nitrogen roll-up, its own part near the top (partial `nitrogenFleet`). */
+  nitrogenFleet: NitrogenFleetView;
   bases: BaseView[];
   methods: { name: string; source: string; description: string }[];
   quantileMethod: string;
@@ -252,6 +255,7 @@ export async function buildView(results: Results, options: ViewOptions): Promise
       rows: fleetRows(results),
       actions: results.bases.flatMap((b) => groupActions(b, shortPct)),
     },
+    nitrogenFleet: nitrogenFleetSection(results, u),
     bases,
     methods: results.methods,
     quantileMethod: results.quantileMethod,

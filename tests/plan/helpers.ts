@@ -10,7 +10,37 @@ import { type ProfileContext, profileContext } from "../../src/plan/context.js";
 import { buildDays } from "../../src/plan/days.js";
 import type { BaseClimate } from "../../src/plan/engine.js";
 import { type Plan, parsePlanText } from "../../src/plan/planFile.js";
+import type { Stay } from "../../src/plan/schedule.js";
 import { type SimOutcome, simulateStayYear } from "../../src/plan/simulate.js";
+
+const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
+
+/** A stay at the fixture's base "North Field" with its profile "standard", no option (or as `extra` says). */
+export function stayAt(aircraft: string, arrive: string, depart: string, extra: Partial<Stay> = {}): Stay {
+  return {
+    aircraft,
+    base: "North Field",
+    arrive,
+    depart,
+    coldStartOption: false,
+    profile: "standard",
+    line: 2,
+    ...extra,
+  };
+}
+
+/** The 1 L unit of the physics tests (1450 psig at 70 °F, 3000 psig, α 8e-4/K, K 1.5 GPa, 0.2 L line), lag 0, no gas loss, every day flown, no hangar. */
+export function oneLitreUnit(t: Tree) {
+  const p = t.profiles[0];
+  p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
+  p.precharge = { reference: "1450 psig @ 70 F", tolerance: "50 psi" };
+  p.system = { low: "2850 psig", nominal: "3000 psig", high: "3150 psig" };
+  p.fluid = { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" };
+  p.thermalTimeConstant = "0 s";
+  p.gasLoss = { rate: "0 psi/month", spread: 0 };
+  t.operations.weekdays = ALL_DAYS;
+  delete t.bases[0].hangar;
+}
 
 /** Standard sea-level atmosphere, Pa (ISO 2533). */
 export const ATM_PA = 101325;
