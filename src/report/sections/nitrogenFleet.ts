@@ -78,7 +78,7 @@ export function nitrogenFleetSection(results: Results, u: UnitSystem): NitrogenF
   const years = f.climateYears.length;
   return {
     intro:
-      `Gas drawn from the cylinders, over ${years} climate year${years === 1 ? "" : "s"} × ${f.draws} draw${f.draws === 1 ? "" : "s"} of the seeded events. ` +
+      `Gas drawn from the cylinders, over ${years} climate year${years === 1 ? "" : "s"}${f.draws > 1 ? ` × ${f.draws} draws of the seeded events` : ""}. ` +
       "Fleet demand is the quantile of the fleet total in each sample, not the sum of the bases' quantiles; " +
       "fleet cylinders and carts are the sum of each base's own count, since stock cannot move between bases.",
     ship: [...bases.map((b) => shipRow(b.name, b.n)), shipRow(fleetName, f)],
