@@ -45,6 +45,15 @@ export function resupplyText(days: number | null): string {
   return days === null ? "never" : `every ${formatDisplay(days, Number.isInteger(days) ? 0 : 1)} d`;
 }
 
+/** "3 full cylinders, topped up every 28 d", "1 full cylinder, not topped up", or "none stated". */
+function stockShippedText(stock: NitrogenStock): string {
+  if (stock.cylinders === null) return "none stated";
+  const n = `${stock.cylinders} full cylinder${stock.cylinders === 1 ? "" : "s"}`;
+  return stock.resupplyEveryDays === null
+    ? `${n}, not topped up`
+    : `${n}, topped up ${resupplyText(stock.resupplyEveryDays)}`;
+}
+
 export interface NitrogenView {
   totals: TableRow[];
   flows: TableRow[];
@@ -99,7 +108,7 @@ async function timelineFigure(ctx: BaseContext): Promise<Figure | null> {
   ];
   if (n.stock.cylinders !== null) {
     lines.push({
-      name: `usable gas of ${n.stock.cylinders} cylinders`,
+      name: `usable gas of the stock (${n.stock.cylinders} cylinder${n.stock.cylinders === 1 ? "" : "s"})`,
       color: PALETTE.vermillion,
       dash: [2, 2],
       points: n.timeline.map((d) => ({ x: d.date, y: M.convert(d.stockUsableKg ?? 0) })),
@@ -175,7 +184,7 @@ export async function nitrogenSection(ctx: BaseContext): Promise<NitrogenView> {
       ],
     })),
     timeline: await timelineFigure(ctx),
-    stockText: `Stock: ${n.stock.cylinders === null ? "none stated" : `${n.stock.cylinders} full cylinders, topped up ${resupplyText(n.stock.resupplyEveryDays)}`}; ${stockStatusText(n.stock)}.`,
+    stockText: `Stock: ${stockShippedText(n.stock)}; ${stockStatusText(n.stock)}.`,
     stays: n.stays.map((s) => ({
       cells: [
         s.aircraft,
