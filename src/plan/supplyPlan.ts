@@ -106,6 +106,8 @@ export interface CascadeSample {
   drawnMolByDay: Float64Array;
   /** Events no full cylinder could meet (fill pressure too low for the target and differential). */
   unreachable: number;
+  /** Gas left in the cylinders opened, mol (what they gave = opened × a full cylinder − this). */
+  gasLeftMol: number;
 }
 
 /** Replays a sample's events, in the order given, through one pool of cylinders. */
@@ -125,6 +127,7 @@ export function cascadeSample(
     otherUseMol: new Float64Array(nStays),
     drawnMolByDay: new Float64Array(nDays),
     unreachable: 0,
+    gasLeftMol: 0,
   };
   for (const e of events) {
     let drawn = 0;
@@ -144,6 +147,7 @@ export function cascadeSample(
   }
   out.cylindersOpened = pool.opened;
   out.unreachable = pool.unreachable;
+  out.gasLeftMol = pool.cylinders.reduce((a, c) => a + c.amountMol, 0);
   return out;
 }
 

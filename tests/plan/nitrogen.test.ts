@@ -7,14 +7,14 @@ import { describe, expect, it } from "vitest";
 import { resultsJson } from "../../src/output/tables.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { N2_MOLAR_MASS_KG_MOL, realGas } from "../../src/physics/nitrogen.js";
-import { cylinderGas } from "../../src/physics/supply.js";
+import { cylinderGas, fullCylinder } from "../../src/physics/supply.js";
 import { prechargeLineAbsPa, profileContext } from "../../src/plan/context.js";
 import { runPlan } from "../../src/plan/engine.js";
-import { EVENT_DRAWS } from "../../src/plan/nitrogenDemand.js";
+import { EVENT_DRAWS, type SupplyEvent } from "../../src/plan/nitrogenDemand.js";
 import { nitrogenFleet } from "../../src/plan/nitrogenFleet.js";
 import type { BaseResult, NitrogenBase, NitrogenFlows } from "../../src/plan/results.js";
 import type { Stay } from "../../src/plan/schedule.js";
-import { supplySpec } from "../../src/plan/supplyPlan.js";
+import { cascadeSample, supplySpec } from "../../src/plan/supplyPlan.js";
 import { fixturePlan, oneLitreUnit, stayAt, syntheticClimate, type Tree } from "./helpers.js";
 
 const ATM = 101325;
@@ -51,6 +51,59 @@ function demandFigures(n: NitrogenBase) {
   const { stock: _s, timeline, usableGas: _u, ...rest } = n;
   return { ...rest, timeline: timeline.map(({ stockUsableKg: _k, ...d }) => d) };
 }
+
+describe("one vocabulary for the flows (docs/methods.md §7)", () => {
+  it("what the cylinders give is what the stays' accumulators, hoses and other uses receive, per stay", () => {
+    // Conservation of gas (no outside source): opened cylinders × a full one − the gas left in them =
+    // Σ over stays (added by servicing + added by unscheduled recharges + hose vented + other uses),
+    // and the same sum by day. Events of two stays at 0 °C on a 1 L gas side, fixture cylinders.
+    const plan = fixturePlan(oneLitreUnit);
+    const model = tabulatedGas(realGas);
+    const ctx = profileContext(plan.profiles[0]!, model, ATM, false);
+    const t = 273.15;
+    const fill = (stay: number, realDay: number, cause: "servicing" | "unscheduled", fromMol: number) => ({
+      cause,
+      realDay,
+      utcMs: realDay * 86_400_000,
+      stay,
+      tempK: t,
+      v0M3: 0.001,
+      fromMol,
+      toMol: ctx.nominalMol,
+      units: cause === "servicing" ? 2 : 1,
+    });
+    const floorAbsPa = prechargeLineAbsPa(ctx, t) + plan.nitrogen.transferDifferential;
+    const events: SupplyEvent[] = [
+      fill(0, 0, "servicing", 0.97 * ctx.nominalMol),
+      fill(1, 1, "unscheduled", model.densityMolM3(ATM, t) * 0.001),
+      {
+        cause: "otherUse",
+        realDay: 1,
+        utcMs: 1.5 * 86_400_000,
+        stay: 0,
+        tempK: t,
+        amountMol: 40,
+        floorAbsPa,
+      },
+      fill(1, 2, "unscheduled", model.densityMolM3(ATM, t) * 0.001),
+      { cause: "otherUse", realDay: 3, utcMs: 3 * 86_400_000, stay: 1, tempK: t, amountMol: 90, floorAbsPa },
+    ];
+    const c = cascadeSample(model, supplySpec(plan), events, 2, 4);
+    expect(c.cylindersOpened).toBeGreaterThan(1);
+    const given = c.cylindersOpened * fullCylinder(model, supplySpec(plan)).amountMol - c.gasLeftMol;
+    let received = 0;
+    for (const si of [0, 1]) {
+      received += c.addedServicingMol[si]! + c.addedUnscheduledMol[si]! + c.hoseMol[si]! + c.otherUseMol[si]!;
+    }
+    expect(received).toBeCloseTo(given, 9);
+    expect(c.drawnMolByDay.reduce((a, b) => a + b, 0)).toBeCloseTo(given, 9);
+    expect(c.otherUseMol[0]).toBeCloseTo(40, 9);
+    expect(c.otherUseMol[1]).toBeCloseTo(90, 9);
+    expect(c.addedServicingMol[1]).toBe(0);
+    expect(c.addedUnscheduledMol[0]).toBe(0);
+    expect(c.hoseMol[0]! > 0 && c.hoseMol[1]! > 0).toBe(true);
+  });
+});
 
 describe("the demand items at zero (docs/methods.md §7)", () => {
   it("leave every existing nitrogen figure as it is without them", () => {
