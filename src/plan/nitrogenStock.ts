@@ -14,7 +14,7 @@ import { type BaseCalendar, isoOfDay, lowestTargetAbsPa } from "./nitrogenDemand
 import { forBase, type Plan } from "./planFile.js";
 import type { CylinderGasRow, NitrogenDay, NitrogenStock } from "./results.js";
 import type { BaseSamples } from "./samples.js";
-import { quantile } from "./stats.js";
+import { quantileOfSorted } from "./stats.js";
 
 /** Usable gas of one full cylinder at tempK at the base, kg. */
 function usableKg(model: GasModel, spec: SupplySpec, contexts: ProfileContext[], tempK: number): number {
@@ -75,11 +75,12 @@ export function usableGasRows(
 function dailyQuantiles(values: Float64Array[], nDays: number): { p50: number[]; p90: number[] } {
   const p50: number[] = [];
   const p90: number[] = [];
-  const column = new Array<number>(values.length);
+  const column = new Float64Array(values.length);
   for (let d = 0; d < nDays; d++) {
     for (let s = 0; s < values.length; s++) column[s] = values[s]![d]!;
-    p50.push(quantile(column, 0.5) ?? 0);
-    p90.push(quantile(column, 0.9) ?? 0);
+    column.sort();
+    p50.push(quantileOfSorted(column, 0.5) ?? 0);
+    p90.push(quantileOfSorted(column, 0.9) ?? 0);
   }
   return { p50, p90 };
 }
