@@ -175,23 +175,18 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
   const stock = n.stock;
   if (stock) {
     for (const [key, label, kind, unit] of [
-      ["cylinders", "Stock: full cylinders shipped", "count", ""],
-      ["resupplyEvery", "Stock: topped up every", "duration", undefined],
+      ["cylinders", "full cylinders shipped", "count", ""],
+      ["resupplyEvery", "top-up interval", "duration", undefined],
     ] as const) {
       const v = stock[key];
       if (v === undefined) continue;
+      const more = unit === undefined ? {} : { unit };
       if (typeof v === "number") {
-        add(["nitrogen", "stock", key], `${label} (every base)`, kind, v, unit === undefined ? {} : { unit });
+        add(["nitrogen", "stock", key], `Stock at each base: ${label}`, kind, v, more);
         continue;
       }
       for (const [base, x] of Object.entries(v)) {
-        add(
-          ["nitrogen", "stock", key, base],
-          `${label} at ${base}`,
-          kind,
-          x,
-          unit === undefined ? {} : { unit },
-        );
+        add(["nitrogen", "stock", key, base], `Stock at ${base}: ${label}`, kind, x, more);
       }
     }
   } else {
