@@ -7,8 +7,7 @@
  *   precharge line at the day's site temperature, one accumulator each;
  * - other uses of the same carts (struts, tyres), per aircraft, per flown day or per week.
  * The two new items are built here from the stays' days and the climate, not inside the hour-by-hour
- * simulation: neither changes what the simulation computes (docs/methods.md §7 says why that is
- * enough). Also the base's calendar of real days and each day's site temperature, the day's mean
+ * simulation, and do not feed back into it (docs/methods.md §7 says why that is enough). Also the base's calendar of real days and each day's site temperature, the day's mean
  * outdoor temperature.
  */
 

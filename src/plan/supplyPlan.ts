@@ -17,7 +17,7 @@ import {
   type SupplySpec,
 } from "../physics/supply.js";
 import { N2_NORMAL_DENSITY_KG_M3, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
-import { absPa } from "./context.js";
+import { absPa, type ProfileContext } from "./context.js";
 import {
   type BaseCalendar,
   baseCalendar,
@@ -235,10 +235,10 @@ function replaySamples(
   outcomes: BaseOutcomes,
   cal: BaseCalendar,
   draws: number,
+  contexts: ProfileContext[],
 ): Replay {
   const { plan, model } = sim;
   const spec = supplySpec(plan);
-  const contexts = groupContexts(sim, base);
   const nStays = base.stays.length;
   const r: Replay = {
     perStay: base.stays.map(emptyColumns),
@@ -332,7 +332,8 @@ export function baseNitrogen(
   const { plan } = sim;
   const draws = eventDraws(plan);
   const cal = baseCalendar(base);
-  const r = replaySamples(sim, base, outcomes, cal, draws);
+  const contexts = groupContexts(sim, base);
+  const r = replaySamples(sim, base, outcomes, cal, draws, contexts);
   if (r.unreachable > 0) {
     warnings.push(
       `base "${plan.bases[base.baseIndex]!.name}": ${r.unreachable} servicings or other uses could not be met from a full cylinder (fill pressure too low for the target and the transfer differential)`,
@@ -342,7 +343,6 @@ export function baseNitrogen(
   const cylindersSorted = sortedCopy(t.cylinders);
   const cylinders = (p: number) => Math.ceil(quantile(cylindersSorted, p) ?? 0);
   const carts = (n: number) => Math.ceil(n / plan.nitrogen.cylindersPerCart);
-  const contexts = groupContexts(sim, base);
   const spec = supplySpec(plan);
   const normal = (kg: number) => kg / N2_NORMAL_DENSITY_KG_M3;
   return {
