@@ -102,6 +102,14 @@ nitrogen:
   transferDifferential: "50 psi"         # a cylinder gives gas while above the accumulator by this much
   hoseVolume: "10 in3"                   # vented at each disconnect
   cylindersPerCart: 2
+  # Demand beyond the servicing policy (each optional; remove the "# " to use an example):
+  # unscheduledRechargesPerAircraftMonth: 0.03   # full recharges after accumulator, valve or seal work
+  #                                              # (seeded Poisson events; default 0)
+  # otherUse: { amount: "3 scf", per: week }     # other uses of the same carts (struts, tyres) per
+  #                                              # aircraft: a mass or normal volume per flown-day or week
+  # stock: { cylinders: 4, resupplyEvery: "4 weeks" }   # full cylinders shipped to each base, topped
+  #                                              # back up at an interval (optional); per base as
+  #                                              # cylinders: { Home Base: 6, Forward Base: 4 }
 
 thresholds: { shortStartsPct: 1, outOfBandPct: 2 }   # % of starts short that calls for the option; % of first preflights out of band that calls for a watch
 `;

@@ -58,11 +58,17 @@ export function summaryText(r: Results): string {
     const cold = showWithUnit(u.temp, b.coldestMorningC);
     const cold10 = showWithUnit(u.temp, b.coldest1in10C);
     const n2 = b.nitrogen;
+    const stockOut =
+      n2.stock.stockOutP90 === null ? "" : `; stock runs out at P90 on ${n2.stock.stockOutP90}`;
     lines.push(
-      `  ${b.name}: coldest preflight ${cold} (1-in-10-year ${cold10}); nitrogen P95 ${showWithUnit(u.mass, n2.kgP95)}, ${formatDisplay(n2.cylindersP95, 0)} cylinder(s), ${formatDisplay(n2.cartsP95, 0)} cart(s)`,
+      `  ${b.name}: coldest preflight ${cold} (1-in-10-year ${cold10}); nitrogen P95 ${showWithUnit(u.mass, n2.kgP95)}, ${formatDisplay(n2.cylindersP95, 0)} cylinder(s), ${formatDisplay(n2.cartsP95, 0)} cart(s)${stockOut}`,
     );
     lines.push(...(items.length > 0 ? items : ["    no month needs action"]));
   }
+  const f = r.nitrogenFleet;
+  lines.push(
+    `  Fleet nitrogen: P90 ${showWithUnit(u.mass, f.kgP90)} drawn (quantile of the fleet total); ${formatDisplay(f.cylindersP90, 0)} cylinder(s), ${formatDisplay(f.cartsP90, 0)} cart(s) at P90 (sum of the bases' own counts)`,
+  );
   return lines.join("\n");
 }
 
@@ -185,10 +191,11 @@ export function registerPlan(program: Command): void {
       "after",
       `
 Output (in <out>/<plan name>/, replaced only after a successful run):
-  results.json   everything the report shows (°C, kPa gauge, kg, %; no wall-clock time)
+  results.json   everything the report shows (°C, kPa gauge, kg, normal m³, %; no wall-clock time)
   *.csv          one table each: bases, months, advice, out_of_band_by_hour, coldest_mornings,
-                 climate_months, daily_range_histogram, nitrogen_stays, traces, stations,
-                 precharge_line, band, stays, stay_months, aircraft_actions, assumptions
+                 climate_months, daily_range_histogram, nitrogen_stays, nitrogen_fleet,
+                 nitrogen_timeline, nitrogen_cylinder_gas, traces, stations, precharge_line, band,
+                 stays, stay_months, aircraft_actions, assumptions
   report.html    the self-contained planning report
 
 Schedule CSV: aircraft,base,arrive,depart[,cold_start_option][,profile]

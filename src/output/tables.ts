@@ -1,8 +1,8 @@
 /**
  * The files written beside the report from the results alone: the `results.json` text and the CSV
  * tables, one CSV per table, named after the table. Every column is declared once, with its header and
- * how to read its value. Units are fixed like the JSON: °C, kPa gauge, kg, %; column names carry their
- * unit. Empty cells mean "no value" (a month without preflights). Quoting follows RFC 4180.
+ * how to read its value. Units are fixed like the JSON: °C, kPa gauge, kg, normal m³, %; column names
+ * carry their unit. Empty cells mean "no value" (a month without preflights). Quoting follows RFC 4180.
  *
  * Like `report/`, this folder reads only the `Results` types of `plan/results.ts`: cli → output →
  * plan/results (types), never the engine, the climate or the physics code.
@@ -11,6 +11,9 @@ import type {
   AircraftAction,
   BaseResult,
   MonthConfidence,
+  NitrogenBase,
+  NitrogenFleet,
+  NitrogenFlows,
   ProfileResult,
   Results,
   StayResult,
@@ -86,6 +89,38 @@ function stayColumns<T>(
   ];
 }
 
+/** The flows of the one nitrogen vocabulary, in order, as columns `<flow>_kg_mean`. */
+const FLOWS: [keyof NitrogenFlows, string][] = [
+  ["drawn", "drawn"],
+  ["added", "added"],
+  ["addedServicing", "added_servicing"],
+  ["addedUnscheduled", "added_unscheduled"],
+  ["hoseVented", "hose_vented"],
+  ["otherUse", "other_use"],
+  ["released", "released"],
+];
+
+function flowColumns<T>(flows: (row: T) => NitrogenFlows): Column<T>[] {
+  return FLOWS.map(([key, name]) => [`${name}_kg_mean`, (row: T) => flows(row)[key]]);
+}
+
+/** One row of nitrogen_fleet.csv: a base, or the fleet (its cylinders and carts sum the bases'). */
+interface FleetRow {
+  scope: "base" | "fleet";
+  base: string | null;
+  n: NitrogenBase | NitrogenFleet;
+  stock: NitrogenBase["stock"] | null;
+}
+
+function nitrogenFleetRows(r: Results): FleetRow[] {
+  return [
+    ...r.bases.map(
+      (b): FleetRow => ({ scope: "base", base: b.name, n: b.nitrogen, stock: b.nitrogen.stock }),
+    ),
+    { scope: "fleet", base: null, n: r.nitrogenFleet, stock: null },
+  ];
+}
+
 /** Every table of the results, in a fixed order. */
 export function resultTables(r: Results): Table[] {
   const baseName: Column<{ b: BaseResult }> = ["base", ({ b }) => b.name];
@@ -118,7 +153,8 @@ export function resultTables(r: Results): Table[] {
       ["cylinders_p95", (b) => b.nitrogen.cylindersP95],
       ["carts_p95", (b) => b.nitrogen.cartsP95],
       ["nitrogen_kg_added_p50", (b) => b.nitrogen.kgAddedP50],
-      ["nitrogen_kg_vented_p50", (b) => b.nitrogen.kgVentedP50],
+      ["nitrogen_kg_hose_vented_p50", (b) => b.nitrogen.kgHoseVentedP50],
+      ["nitrogen_kg_released_p50", (b) => b.nitrogen.kgReleasedP50],
       ["servicing_events_p50", (b) => b.nitrogen.servicingEventsP50],
       ["carts_p50", (b) => b.nitrogen.cartsP50],
       ["carts_p90", (b) => b.nitrogen.cartsP90],
@@ -239,10 +275,64 @@ export function resultTables(r: Results): Table[] {
         ["precharge_checks_p50", ({ x }) => x.prechargeChecksP50],
         ["hand_pump_strokes_p50", ({ x }) => x.handPumpStrokesP50],
         ["kg_added_p50", ({ x }) => x.kgAddedP50],
-        ["kg_vented_p50", ({ x }) => x.kgVentedP50],
+        ["kg_hose_vented_p50", ({ x }) => x.kgHoseVentedP50],
+        ["kg_released_p50", ({ x }) => x.kgReleasedP50],
         ["kg_p50", ({ x }) => x.kgP50],
         ["kg_p90", ({ x }) => x.kgP90],
         ["kg_p95", ({ x }) => x.kgP95],
+        ["unscheduled_recharges_mean", ({ x }) => x.unscheduledRechargesMean],
+        ...flowColumns<{ x: BaseResult["nitrogen"]["stays"][number] }>(({ x }) => x.meanKg),
+      ],
+    ),
+    table("nitrogen_fleet", nitrogenFleetRows(r), [
+      ["scope", (x) => x.scope],
+      ["base", (x) => x.base],
+      ["drawn_kg_p50", (x) => x.n.kgP50],
+      ["drawn_kg_p90", (x) => x.n.kgP90],
+      ["drawn_kg_p95", (x) => x.n.kgP95],
+      ["drawn_normal_m3_p50", (x) => x.n.normalM3P50],
+      ["drawn_normal_m3_p90", (x) => x.n.normalM3P90],
+      ["drawn_normal_m3_p95", (x) => x.n.normalM3P95],
+      ["cylinders_p50", (x) => x.n.cylindersP50],
+      ["cylinders_p90", (x) => x.n.cylindersP90],
+      ["cylinders_p95", (x) => x.n.cylindersP95],
+      ["carts_p50", (x) => x.n.cartsP50],
+      ["carts_p90", (x) => x.n.cartsP90],
+      ["carts_p95", (x) => x.n.cartsP95],
+      ["unscheduled_recharges_mean", (x) => x.n.unscheduledRechargesMean],
+      ...flowColumns<FleetRow>((x) => x.n.meanKg),
+      ["stock_cylinders", (x) => x.stock?.cylinders ?? null],
+      ["resupply_every_d", (x) => x.stock?.resupplyEveryDays ?? null],
+      ["stock_usable_kg_at_mean", (x) => x.stock?.usableKgAtMean ?? null],
+      ["stock_out_p90", (x) => x.stock?.stockOutP90 ?? null],
+    ]),
+    table(
+      "nitrogen_timeline",
+      perBase(r, (b) => b.nitrogen.timeline),
+      [
+        baseName,
+        ["date", ({ x }) => x.date],
+        ["site_temp_c", ({ x }) => x.siteTempC],
+        ["drawn_kg_p50", ({ x }) => x.drawnKgP50],
+        ["drawn_kg_p90", ({ x }) => x.drawnKgP90],
+        ["since_resupply_kg_p50", ({ x }) => x.sinceResupplyKgP50],
+        ["since_resupply_kg_p90", ({ x }) => x.sinceResupplyKgP90],
+        ["stock_usable_kg", ({ x }) => x.stockUsableKg],
+      ],
+    ),
+    table(
+      "nitrogen_cylinder_gas",
+      perBase(r, (b) => b.nitrogen.usableGas),
+      [
+        baseName,
+        ["at", ({ x }) => x.at],
+        ["temp_c", ({ x }) => x.tempC],
+        ["full_kpa_gauge", ({ x }) => x.fullKPaGauge],
+        ["residual_kpa_gauge", ({ x }) => x.residualKPaGauge],
+        ["full_kg", ({ x }) => x.fullKg],
+        ["residual_kg", ({ x }) => x.residualKg],
+        ["usable_kg", ({ x }) => x.usableKg],
+        ["usable_pct", ({ x }) => x.usablePct],
       ],
     ),
     table("traces", traces, [

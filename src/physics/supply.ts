@@ -3,7 +3,9 @@
  * the site temperature. A servicing draws from the cylinders in order of increasing pressure (a
  * cascade): a cylinder gives gas while its pressure exceeds the accumulator's gas pressure plus the
  * transfer differential; the next higher cylinder finishes. The charging hose is vented at disconnect:
- * loss = hose volume × gas density at the final transfer pressure.
+ * loss = hose volume × gas density at the final transfer pressure. Other uses of the same cylinders
+ * draw a stated amount down to the spent pressure; a cylinder's usable gas is its fill less what is
+ * left when it is spent.
  */
 import { InputError } from "../errors.js";
 import type { GasModel } from "./nitrogen.js";
@@ -168,9 +170,66 @@ export function isCylinderSpent(
   return cylinderPressureAbsPa(model, cyl, tempK) < lowestTargetAbsPa + differentialPa;
 }
 
+/** The gas of one full cylinder at a site temperature: what it holds, what stays in it, what it gives. */
+export interface CylinderGas {
+  /** Gas of a full cylinder (filled at the fill pressure and temperature), mol. */
+  fullMol: number;
+  /** Pressure of the full cylinder at the site temperature, Pa absolute. */
+  fullAbsPa: number;
+  /** Pressure at which it is spent: lowest target + transfer differential, Pa absolute. */
+  residualAbsPa: number;
+  /** Gas left in it when spent, ρ(residual pressure, T) × water volume, mol (at most the full amount). */
+  residualMol: number;
+  /** Usable gas = full − residual, mol (0 when the cylinder starts spent). */
+  usableMol: number;
+}
+
+/**
+ * Full, residual and usable gas of one cylinder at a site temperature (isothermal transfers, the
+ * cylinder at the site temperature). A cylinder is spent once its pressure is below the lowest precharge
+ * target it will be asked to raise plus the transfer differential (`isCylinderSpent`); the gas left
+ * then is the residual, ρ(lowest target + differential, T)·V_water, and the rest of the fill is usable.
+ * A cylinder filled warm holds the same gas in the cold at a lower pressure, so it gives less before it
+ * is spent unless the target falls with the temperature too.
+ *
+ * @param model gas model (the reference equation of state)
+ * @param spec cylinder specification: water volume m³, fill Pa absolute at fillTempK K, differential Pa
+ * @param lowestTargetAbsPa lowest precharge target at this temperature, Pa absolute
+ * @param tempK site temperature, K
+ * @returns full, residual and usable gas, mol, with the full and residual pressures, Pa absolute
+ *
+ * References: Span et al. (2000) for ρ(P, T); docs/methods.md §7 (spent cylinder, usable gas).
+ *
+ * @example
+ * // 49.9 L filled to 2640 psig at 70 °F, target 1450 psig, differential 50 psi, at 70 °F:
+ * // full ≈ 358.6 mol (10.05 kg), residual ≈ 212.4 mol (5.95 kg), usable ≈ 146.2 mol (4.10 kg)
+ * cylinderGas(realGas, spec, 1450 * PA_PER_PSI + 101325, fToK(70));
+ */
+export function cylinderGas(
+  model: GasModel,
+  spec: SupplySpec,
+  lowestTargetAbsPa: number,
+  tempK: number,
+): CylinderGas {
+  const full = fullCylinder(model, spec);
+  if (!(lowestTargetAbsPa > 0)) fail("lowestTargetAbsPa", `${lowestTargetAbsPa} Pa must be above 0`);
+  const residualAbsPa = lowestTargetAbsPa + spec.transferDifferentialPa;
+  const residualMol = Math.min(
+    full.amountMol,
+    model.densityMolM3(residualAbsPa, tempK) * spec.cylinderWaterVolumeM3,
+  );
+  return {
+    fullMol: full.amountMol,
+    fullAbsPa: cylinderPressureAbsPa(model, full, tempK),
+    residualAbsPa,
+    residualMol,
+    usableMol: full.amountMol - residualMol,
+  };
+}
+
 /**
  * Usable gas of one full cylinder at tempK: fill amount minus the amount left when it becomes spent,
- * ρ(lowest target + differential, T) × water volume.
+ * ρ(lowest target + differential, T) × water volume (`cylinderGas`).
  */
 export function usableMolPerCylinder(
   model: GasModel,
@@ -178,11 +237,59 @@ export function usableMolPerCylinder(
   lowestTargetAbsPa: number,
   tempK: number,
 ): number {
-  const full = fullCylinder(model, spec);
-  if (!(lowestTargetAbsPa > 0)) fail("lowestTargetAbsPa", `${lowestTargetAbsPa} Pa must be above 0`);
-  const spentMol =
-    model.densityMolM3(lowestTargetAbsPa + spec.transferDifferentialPa, tempK) * spec.cylinderWaterVolumeM3;
-  return Math.max(0, full.amountMol - spentMol);
+  return cylinderGas(model, spec, lowestTargetAbsPa, tempK).usableMol;
+}
+
+export interface DrawResult {
+  /** Cylinders after the draw (same order as given; the input is not changed). */
+  cylinders: Cylinder[];
+  /** Gas taken from the cylinders, mol. */
+  drawnMol: number;
+  reachedAmount: boolean;
+}
+
+/**
+ * A draw of a given amount of gas for another use of the same cylinders (a strut, a tyre): taken from
+ * the cylinders in order of increasing pressure, each down to no lower than `floorAbsPa` (the pressure
+ * at which it is spent for accumulator servicing), isothermal at tempK. The amount is what the user
+ * states the other use takes, its own losses included, so no hose vent is added.
+ *
+ * @param model gas model
+ * @param cylinders the pool (not changed)
+ * @param amountMol gas the use takes, mol
+ * @param floorAbsPa pressure below which a cylinder gives nothing, Pa absolute
+ * @param tempK site temperature, K
+ * @returns the pool after the draw, the gas drawn (mol) and whether the whole amount was drawn
+ *
+ * References: mass balance; docs/methods.md §7 (other uses).
+ *
+ * @example
+ * // 0.5 mol from a pool whose lowest cylinder holds 0.3 mol above the floor: 0.3 from it, 0.2 from the next
+ * drawFromCylinders(realGas, pool, 0.5, floorAbsPa, 288.15);
+ */
+export function drawFromCylinders(
+  model: GasModel,
+  cylinders: Cylinder[],
+  amountMol: number,
+  floorAbsPa: number,
+  tempK: number,
+): DrawResult {
+  if (!(amountMol >= 0 && Number.isFinite(amountMol))) fail("amountMol", `${amountMol} mol must be ≥ 0`);
+  if (!(floorAbsPa > 0)) fail("floorAbsPa", `${floorAbsPa} Pa must be above 0`);
+  const out = cylinders.map((c) => ({ ...c }));
+  const order = out
+    .map((c, i) => ({ i, p: cylinderPressureAbsPa(model, c, tempK) }))
+    .sort((a, b) => a.p - b.p || a.i - b.i);
+  const floorMolM3 = model.densityMolM3(floorAbsPa, tempK);
+  let left = amountMol;
+  for (const { i } of order) {
+    if (left <= 0) break;
+    const cyl = out[i]!;
+    const x = Math.min(left, Math.max(0, cyl.amountMol - floorMolM3 * cyl.waterVolumeM3));
+    cyl.amountMol -= x;
+    left -= x;
+  }
+  return { cylinders: out, drawnMol: amountMol - left, reachedAmount: left <= amountMol * 1e-12 };
 }
 
 /** Cylinders needed for a gas demand (mol): ⌈demand / usable gas per cylinder⌉. */

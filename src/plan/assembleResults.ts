@@ -3,7 +3,7 @@
  * profiles' precharge lines and reading bands at the standard atmosphere, the stays, assumptions,
  * methods, the random inputs drawn from the seed, and the warnings of the run.
  */
-import { ZERO_CELSIUS_K as K0, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
+import { ZERO_CELSIUS_K as K0, S_PER_MONTH, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
 import { TOOL_VERSION } from "../version.js";
 import { assumptionsOf } from "./assumptions.js";
 import { bandCurves } from "./bandCurves.js";
@@ -11,11 +11,14 @@ import type { AggregatedBase } from "./baseResult.js";
 import { BOOTSTRAP_RESAMPLES } from "./bootstrap.js";
 import type { StayFigures } from "./confidence.js";
 import { METHODS } from "./methods.js";
+import { EVENT_DRAWS } from "./nitrogenDemand.js";
+import { nitrogenFleet } from "./nitrogenFleet.js";
 import type { Plan } from "./planFile.js";
-import type { AircraftAction, ProfileResult, Results } from "./results.js";
+import type { AircraftAction, BaseResult, ProfileResult, Results } from "./results.js";
 import { type BaseSamples, gasLossDraws } from "./samples.js";
 import type { Stay } from "./schedule.js";
 import { QUANTILE_METHOD } from "./stats.js";
+import { eventDraws } from "./supplyPlan.js";
 
 const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
 
@@ -51,8 +54,29 @@ function profileCurves(plan: Plan): ProfileResult[] {
   });
 }
 
+/** The unscheduled full recharges drawn from the seed, in words: rate, draws, counts drawn against expected. */
+function unscheduledText(plan: Plan, stays: Stay[], bases: BaseResult[]): string {
+  const rate = plan.nitrogen.unscheduledRechargesPerAircraftMonth;
+  const months = stays.reduce(
+    (a, s) => a + (Date.parse(s.depart) - Date.parse(s.arrive)) / S_PER_MONTH / 1000,
+    0,
+  );
+  const drawn = bases.reduce((a, b) => a + b.nitrogen.unscheduledRechargesMean, 0);
+  return (
+    `Poisson count per stay of mean ${rate} per aircraft-month × the stay's months (a month = 365.2425/12 days), ` +
+    `each on a day drawn uniformly from the stay's days; ${EVENT_DRAWS} draws per climate year, each stay, climate year and draw ` +
+    `with its own SplitMix32 stream keyed by base, aircraft, arrival date, climate year and draw; counts by inversion (Devroye 1986). ` +
+    `Mean count drawn over the samples, all stays: ${drawn.toFixed(2)} (expected ${(rate * months).toFixed(2)} over ${months.toFixed(1)} aircraft-months).`
+  );
+}
+
 /** What was drawn from the seed, said in words for the report's back matter. */
-function randomInputs(plan: Plan, stays: Stay[], weekdays: number[]): Results["randomInputs"] {
+function randomInputs(
+  plan: Plan,
+  stays: Stay[],
+  weekdays: number[],
+  bases: BaseResult[],
+): Results["randomInputs"] {
   const drawn = gasLossDraws(plan, stays)
     .map((d) => `${d.aircraft} / ${d.profile} × ${d.factor.toFixed(3)}`)
     .join("; ");
@@ -73,6 +97,9 @@ function randomInputs(plan: Plan, stays: Stay[], weekdays: number[]): Results["r
       name: "weekdays flown",
       description: `${plan.operations.weekdays} of 7 weekdays drawn from the seed (Fisher–Yates shuffle): ${weekdays.map((d) => WEEKDAY_NAMES[d - 1]).join(", ")}`,
     });
+  }
+  if (plan.nitrogen.unscheduledRechargesPerAircraftMonth > 0) {
+    out.push({ name: "unscheduled full recharges", description: unscheduledText(plan, stays, bases) });
   }
   return out;
 }
@@ -113,6 +140,7 @@ export function assembleResults(
     },
     profiles: profileCurves(plan),
     bases,
+    nitrogenFleet: nitrogenFleet(bases, eventDraws(plan)),
     stays: stays.map((s, i) => ({
       aircraft: s.aircraft,
       base: s.base,
@@ -125,7 +153,7 @@ export function assembleResults(
     actions: own.map((o) => o.action),
     assumptions: assumptionsOf(plan, weekdays),
     methods: METHODS,
-    randomInputs: randomInputs(plan, stays, weekdays),
+    randomInputs: randomInputs(plan, stays, weekdays, bases),
     warnings,
   };
 }

@@ -155,6 +155,44 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
   add(["nitrogen", "hoseVolume"], "Hose volume vented per disconnect", "volume", n.hoseVolume);
   add(["nitrogen", "cylindersPerCart"], "Cylinders per cart", "count", n.cylindersPerCart);
   add(
+    ["nitrogen", "unscheduledRechargesPerAircraftMonth"],
+    "Unscheduled full recharges (Poisson rate)",
+    "number",
+    n.unscheduledRechargesPerAircraftMonth,
+    { unit: "per aircraft-month" },
+  );
+  if (n.otherUse) {
+    add(
+      ["nitrogen", "otherUse", "amount"],
+      "Other uses of the carts, per aircraft",
+      "mass",
+      n.otherUse.amount,
+    );
+    add(["nitrogen", "otherUse", "per"], "Other uses: amount per", "text", n.otherUse.per);
+  } else {
+    add(["nitrogen", "otherUse"], "Other uses of the carts", "text", "none");
+  }
+  const stock = n.stock;
+  if (stock) {
+    for (const [key, label, kind, unit] of [
+      ["cylinders", "full cylinders shipped", "count", ""],
+      ["resupplyEvery", "top-up interval", "duration", undefined],
+    ] as const) {
+      const v = stock[key];
+      if (v === undefined) continue;
+      const more = unit === undefined ? {} : { unit };
+      if (typeof v === "number") {
+        add(["nitrogen", "stock", key], `Stock at each base: ${label}`, kind, v, more);
+        continue;
+      }
+      for (const [base, x] of Object.entries(v)) {
+        add(["nitrogen", "stock", key, base], `Stock at ${base}: ${label}`, kind, x, more);
+      }
+    }
+  } else {
+    add(["nitrogen", "stock"], "Stock of cylinders per base", "text", "none");
+  }
+  add(
     ["thresholds", "shortStartsPct"],
     "Share of starts short that calls for the option",
     "percent",

@@ -57,7 +57,7 @@ function nitrogenOf(sim: Simulator, base: BaseSamples, outcomes: BaseOutcomes, w
       `base "${sim.plan.bases[base.baseIndex]!.name}": nitrogen from the ${n.base.years.length} climate year${n.base.years.length === 1 ? " that covers" : "s that cover"} every stay with data (${n.base.stays.length} of ${base.stays.length} stays)`,
     );
   }
-  return baseNitrogen(sim.plan, sim.model, n.base, n.outcomes, warnings);
+  return baseNitrogen(sim, n.base, n.outcomes, warnings);
 }
 
 /** A base's results with the figures and actions of its stays, in the order of the base's stays. */

@@ -1,4 +1,4 @@
-/** The methods the report lists (docs/methods.md §3; docs/methods.md §5), each with its published source or where it is defined. */
+/** The methods the report lists (docs/methods.md §3, §5, §7), each with its published source or where it is defined. */
 import type { MethodNote } from "./results.js";
 import { QUANTILE_METHOD } from "./stats.js";
 
@@ -79,10 +79,23 @@ export const METHODS: MethodNote[] = [
       "A base-month is judged from the aircraft there, each with its own configuration: act when one without the cold-start option has more than the short-start threshold of its starts short with one accumulator, or one with the option still has with two; else watch when more than the out-of-band threshold of first preflights read below or above the band; else OK. No stay: no aircraft there; no data: aircraft there but no usable climate year covers their stay (a month with both says “part no data” and is judged from the covered stays); low confidence: fewer usable years than climate.minYears (the fewest among the stays there). Each stay gets an action from its own months: fit the option before arrival (needed from the first day of the first month above the threshold with one accumulator; not needed from the first day of the month after the last), fitted and needed, fitted and not needed, fitted but still short (hangar or a later first start), keep as is, or no data. Planning estimates, never instructions: fitting or removing equipment follows the approved data.",
   },
   {
+    name: "Nitrogen demand",
+    source:
+      "coldsoak demand model (docs/methods.md §7); Poisson counts by inversion, Devroye (1986) Non-Uniform Random Variate Generation, ch. X",
+    description:
+      "Servicing by the operations policy as simulated; unscheduled full recharges, a seeded Poisson count per stay (rate per aircraft-month × the stay's months, days uniform over the stay), each one accumulator from vented (local atmosphere) to the precharge line at the day's site temperature; other uses of the carts per aircraft per flown day or week. The two added items are built from the stays' days and the climate, outside the hour-by-hour simulation. Site temperature: the day's mean outdoor temperature. Samples: climate years × 20 draws of the seeded events (1 without unscheduled recharges).",
+  },
+  {
     name: "Nitrogen cylinders",
     source: "Cascade transfer between cylinders and accumulator, isothermal (Span et al. 2000 for the gas)",
     description:
-      "Per base and climate year the servicings of all stays draw, in time order, from one pool of cylinders, lowest pressure first, isothermal at the site temperature; a new full cylinder is opened when the pool cannot reach the target; the hose is vented at each disconnect. Quantiles are over climate years.",
+      "Per base and sample the demand events of all stays draw, in time order, from one pool of cylinders, lowest pressure first, isothermal at the site temperature; a new full cylinder is opened when the pool cannot meet an event; the hose is vented at each disconnect; other uses draw down to the spent pressure. A cylinder is spent below the lowest precharge target plus the transfer differential; usable gas = fill − residual at that pressure. Drawn from cylinders = added to accumulators + vented from hoses + given to other uses; gas released from accumulators is shown apart. Quantiles are over the samples.",
+  },
+  {
+    name: "Nitrogen stock and fleet",
+    source: "coldsoak stock and roll-up rules (docs/methods.md §7)",
+    description:
+      "Stock line: cylinders shipped × usable gas per cylinder at the day's site temperature; the stock runs out at P90 on the first day the P90 demand since the last top-up exceeds it. Fleet demand: quantiles of the fleet total per climate year and draw, all bases on one real-time mapping onto the climate years; fleet cylinders and carts: sums of the bases' own counts.",
   },
   {
     name: "Climate years",

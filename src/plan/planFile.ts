@@ -9,6 +9,7 @@ import {
   parseEnergyJ,
   parseExpansionPerK,
   parseFlowM3S,
+  parseGasAmountKg,
   parsePointPressure,
   parsePressureAt,
   parsePressureDifference,
@@ -17,6 +18,7 @@ import {
   parseTimeS,
   parseVolumeM3,
   QuantityError,
+  S_PER_DAY,
   S_PER_MONTH,
   STANDARD_ATMOSPHERE_PA,
 } from "../units/index.js";
@@ -199,11 +201,56 @@ const operationsSchema = z.strictObject({
   outOfBand: z.enum(["log", "adjust-precharge"]).default("log"),
 });
 
+/** A value for every base, or a mapping of base names to values (a base not named has none). */
+export type PerBase<T> = T | Record<string, T>;
+
+/** The value of a `PerBase` setting for one base; undefined where a mapping does not name it. */
+export function forBase<T>(value: PerBase<T> | undefined, base: string): T | undefined {
+  if (value === undefined || value === null) return undefined;
+  if (typeof value === "object" && !Array.isArray(value)) return (value as Record<string, T>)[base];
+  return value as T;
+}
+
+/**
+ * One value for every base, or a mapping of base names to values; the names are checked against the
+ * plan's bases below. Issues keep their path (the base name's key included).
+ */
+function perBase<T extends z.ZodType>(schema: T, expected: string) {
+  const byName = z.record(z.string(), schema);
+  return z.unknown().transform((v, ctx): PerBase<z.output<T>> => {
+    const mapping = typeof v === "object" && v !== null && !Array.isArray(v);
+    const r = (mapping ? byName : schema).safeParse(v);
+    if (r.success) return r.data as PerBase<z.output<T>>;
+    for (const issue of r.error.issues) {
+      const message = issue.code === "invalid_type" ? `expected ${expected}` : describeIssue(issue);
+      ctx.addIssue({ code: "custom", message, path: issue.path.filter((p) => typeof p !== "symbol") });
+    }
+    return z.NEVER;
+  });
+}
+
+const stockCylinders = perBase(
+  z.number().int().min(0),
+  "a whole number of full cylinders, or base names with their numbers",
+);
+const resupplyInterval = perBase(
+  q(parseTimeS).refine((s) => s >= S_PER_DAY, { message: "expected an interval of at least one day" }),
+  'a duration such as "4 weeks", or base names with their durations',
+);
+
+/**
+ * Nitrogen supply and demand (docs/methods.md §7): the cylinders and cascade, and the demand beyond the
+ * servicing policy — unscheduled full recharges (Poisson, per aircraft-month), other uses of the same
+ * carts per aircraft, and the stock shipped per base. Every demand item is optional (default none).
+ */
 const nitrogenSchema = z.strictObject({
   cylinder: z.strictObject({ waterVolume: positive(q(parseVolumeM3), "waterVolume"), fill: pressureAt }),
   transferDifferential: q(parsePressureDifference),
   hoseVolume: q(parseVolumeM3),
   cylindersPerCart: z.number().int().min(1),
+  unscheduledRechargesPerAircraftMonth: z.number().min(0).max(30).default(0),
+  otherUse: z.strictObject({ amount: q(parseGasAmountKg), per: z.enum(["flown-day", "week"]) }).optional(),
+  stock: z.strictObject({ cylinders: stockCylinders, resupplyEvery: resupplyInterval.optional() }).optional(),
 });
 
 export const planSchema = z
@@ -257,6 +304,20 @@ export const planSchema = z
     };
     seen(p.bases, "bases");
     seen(p.profiles, "profiles");
+    const baseNames = new Set(p.bases.map((b) => b.name));
+    const stock = p.nitrogen.stock;
+    for (const key of ["cylinders", "resupplyEvery"] as const) {
+      const v = stock?.[key];
+      if (typeof v !== "object" || v === null) continue;
+      for (const name of Object.keys(v)) {
+        if (baseNames.has(name)) continue;
+        ctx.addIssue({
+          code: "custom",
+          path: ["nitrogen", "stock", key, name],
+          message: `unknown base "${name}"; expected one of the plan's bases: ${[...baseNames].join(", ")}`,
+        });
+      }
+    }
   });
 
 export type PlanInput = z.output<typeof planSchema>;

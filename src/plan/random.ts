@@ -1,12 +1,18 @@
 /**
  * The plan's random inputs, all drawn from its seed (docs/methods.md §5): the gas-loss rate of each
- * aircraft and, when `operations.weekdays` is a count, which weekdays are flown. Each draw has its own
- * stream keyed by a label (FNV-1a hash of the label mixed with the seed), so adding an aircraft never
- * changes another aircraft's draw.
+ * aircraft, when `operations.weekdays` is a count which weekdays are flown, and the unscheduled full
+ * recharges of each stay (docs/methods.md §7). Each draw has its own stream keyed by a label (FNV-1a
+ * hash of the label mixed with the seed), so adding an aircraft never changes another aircraft's draw.
  *
  * Generator: SplitMix32 (a 32-bit variant of Steele, Lea & Flood 2014, "Fast splittable pseudorandom
- * number generators"); normal deviates by the Box–Muller transform (Box & Muller 1958).
+ * number generators"); normal deviates by the Box–Muller transform (Box & Muller 1958); Poisson counts
+ * by inversion (Devroye 1986).
  */
+
+import { S_PER_DAY, S_PER_MONTH } from "../units/index.js";
+
+/** Days in the month of rates given per month (365.2425/12). */
+const DAYS_PER_MONTH = S_PER_MONTH / S_PER_DAY;
 
 /** FNV-1a 32-bit hash of a string. */
 export function fnv1a(text: string): number {
@@ -56,4 +62,68 @@ export function drawWeekdays(seed: number, count: number): number[] {
     [days[i], days[j]] = [days[j]!, days[i]!];
   }
   return days.slice(0, count).sort((a, b) => a - b);
+}
+
+/** Largest Poisson mean drawn in one piece: exp(−100) is far from underflow. */
+const POISSON_CHUNK = 100;
+
+/**
+ * A Poisson count of mean `mean` from a uniform stream, by inversion: sequential search of the
+ * cumulative distribution, P(k) = P(k − 1)·mean/k (Devroye 1986, Non-Uniform Random Variate Generation,
+ * ch. X, inversion by sequential search). A mean above 100 is drawn as a sum of Poisson counts of at
+ * most 100 each (a sum of independent Poisson counts is Poisson with the summed mean), so exp(−mean)
+ * never underflows.
+ *
+ * @param u uniform stream on (0, 1)
+ * @param mean expected count, ≥ 0
+ * @returns a count ≥ 0
+ *
+ * References: Devroye, L. (1986), Non-Uniform Random Variate Generation, Springer, ch. X.
+ *
+ * @example
+ * poissonCount(stream(1, "x"), 0.4); // 0 most often (probability e^−0.4 ≈ 0.67)
+ */
+export function poissonCount(u: () => number, mean: number): number {
+  if (!(mean >= 0 && Number.isFinite(mean)))
+    throw new RangeError(`Poisson mean ${mean} must be finite and ≥ 0`);
+  let count = 0;
+  for (let left = mean; left > 0; left -= POISSON_CHUNK) {
+    const m = Math.min(left, POISSON_CHUNK);
+    let k = 0;
+    let p = Math.exp(-m);
+    let cdf = p;
+    const x = u();
+    while (x > cdf && p > 0) {
+      k++;
+      p *= m / k;
+      cdf += p;
+    }
+    count += k;
+  }
+  return count;
+}
+
+/**
+ * The days of one stay's unscheduled full recharges in one sample (docs/methods.md §7): a Poisson count
+ * of mean rate × the stay's length in months (a month = 365.2425/12 days), each on a day drawn
+ * uniformly from the stay's days, from the stream labelled `unscheduled-recharges:<key>`. Ascending.
+ *
+ * @param seed the plan's seed
+ * @param key what names the stay and the sample (base, aircraft, arrival, climate year, draw)
+ * @param ratePerMonth full recharges per aircraft-month
+ * @param days the stay's number of days
+ * @returns day indexes 0…days − 1, ascending, repeated where two events fall on one day
+ */
+export function unscheduledRechargeDays(
+  seed: number,
+  key: string,
+  ratePerMonth: number,
+  days: number,
+): number[] {
+  if (ratePerMonth === 0 || days === 0) return [];
+  const u = stream(seed, `unscheduled-recharges:${key}`);
+  const n = poissonCount(u, (ratePerMonth * days) / DAYS_PER_MONTH);
+  const out: number[] = [];
+  for (let i = 0; i < n; i++) out.push(Math.min(days - 1, Math.floor(u() * days)));
+  return out.sort((a, b) => a - b);
 }

@@ -217,6 +217,24 @@ export interface Trace {
   points: TracePoint[];
 }
 
+/**
+ * Mean nitrogen flows over the samples (climate years × draws of the seeded events), kg. One
+ * vocabulary everywhere (report, CSV, JSON; docs/methods.md §7):
+ * drawn from cylinders = added to accumulators + vented from hoses at disconnect + given to other uses,
+ * and added = added by servicing + added by unscheduled full recharges. Gas released from accumulators
+ * (let out to lower a precharge, or lost from a gas side emptied by unscheduled work) never came from
+ * the cylinders in that event and is shown apart. Means add up; quantiles do not.
+ */
+export interface NitrogenFlows {
+  drawn: number;
+  added: number;
+  addedServicing: number;
+  addedUnscheduled: number;
+  hoseVented: number;
+  otherUse: number;
+  released: number;
+}
+
 export interface NitrogenStay {
   aircraft: string;
   arrive: string; // YYYY-MM-DD
@@ -224,37 +242,139 @@ export interface NitrogenStay {
   profile: string;
   coldStartOption: boolean;
   servicingEventsP50: number;
+  /** Gas added to the accumulators (servicing and unscheduled recharges), kg. */
   kgAddedP50: number;
-  kgVentedP50: number;
+  /** Gas vented from the hose at each disconnect, kg. */
+  kgHoseVentedP50: number;
+  /** Gas released from the accumulators (lowered precharges, gas sides emptied), kg; not from cylinders. */
+  kgReleasedP50: number;
+  /** Gas drawn from the cylinders for this stay, kg. */
   kgP50: number;
   kgP90: number;
   kgP95: number;
   prechargeChecksP50: number;
   handPumpStrokesP50: number;
+  /** Unscheduled full recharges, mean count over the samples. */
+  unscheduledRechargesMean: number;
+  meanKg: NitrogenFlows;
 }
 
 /**
- * Nitrogen of one base: every quantile is taken over climate years of the base's yearly total (the
- * stays at the base summed within each year, cylinders from one shared cascade), not summed quantiles.
+ * Full, residual and usable gas of one cylinder of the plan at a site temperature of the base
+ * (docs/methods.md §7): spent below the lowest precharge target at that temperature plus the
+ * transfer differential. Pressures gauge at the base's atmosphere.
  */
-export interface NitrogenBase {
-  /** Gas drawn from the cylinders (into accumulators plus hose vents), kg. */
+export interface CylinderGasRow {
+  /** Which temperature: the cylinder's fill temperature, or the base's mean or coldest site temperature. */
+  at: "fill" | "mean" | "coldest";
+  tempC: number;
+  fullKPaGauge: number;
+  residualKPaGauge: number;
+  fullKg: number;
+  residualKg: number;
+  usableKg: number;
+  usablePct: number;
+}
+
+/** The stock of full cylinders shipped to a base (plan `nitrogen.stock`) and whether it lasts. */
+export interface NitrogenStock {
+  /** Full cylinders shipped at the start; null where the plan states no stock for the base. */
+  cylinders: number | null;
+  /** Interval at which the stock is topped back up to `cylinders`, days; null: never. */
+  resupplyEveryDays: number | null;
+  /** Usable gas of the stock at the base's mean site temperature, kg; null without a stock. */
+  usableKgAtMean: number | null;
+  /**
+   * First date on which the P90 demand since the last top-up exceeds the stock's usable gas at the
+   * day's site temperature; null when the stock lasts or there is none.
+   */
+  stockOutP90: string | null;
+}
+
+/** One real day of a base's deployment: demand quantiles over the samples and the stock line. */
+export interface NitrogenDay {
+  date: string; // YYYY-MM-DD, real date
+  /** The day's mean outdoor temperature, averaged over the climate years, °C. */
+  siteTempC: number;
+  /** Gas drawn from the cylinders since the first arrival, up to the end of the day, kg. */
+  drawnKgP50: number;
+  drawnKgP90: number;
+  /** Gas drawn since the last top-up of the stock (the first arrival without resupply), kg. */
+  sinceResupplyKgP50: number;
+  sinceResupplyKgP90: number;
+  /** Usable gas of the stock at the day's site temperature, kg; null without a stock. */
+  stockUsableKg: number | null;
+}
+
+/** The base's gas drawn in one sample: the climate year it is labelled by and the draw of the seeded events. */
+export interface NitrogenSample {
+  climateYear: number;
+  draw: number;
+  kg: number;
+}
+
+/** What to ship: the gas drawn from the cylinders, the cylinders and the carts at P50/P90/P95. */
+export interface NitrogenToShip {
+  /** Gas drawn from the cylinders, kg. */
   kgP50: number;
   kgP90: number;
   kgP95: number;
-  /** Gas that ended in the accumulators, kg. */
-  kgAddedP50: number;
-  /** Gas vented: hose at each disconnect plus precharges lowered, kg. */
-  kgVentedP50: number;
-  servicingEventsP50: number;
+  /** The same as normal m³ (0 °C, 101.325 kPa). */
+  normalM3P50: number;
+  normalM3P90: number;
+  normalM3P95: number;
   cylindersP50: number;
   cylindersP90: number;
   cylindersP95: number;
-  /** ceil(cylinders / cylindersPerCart) at each quantile. */
+  /** ceil(cylinders / cylindersPerCart) at each quantile (the fleet: sums of the bases' counts). */
   cartsP50: number;
   cartsP90: number;
   cartsP95: number;
+  meanKg: NitrogenFlows;
+  /** Unscheduled full recharges, mean count over the samples. */
+  unscheduledRechargesMean: number;
+}
+
+/**
+ * Nitrogen of one base: every quantile is taken over the samples (climate years × draws of the seeded
+ * events) of the base's total (the stays at the base summed within each sample, cylinders from one
+ * shared cascade), not summed quantiles.
+ */
+export interface NitrogenBase extends NitrogenToShip {
+  /** Gas added to the accumulators (servicing and unscheduled recharges), kg. */
+  kgAddedP50: number;
+  /** Gas vented from the hose at each disconnect, kg. */
+  kgHoseVentedP50: number;
+  /** Gas released from the accumulators (not from the cylinders), kg. */
+  kgReleasedP50: number;
+  servicingEventsP50: number;
+  /** Quantiles of the count of unscheduled full recharges over the samples. */
+  unscheduledRechargesP50: number;
+  unscheduledRechargesP90: number;
+  unscheduledRechargesP95: number;
+  /** Draws of the seeded events per climate year (1 without unscheduled recharges). */
+  draws: number;
+  /** The real year that maps onto each sample's climate year (the earliest arrival year at the base). */
+  referenceYear: number | null;
+  samples: NitrogenSample[];
+  usableGas: CylinderGasRow[];
+  stock: NitrogenStock;
+  timeline: NitrogenDay[];
   stays: NitrogenStay[];
+}
+
+/**
+ * The fleet's nitrogen (docs/methods.md §7): demand quantiles are quantiles of the fleet sum per
+ * climate year and draw (all bases on one real-time mapping onto the climate years), never sums of the
+ * bases' quantiles; cylinders and carts are the sums of the bases' own counts (stock cannot move between
+ * bases); mean flows are the sums of the bases' means.
+ */
+export interface NitrogenFleet extends NitrogenToShip {
+  /** Bases with stays and usable climate years, summed here. */
+  bases: string[];
+  /** Climate years onto which the fleet's earliest arrival year maps, usable at every base summed. */
+  climateYears: number[];
+  draws: number;
 }
 
 export interface BaseResult {
@@ -375,6 +495,7 @@ export interface Results {
   thresholds: { shortPct: number; outOfBandPct: number; minYears: number };
   profiles: ProfileResult[];
   bases: BaseResult[];
+  nitrogenFleet: NitrogenFleet;
   stays: StayResult[];
   /** One per stay, in schedule order. */
   actions: AircraftAction[];

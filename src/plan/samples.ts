@@ -65,6 +65,8 @@ export interface WindowGap {
 export interface BaseSamples {
   baseIndex: number;
   climate: BaseClimate;
+  /** The real year that maps onto each sample's climate year: the earliest arrival year at the base. */
+  refYear: number;
   /** The schedule's stays at this base, in schedule order. */
   stays: Stay[];
   groups: StayGroup[];
@@ -359,6 +361,6 @@ export function prepareSamples(
     };
     const years = usableYears(plan, clim, groups, refYear, dayOptions);
     warnings.push(...yearWarnings(plan, base.name, here, groups, years));
-    return { baseIndex, climate: clim, stays: here, groups, groupOfStay, ...years };
+    return { baseIndex, climate: clim, refYear, stays: here, groups, groupOfStay, ...years };
   });
 }

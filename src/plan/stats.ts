@@ -19,6 +19,12 @@ export function quantile(values: ArrayLike<number>, p: number): number | null {
   return quantileSorted(sortedCopy(values), p);
 }
 
+/** Quantile p (0–1) of values already sorted ascending, by the same method, or null for an empty sample. */
+export function quantileOfSorted(sorted: ArrayLike<number>, p: number): number | null {
+  if (sorted.length === 0) return null;
+  return quantileSorted(sorted as number[], p);
+}
+
 export function mean(values: ArrayLike<number>): number | null {
   return values.length === 0 ? null : ssMean(Array.from(values));
 }

@@ -1,97 +1,185 @@
 /**
- * Nitrogen logistics of a base (docs/methods.md, "Nitrogen supply"): in each climate year the
- * servicings of every stay at the base, in the order they happen, draw on one pool of cylinders by
- * the cascade of the physics module (lowest-pressure cylinder first, each giving gas while its
- * pressure exceeds the accumulator's plus the transfer differential; the hose vented at each
- * disconnect). When the pool cannot reach a servicing's target a new full cylinder is opened; the
- * count of cylinders opened is the year's cylinder need. The base's totals are quantiles over years.
+ * Nitrogen logistics of a base (docs/methods.md §7). In each sample — a climate year and a draw of
+ * the seeded events — every demand event of every stay at the base (`nitrogenDemand.ts`: servicing by
+ * the policy, unscheduled full recharges, other uses), in the order they happen, draws on one pool of
+ * cylinders by the cascade of the physics module (lowest-pressure cylinder first, each giving gas while
+ * its pressure exceeds the accumulator's plus the transfer differential; the hose vented at each
+ * disconnect). When the pool cannot meet an event a new full cylinder is opened; the count of cylinders
+ * opened is the sample's cylinder need. The base's figures are quantiles and means over the samples;
+ * the usable gas, the stock and the timeline come from `nitrogenStock.ts`.
  */
 import { type GasModel, N2_MOLAR_MASS_KG_MOL } from "../physics/nitrogen.js";
-import { type Cylinder, cascadeFill, fullCylinder, type SupplySpec } from "../physics/supply.js";
-import { STANDARD_ATMOSPHERE_PA } from "../units/index.js";
-import { absPa } from "./context.js";
+import {
+  type Cylinder,
+  cascadeFill,
+  drawFromCylinders,
+  fullCylinder,
+  type SupplySpec,
+} from "../physics/supply.js";
+import { N2_NORMAL_DENSITY_KG_M3, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
+import { absPa, type ProfileContext } from "./context.js";
+import {
+  type BaseCalendar,
+  baseCalendar,
+  EVENT_DRAWS,
+  groupContexts,
+  inTimeOrder,
+  otherUseEvents,
+  type SupplyEvent,
+  servicingEvents,
+  unscheduledEvents,
+} from "./nitrogenDemand.js";
+import { stockAndTimeline, usableGasRows } from "./nitrogenStock.js";
 import type { Plan } from "./planFile.js";
-import type { NitrogenBase, NitrogenStay } from "./results.js";
+import type { NitrogenBase, NitrogenFlows, NitrogenSample, NitrogenStay } from "./results.js";
 import type { BaseSamples } from "./samples.js";
-import type { NitrogenEvent } from "./simulate.js";
-import type { BaseOutcomes } from "./simulateSamples.js";
+import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 import { quantile, sortedCopy } from "./stats.js";
 
-export interface OrderedEvent {
-  /** Sort key: real date (YYYY-MM-DD) of the event, then the instant. */
-  realIso: string;
-  utcMs: number;
-  stay: number;
-  /** Gas volume of the accumulator on its fluid-side stop (where the gas goes), m³. */
-  v0M3: number;
-  event: NitrogenEvent;
+const MAX_CYLINDERS_PER_EVENT = 20;
+
+/** The cylinders of one sample at a base: the pool, the count opened, the events it could not meet. */
+class CylinderPool {
+  cylinders: Cylinder[] = [];
+  opened = 0;
+  unreachable = 0;
+
+  constructor(
+    private readonly model: GasModel,
+    private readonly spec: SupplySpec,
+  ) {}
+
+  /** Opens one more full cylinder. */
+  private open(): void {
+    this.cylinders = [...this.cylinders, fullCylinder(this.model, this.spec)];
+    this.opened++;
+  }
+
+  /**
+   * One accumulator from fromMol toward toMol through the cascade, opening cylinders while the pool
+   * cannot reach the target. Returns the gas added to it and vented from the hose, mol.
+   */
+  fill(v0M3: number, fromMol: number, toMol: number, tempK: number): { addedMol: number; hoseMol: number } {
+    let from = fromMol;
+    let hoseMol = 0;
+    for (let k = 0; k <= MAX_CYLINDERS_PER_EVENT; k++) {
+      const r = cascadeFill(this.model, this.cylinders, v0M3, from, toMol, tempK, this.spec);
+      this.cylinders = r.cylinders;
+      hoseMol += r.ventedMol;
+      from += r.addedMol;
+      if (r.reachedTarget) break;
+      if (k === MAX_CYLINDERS_PER_EVENT || (k > 0 && r.addedMol <= 0)) {
+        this.unreachable++;
+        break;
+      }
+      this.open();
+    }
+    return { addedMol: from - fromMol, hoseMol };
+  }
+
+  /** An amount for another use, down to the floor pressure, opening cylinders as needed. Returns mol drawn. */
+  draw(amountMol: number, floorAbsPa: number, tempK: number): number {
+    let left = amountMol;
+    for (let k = 0; k <= MAX_CYLINDERS_PER_EVENT; k++) {
+      const r = drawFromCylinders(this.model, this.cylinders, left, floorAbsPa, tempK);
+      this.cylinders = r.cylinders;
+      left -= r.drawnMol;
+      if (r.reachedAmount) break;
+      if (k === MAX_CYLINDERS_PER_EVENT || (k > 0 && r.drawnMol <= 0)) {
+        this.unreachable++;
+        break;
+      }
+      this.open();
+    }
+    return amountMol - left;
+  }
 }
 
-export interface CascadeYear {
+/** One sample of a base through the cascade. Per stay (index) in mol; drawn = added + hose + other uses. */
+export interface CascadeSample {
   cylindersOpened: number;
-  /** Gas into accumulators and vented from the hose, per stay index, mol. */
-  addedMol: Map<number, number>;
-  hoseMol: Map<number, number>;
-  /** Servicings whose target no full cylinder could reach (fill pressure too low). */
+  addedServicingMol: Float64Array;
+  addedUnscheduledMol: Float64Array;
+  hoseMol: Float64Array;
+  otherUseMol: Float64Array;
+  /** Gas drawn from the cylinders on each real day, mol. */
+  drawnMolByDay: Float64Array;
+  /** Events no full cylinder could meet (fill pressure too low for the target and differential). */
   unreachable: number;
+  /** Gas left in the cylinders opened, mol (what they gave = opened × a full cylinder − this). */
+  gasLeftMol: number;
 }
 
-const MAX_CYLINDERS_PER_SERVICING = 20;
-
-export function cascadeYear(model: GasModel, spec: SupplySpec, events: OrderedEvent[]): CascadeYear {
-  const sorted = [...events].sort((a, b) =>
-    a.realIso < b.realIso ? -1 : a.realIso > b.realIso ? 1 : a.utcMs - b.utcMs || a.stay - b.stay,
-  );
-  let pool: Cylinder[] = [];
-  const out: CascadeYear = { cylindersOpened: 0, addedMol: new Map(), hoseMol: new Map(), unreachable: 0 };
-  const add = (m: Map<number, number>, k: number, v: number) => m.set(k, (m.get(k) ?? 0) + v);
-  for (const { stay, event, v0M3 } of sorted) {
-    for (let u = 0; u < event.units; u++) {
-      let from = event.fromMol;
-      for (let k = 0; k <= MAX_CYLINDERS_PER_SERVICING; k++) {
-        const r = cascadeFill(model, pool, v0M3, from, event.toMol, event.tempK, spec);
-        pool = r.cylinders;
-        add(out.addedMol, stay, r.addedMol);
-        add(out.hoseMol, stay, r.ventedMol);
-        from += r.addedMol;
-        if (r.reachedTarget) break;
-        if (k === MAX_CYLINDERS_PER_SERVICING || (k > 0 && r.addedMol <= 0)) {
-          out.unreachable++;
-          break;
-        }
-        pool = [...pool, fullCylinder(model, spec)];
-        out.cylindersOpened++;
+/** Replays a sample's events, in the order given, through one pool of cylinders. */
+export function cascadeSample(
+  model: GasModel,
+  spec: SupplySpec,
+  events: SupplyEvent[],
+  nStays: number,
+  nDays: number,
+): CascadeSample {
+  const pool = new CylinderPool(model, spec);
+  const out: CascadeSample = {
+    cylindersOpened: 0,
+    addedServicingMol: new Float64Array(nStays),
+    addedUnscheduledMol: new Float64Array(nStays),
+    hoseMol: new Float64Array(nStays),
+    otherUseMol: new Float64Array(nStays),
+    drawnMolByDay: new Float64Array(nDays),
+    unreachable: 0,
+    gasLeftMol: 0,
+  };
+  for (const e of events) {
+    let drawn = 0;
+    if (e.cause === "otherUse") {
+      drawn = pool.draw(e.amountMol, e.floorAbsPa, e.tempK);
+      out.otherUseMol[e.stay]! += drawn;
+    } else {
+      const added = e.cause === "servicing" ? out.addedServicingMol : out.addedUnscheduledMol;
+      for (let u = 0; u < e.units; u++) {
+        const r = pool.fill(e.v0M3, e.fromMol, e.toMol, e.tempK);
+        added[e.stay]! += r.addedMol;
+        out.hoseMol[e.stay]! += r.hoseMol;
+        drawn += r.addedMol + r.hoseMol;
       }
     }
+    out.drawnMolByDay[e.realDay]! += drawn;
   }
+  out.cylindersOpened = pool.opened;
+  out.unreachable = pool.unreachable;
+  out.gasLeftMol = pool.cylinders.reduce((a, c) => a + c.amountMol, 0);
   return out;
 }
 
-/** One stay's figures on each climate year, kg and counts. */
-interface StayYears {
-  kg: number[];
-  addedKg: number[];
-  ventedKg: number[];
-  servicings: number[];
-  checks: number[];
-  strokes: number[];
+/** The flows of one vocabulary (`NitrogenFlows`), in the order they are listed. */
+export const FLOW_KEYS = [
+  "drawn",
+  "added",
+  "addedServicing",
+  "addedUnscheduled",
+  "hoseVented",
+  "otherUse",
+  "released",
+] as const satisfies readonly (keyof NitrogenFlows)[];
+const COUNT_KEYS = ["servicings", "checks", "strokes", "unscheduled", "cylinders"] as const;
+type Key = (typeof FLOW_KEYS)[number] | (typeof COUNT_KEYS)[number];
+
+/** One value per sample of every figure (flows in kg, counts). */
+type Columns = Record<Key, number[]>;
+
+function emptyColumns(): Columns {
+  return Object.fromEntries([...FLOW_KEYS, ...COUNT_KEYS].map((k) => [k, []])) as unknown as Columns;
 }
 
-/** The base's totals on each climate year. */
-interface BaseYears {
-  kg: number[];
-  addedKg: number[];
-  ventedKg: number[];
-  servicings: number[];
-  cylinders: number[];
-  /** Servicings no full cylinder could bring to target, all years together. */
-  unreachable: number;
+/** Adds one sample's figures to columns. */
+function push(c: Columns, figures: Record<Key, number>): void {
+  for (const k of [...FLOW_KEYS, ...COUNT_KEYS]) c[k].push(figures[k]);
 }
 
 const kgOf = (mol: number): number => mol * N2_MOLAR_MASS_KG_MOL;
 
 /** The cylinder specification of the plan (fill pressure gauge at the standard atmosphere). */
-function supplySpec(plan: Plan): SupplySpec {
+export function supplySpec(plan: Plan): SupplySpec {
   const n2 = plan.nitrogen;
   return {
     cylinderWaterVolumeM3: n2.cylinder.waterVolume,
@@ -102,128 +190,188 @@ function supplySpec(plan: Plan): SupplySpec {
   };
 }
 
-/** The servicings of every stay of a base on its usable year `yi`, for the cascade. */
-function yearEvents(plan: Plan, base: BaseSamples, outcomes: BaseOutcomes, yi: number): OrderedEvent[] {
-  const events: OrderedEvent[] = [];
-  for (const [si, gi] of base.groupOfStay.entries()) {
-    const days = base.days[yi]![gi]!;
-    const v0M3 = plan.profiles[base.groups[gi]!.profileIndex]!.accumulator.gasVolumeEmpty;
-    for (const e of outcomes[yi]![gi]!.nitrogen) {
-      events.push({ realIso: days[e.day]!.realIso, utcMs: e.utcMs, stay: si, v0M3, event: e });
-    }
-  }
-  return events;
+/** Every sample of a base replayed: per stay and base columns, the gas drawn by day, the samples. */
+interface Replay {
+  perStay: Columns[];
+  totals: Columns;
+  /** Gas drawn on each real day, kg, per sample. */
+  drawnKgByDay: Float64Array[];
+  samples: NitrogenSample[];
+  unreachable: number;
 }
 
-/** Every year of a base through the cylinder cascade: per stay and base totals by year. */
-function replayYears(
-  plan: Plan,
-  model: GasModel,
+/** The figures of stay `si` in one sample (kg and counts). */
+function stayFigures(
+  c: CascadeSample,
+  si: number,
+  released: { mol: Float64Array; count: Int32Array },
+  outcome: BaseOutcomes[number][number],
+): Record<Key, number> {
+  const addedServicing = kgOf(c.addedServicingMol[si]!);
+  const addedUnscheduled = kgOf(c.addedUnscheduledMol[si]!);
+  const hoseVented = kgOf(c.hoseMol[si]!);
+  const otherUse = kgOf(c.otherUseMol[si]!);
+  const added = addedServicing + addedUnscheduled;
+  return {
+    drawn: added + hoseVented + otherUse,
+    added,
+    addedServicing,
+    addedUnscheduled,
+    hoseVented,
+    otherUse,
+    released: kgOf(outcome.ventedMol + released.mol[si]!),
+    servicings: outcome.servicings,
+    checks: outcome.checks,
+    strokes: outcome.handPumpStrokes,
+    unscheduled: released.count[si]!,
+    cylinders: 0,
+  };
+}
+
+/** Every sample (usable year × draw) of a base through the cascade. */
+function replaySamples(
+  sim: Simulator,
   base: BaseSamples,
   outcomes: BaseOutcomes,
-): { perStay: StayYears[]; totals: BaseYears } {
+  cal: BaseCalendar,
+  draws: number,
+  contexts: ProfileContext[],
+): Replay {
+  const { plan, model } = sim;
   const spec = supplySpec(plan);
-  const perStay: StayYears[] = base.stays.map(() => ({
-    kg: [],
-    addedKg: [],
-    ventedKg: [],
-    servicings: [],
-    checks: [],
-    strokes: [],
-  }));
-  const totals: BaseYears = {
-    kg: [],
-    addedKg: [],
-    ventedKg: [],
-    servicings: [],
-    cylinders: [],
+  const nStays = base.stays.length;
+  const r: Replay = {
+    perStay: base.stays.map(emptyColumns),
+    totals: emptyColumns(),
+    drawnKgByDay: [],
+    samples: [],
     unreachable: 0,
   };
   for (let yi = 0; yi < base.years.length; yi++) {
-    const c = cascadeYear(model, spec, yearEvents(plan, base, outcomes, yi));
-    totals.unreachable += c.unreachable;
-    let kg = 0;
-    let addedKg = 0;
-    let ventedKg = 0;
-    let servicings = 0;
-    for (const [si, gi] of base.groupOfStay.entries()) {
-      const o = outcomes[yi]![gi]!;
-      const added = c.addedMol.get(si) ?? 0;
-      const hose = c.hoseMol.get(si) ?? 0;
-      const ps = perStay[si]!;
-      ps.kg.push(kgOf(added + hose));
-      ps.addedKg.push(kgOf(added));
-      ps.ventedKg.push(kgOf(o.ventedMol + hose));
-      ps.servicings.push(o.servicings);
-      ps.checks.push(o.checks);
-      ps.strokes.push(o.handPumpStrokes);
-      kg += kgOf(added + hose);
-      addedKg += kgOf(added);
-      ventedKg += kgOf(o.ventedMol + hose);
-      servicings += o.servicings;
+    const fixed: SupplyEvent[] = [
+      ...servicingEvents(plan, base, outcomes, cal, yi),
+      ...otherUseEvents(plan, base, contexts, cal, yi),
+    ];
+    for (let draw = 0; draw < draws; draw++) {
+      const unscheduled = unscheduledEvents(plan, base, contexts, cal, yi, draw);
+      const c = cascadeSample(model, spec, inTimeOrder([...fixed, ...unscheduled]), nStays, cal.nDays);
+      r.unreachable += c.unreachable;
+      // A gas side emptied by unscheduled work releases what the recharge puts back (docs/methods.md §7).
+      const released = { mol: new Float64Array(nStays), count: new Int32Array(nStays) };
+      for (const e of unscheduled) {
+        released.mol[e.stay]! += (e.toMol - e.fromMol) * e.units;
+        released.count[e.stay]!++;
+      }
+      const total = Object.fromEntries([...FLOW_KEYS, ...COUNT_KEYS].map((k) => [k, 0])) as Record<
+        Key,
+        number
+      >;
+      for (const [si, gi] of base.groupOfStay.entries()) {
+        const f = stayFigures(c, si, released, outcomes[yi]![gi]!);
+        push(r.perStay[si]!, f);
+        for (const k of [...FLOW_KEYS, ...COUNT_KEYS]) total[k] += f[k];
+      }
+      total.cylinders = c.cylindersOpened;
+      push(r.totals, total);
+      r.drawnKgByDay.push(c.drawnMolByDay.map(kgOf));
+      r.samples.push({ climateYear: base.years[yi]!, draw, kg: total.drawn });
     }
-    totals.kg.push(kg);
-    totals.addedKg.push(addedKg);
-    totals.ventedKg.push(ventedKg);
-    totals.servicings.push(servicings);
-    totals.cylinders.push(c.cylindersOpened);
   }
-  return { perStay, totals };
+  return r;
 }
 
-/**
- * The nitrogen of one base: the year's servicings of all its stays replayed through one cylinder pool
- * per climate year; quantiles over years of each stay's and of the base's yearly totals (never summed
- * quantiles). A warning counts servicings no full cylinder could bring to target.
- */
-export function baseNitrogen(
-  plan: Plan,
-  model: GasModel,
-  base: BaseSamples,
-  outcomes: BaseOutcomes,
-  warnings: string[],
-): NitrogenBase {
-  const { perStay, totals } = replayYears(plan, model, base, outcomes);
-  if (totals.unreachable > 0) {
-    warnings.push(
-      `base "${plan.bases[base.baseIndex]!.name}": ${totals.unreachable} servicings could not reach the precharge target from a full cylinder (fill pressure too low for the transfer differential)`,
-    );
-  }
-  const q0 = (v: number[], p: number) => quantile(v, p) ?? 0;
-  const stays: NitrogenStay[] = base.stays.map((s, si) => {
-    const ps = perStay[si]!;
+const q0 = (v: number[], p: number) => quantile(v, p) ?? 0;
+const mean = (v: number[]) => (v.length === 0 ? 0 : v.reduce((a, b) => a + b, 0) / v.length);
+
+/** Mean flows of columns, kg. */
+function meanFlows(c: Columns): NitrogenFlows {
+  return Object.fromEntries(FLOW_KEYS.map((k) => [k, mean(c[k])])) as unknown as NitrogenFlows;
+}
+
+/** The per-stay figures of the results. */
+function stayResults(base: BaseSamples, perStay: Columns[]): NitrogenStay[] {
+  return base.stays.map((s, si) => {
+    const c = perStay[si]!;
     return {
       aircraft: s.aircraft,
       arrive: s.arrive,
       depart: s.depart,
       profile: s.profile,
       coldStartOption: s.coldStartOption,
-      servicingEventsP50: q0(ps.servicings, 0.5),
-      kgAddedP50: q0(ps.addedKg, 0.5),
-      kgVentedP50: q0(ps.ventedKg, 0.5),
-      kgP50: q0(ps.kg, 0.5),
-      kgP90: q0(ps.kg, 0.9),
-      kgP95: q0(ps.kg, 0.95),
-      prechargeChecksP50: q0(ps.checks, 0.5),
-      handPumpStrokesP50: q0(ps.strokes, 0.5),
+      servicingEventsP50: q0(c.servicings, 0.5),
+      kgAddedP50: q0(c.added, 0.5),
+      kgHoseVentedP50: q0(c.hoseVented, 0.5),
+      kgReleasedP50: q0(c.released, 0.5),
+      kgP50: q0(c.drawn, 0.5),
+      kgP90: q0(c.drawn, 0.9),
+      kgP95: q0(c.drawn, 0.95),
+      prechargeChecksP50: q0(c.checks, 0.5),
+      handPumpStrokesP50: q0(c.strokes, 0.5),
+      unscheduledRechargesMean: mean(c.unscheduled),
+      meanKg: meanFlows(c),
     };
   });
-  const cylindersSorted = sortedCopy(totals.cylinders);
+}
+
+/** Draws of the seeded events per climate year: several only when the plan has unscheduled recharges. */
+export function eventDraws(plan: Plan): number {
+  return plan.nitrogen.unscheduledRechargesPerAircraftMonth > 0 ? EVENT_DRAWS : 1;
+}
+
+/**
+ * The nitrogen of one base: every sample's events replayed through one cylinder pool; quantiles over
+ * the samples of each stay's and of the base's totals (never summed quantiles); the usable gas per
+ * cylinder, the stock and the timeline. A warning counts events no full cylinder could meet.
+ */
+export function baseNitrogen(
+  sim: Simulator,
+  base: BaseSamples,
+  outcomes: BaseOutcomes,
+  warnings: string[],
+): NitrogenBase {
+  const { plan } = sim;
+  const draws = eventDraws(plan);
+  const cal = baseCalendar(base);
+  const contexts = groupContexts(sim, base);
+  const r = replaySamples(sim, base, outcomes, cal, draws, contexts);
+  if (r.unreachable > 0) {
+    warnings.push(
+      `base "${plan.bases[base.baseIndex]!.name}": ${r.unreachable} servicings or other uses could not be met from a full cylinder (fill pressure too low for the target and the transfer differential)`,
+    );
+  }
+  const t = r.totals;
+  const cylindersSorted = sortedCopy(t.cylinders);
   const cylinders = (p: number) => Math.ceil(quantile(cylindersSorted, p) ?? 0);
   const carts = (n: number) => Math.ceil(n / plan.nitrogen.cylindersPerCart);
+  const spec = supplySpec(plan);
+  const normal = (kg: number) => kg / N2_NORMAL_DENSITY_KG_M3;
   return {
-    kgP50: q0(totals.kg, 0.5),
-    kgP90: q0(totals.kg, 0.9),
-    kgP95: q0(totals.kg, 0.95),
-    kgAddedP50: q0(totals.addedKg, 0.5),
-    kgVentedP50: q0(totals.ventedKg, 0.5),
-    servicingEventsP50: q0(totals.servicings, 0.5),
+    kgP50: q0(t.drawn, 0.5),
+    kgP90: q0(t.drawn, 0.9),
+    kgP95: q0(t.drawn, 0.95),
+    normalM3P50: normal(q0(t.drawn, 0.5)),
+    normalM3P90: normal(q0(t.drawn, 0.9)),
+    normalM3P95: normal(q0(t.drawn, 0.95)),
+    kgAddedP50: q0(t.added, 0.5),
+    kgHoseVentedP50: q0(t.hoseVented, 0.5),
+    kgReleasedP50: q0(t.released, 0.5),
+    meanKg: meanFlows(t),
+    servicingEventsP50: q0(t.servicings, 0.5),
+    unscheduledRechargesMean: mean(t.unscheduled),
+    unscheduledRechargesP50: q0(t.unscheduled, 0.5),
+    unscheduledRechargesP90: q0(t.unscheduled, 0.9),
+    unscheduledRechargesP95: q0(t.unscheduled, 0.95),
     cylindersP50: cylinders(0.5),
     cylindersP90: cylinders(0.9),
     cylindersP95: cylinders(0.95),
     cartsP50: carts(cylinders(0.5)),
     cartsP90: carts(cylinders(0.9)),
     cartsP95: carts(cylinders(0.95)),
-    stays,
+    draws,
+    referenceYear: Number.isFinite(base.refYear) ? base.refYear : null,
+    samples: r.samples,
+    usableGas: usableGasRows(sim.model, spec, contexts, cal, base.climate.atmPa),
+    ...stockAndTimeline(plan, sim.model, spec, contexts, base, cal, r.drawnKgByDay),
+    stays: stayResults(base, r.perStay),
   };
 }

@@ -59,8 +59,12 @@ export interface XYChartOptions {
   title: string;
   xTitle: string;
   yTitle: string;
-  /** "quantitative" for numbers, "ordinal" for categories such as month names (in the given order). */
-  xType?: "quantitative" | "ordinal";
+  /**
+   * "quantitative" for numbers, "ordinal" for categories such as month names (in the given order),
+   * "temporal" for dates given as "YYYY-MM-DD" (read and labelled in UTC, so the machine's zone never
+   * shifts a day).
+   */
+  xType?: "quantitative" | "ordinal" | "temporal";
   xOrder?: string[];
   xDomain?: [number, number];
   yDomain?: [number, number];
@@ -112,7 +116,13 @@ function xyLayers(o: XYChartOptions): { layers: Spec[]; domain: string[]; colors
     title: o.xTitle,
     ...(xType === "ordinal" && o.xOrder ? { sort: o.xOrder, scale: { domain: o.xOrder } } : {}),
     ...(xType === "quantitative" && o.xDomain ? { scale: { domain: o.xDomain, nice: false } } : {}),
-    axis: xType === "ordinal" ? { labelAngle: 0 } : { tickCount: 8 },
+    ...(xType === "temporal" ? { scale: { type: "utc" } } : {}),
+    axis:
+      xType === "ordinal"
+        ? { labelAngle: 0 }
+        : xType === "temporal"
+          ? { format: "%b %Y", labelAngle: 0, tickCount: 6 }
+          : { tickCount: 8 },
   };
   const yScale: Spec = { zero: o.yZero ?? false };
   if (o.yDomain) yScale["domain"] = o.yDomain;

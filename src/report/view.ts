@@ -14,6 +14,7 @@ import { climateSection } from "./sections/climate.js";
 import { type CoverageView, coverageSection } from "./sections/coverage.js";
 import { type GlanceView, glanceSection } from "./sections/glance.js";
 import { nitrogenSection } from "./sections/nitrogen.js";
+import { type NitrogenFleetView, nitrogenFleetSection } from "./sections/nitrogenFleet.js";
 import { overnightSection } from "./sections/overnight.js";
 import { profileSection } from "./sections/profile.js";
 import { riskSection } from "./sections/risk.js";
@@ -68,6 +69,8 @@ export interface ReportView {
   minYears: string;
   fleet: GlanceView;
   actions: ActionRowView[];
+  /** The fleet's nitrogen roll-up, its own part near the top (partial `nitrogenFleet`). */
+  nitrogenFleet: NitrogenFleetView;
   bases: BaseView[];
   methods: { name: string; source: string; description: string }[];
   quantileMethod: string;
@@ -145,6 +148,7 @@ export async function buildView(results: Results, options: ViewOptions): Promise
     minYears: String(results.thresholds.minYears),
     fleet: glanceSection(results, u),
     actions: actionsSection(results),
+    nitrogenFleet: nitrogenFleetSection(results, u),
     bases,
     methods: results.methods,
     quantileMethod: results.quantileMethod,

@@ -148,6 +148,7 @@ const DISPLAY_OF_KIND: Partial<Record<QuantityKind, keyof DisplayQuantities>> = 
   pressureRate: "pressureRate",
   temperature: "temp",
   volume: "volume",
+  mass: "mass",
   energy: "energy",
   flow: "flow",
   expansion: "expansion",

@@ -74,6 +74,7 @@ export const cToF = (c: number): number => (c * 9) / 5 + 32;
 export const S_PER_MIN = 60;
 export const S_PER_HOUR = 3600;
 export const S_PER_DAY = 86400;
+export const S_PER_WEEK = 7 * S_PER_DAY;
 /** Mean Gregorian year, 365.2425 d (146 097 days in the calendar's 400-year cycle). */
 export const S_PER_YEAR = 365.2425 * S_PER_DAY;
 /** Mean Gregorian month, 365.2425/12 d: the month of rates given "per month". */

@@ -13,6 +13,7 @@ export type QuantityKind =
   | "pressureRate"
   | "temperature"
   | "volume"
+  | "mass"
   | "energy"
   | "duration"
   | "flow"
@@ -43,7 +44,7 @@ export interface QuantityData {
 
 /**
  * JSON unit of each kind and the conversion into it from the SI value inside the program (Pa gauge,
- * Pa absolute, Pa, Pa/s, K, m³, J, s, m³/s, 1/K); kinds without a conversion are stored as they are.
+ * Pa absolute, Pa, Pa/s, K, m³, kg, J, s, m³/s, 1/K); kinds without a conversion are stored as they are.
  */
 export const JSON_UNITS: Record<QuantityKind, { unit: string; fromSi?: (si: number) => number }> = {
   pressureGauge: { unit: "kPa gauge", fromSi: (pa) => pa / PA_PER_KPA },
@@ -52,6 +53,7 @@ export const JSON_UNITS: Record<QuantityKind, { unit: string; fromSi?: (si: numb
   pressureRate: { unit: "kPa/month", fromSi: (paS) => (paS * S_PER_MONTH) / PA_PER_KPA },
   temperature: { unit: "°C", fromSi: kToC },
   volume: { unit: "L", fromSi: (m3) => m3 / M3_PER_LITRE },
+  mass: { unit: "kg" },
   energy: { unit: "J" },
   duration: { unit: "s" },
   flow: { unit: "L/s", fromSi: (m3S) => m3S / M3_PER_LITRE },

@@ -19,12 +19,15 @@ import {
   FAHRENHEIT_PER_KELVIN,
   fToK,
   J_PER_FT_LBF,
+  KG_PER_LB,
   kToC,
   kToF,
   M3_PER_FT3,
   M3_PER_IN3,
   M3_PER_LITRE,
   M3_PER_US_GALLON,
+  N2_NORMAL_DENSITY_KG_M3,
+  N2_SCF_DENSITY_KG_M3,
   PA_PER_BAR,
   PA_PER_GPA,
   PA_PER_KPA,
@@ -34,6 +37,7 @@ import {
   S_PER_HOUR,
   S_PER_MIN,
   S_PER_MONTH,
+  S_PER_WEEK,
   S_PER_YEAR,
 } from "./factors.js";
 
@@ -222,13 +226,38 @@ const TIME_UNITS: Record<string, number> = {
   d: S_PER_DAY,
   day: S_PER_DAY,
   days: S_PER_DAY,
+  week: S_PER_WEEK,
+  weeks: S_PER_WEEK,
   month: S_PER_MONTH,
   year: S_PER_YEAR,
 };
-const TIME_EXPECTED = 'a duration such as "90 s", "3 min", "2 h"';
+const TIME_EXPECTED = 'a duration such as "90 s", "3 min", "2 h", "4 weeks"';
 
 /** "2 h" → 7200 s. */
 export const parseTimeS = tableParser(TIME_UNITS, TIME_EXPECTED, undefined, "a duration");
+
+const GAS_AMOUNT_UNITS: Record<string, number> = {
+  kg: 1,
+  g: 1e-3,
+  lb: KG_PER_LB,
+  scf: N2_SCF_DENSITY_KG_M3 * M3_PER_FT3,
+  Nm3: N2_NORMAL_DENSITY_KG_M3,
+  "normal m3": N2_NORMAL_DENSITY_KG_M3,
+};
+const GAS_AMOUNT_EXPECTED =
+  'an amount of nitrogen as a mass or a volume at standard conditions, such as "0.5 lb", "0.2 kg", "7 scf" or "0.2 Nm3"';
+
+/**
+ * An amount of nitrogen, kg: a mass (kg, g, lb) or a gas volume at the standard conditions of the scf
+ * (70 °F, 14.696 psia) or of the normal m³ (0 °C, 101.325 kPa), through the reference densities of
+ * `factors.ts`. "7 scf" → 0.230 kg.
+ */
+export const parseGasAmountKg = tableParser(
+  GAS_AMOUNT_UNITS,
+  GAS_AMOUNT_EXPECTED,
+  (u) => u.replace(/³/g, "3").replace(/\s+/g, " "),
+  "an amount of gas",
+);
 
 const ENERGY_UNITS: Record<string, number> = {
   J: 1,

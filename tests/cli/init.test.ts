@@ -36,6 +36,24 @@ describe("coldsoak init", () => {
     expect(stays.length).toBeGreaterThan(0);
   });
 
+  it("shows the nitrogen demand items as commented examples that validate once uncommented", async () => {
+    const folder = join(dir, "demand");
+    expect(await main(["init", folder])).toBe(0);
+    const text = readFileSync(join(folder, "plan.yaml"), "utf8");
+    for (const key of ["unscheduledRechargesPerAircraftMonth", "otherUse", "stock"]) {
+      expect(text).toMatch(new RegExp(`^  # ${key}: `, "m"));
+    }
+    const uncommented = text.replace(
+      /^ {2}# (unscheduledRechargesPerAircraftMonth|otherUse|stock):/gm,
+      "  $1:",
+    );
+    writeFileSync(join(folder, "plan.yaml"), uncommented);
+    const plan = await loadPlan(join(folder, "plan.yaml"));
+    expect(plan.nitrogen.unscheduledRechargesPerAircraftMonth).toBe(0.03);
+    expect(plan.nitrogen.otherUse?.per).toBe("week");
+    expect(plan.nitrogen.stock?.cylinders).toBe(4);
+  });
+
   it("says in the folder where climate files go and where NOAA publishes them", async () => {
     expect(await main(["init", dir])).toBe(0);
     const note = readFileSync(join(dir, "README.txt"), "utf8");

@@ -71,12 +71,41 @@ describe("result tables", () => {
     expect(rows("bases")).toBe(results.bases.length);
     expect(rows("months")).toBe(perBase((b) => b.months));
     expect(rows("nitrogen_stays")).toBe(perBase((b) => b.nitrogen.stays));
+    expect(rows("nitrogen_fleet")).toBe(results.bases.length + 1);
+    expect(rows("nitrogen_timeline")).toBe(perBase((b) => b.nitrogen.timeline));
+    expect(rows("nitrogen_cylinder_gas")).toBe(perBase((b) => b.nitrogen.usableGas));
     expect(rows("stations")).toBe(perBase((b) => b.stations));
     expect(rows("stays")).toBe(results.stays.length);
     expect(rows("aircraft_actions")).toBe(results.actions.length);
     expect(rows("stay_months")).toBe(results.stays.reduce((n, s) => n + s.months.length, 0));
     expect(rows("advice")).toBe(perBase((b) => b.advice));
     expect(rows("assumptions")).toBe(results.assumptions.length);
+  });
+
+  it("names the nitrogen flows in one vocabulary: drawn = added + hose vented + other uses, released apart", () => {
+    // The identity of docs/methods.md §7, carried by the fixture's means (structure, not physics).
+    for (const name of ["nitrogen_stays", "nitrogen_fleet"]) {
+      const t = tables.find((x) => x.name === name)!;
+      const col = (c: string) => t.columns.indexOf(c);
+      for (const c of [
+        "drawn",
+        "added",
+        "added_servicing",
+        "added_unscheduled",
+        "hose_vented",
+        "other_use",
+        "released",
+      ]) {
+        expect(col(`${c}_kg_mean`), `${name}: ${c}_kg_mean`).toBeGreaterThanOrEqual(0);
+      }
+      for (const row of t.rows) {
+        const v = (c: string) => row[col(`${c}_kg_mean`)] as number;
+        expect(v("drawn")).toBeCloseTo(v("added") + v("hose_vented") + v("other_use"), 6);
+        expect(v("added")).toBeCloseTo(v("added_servicing") + v("added_unscheduled"), 6);
+      }
+    }
+    const fleet = tables.find((x) => x.name === "nitrogen_fleet")!;
+    expect(fleet.rows.map((r) => r[0])).toEqual([...results.bases.map(() => "base"), "fleet"]);
   });
 
   it("reads back through a CSV parser to the same cells, hostile text included", () => {

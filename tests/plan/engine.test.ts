@@ -213,7 +213,8 @@ describe("nitrogen per base (docs/methods.md §5, §7)", () => {
     // One climate year: each quantile is that year's value, so base = sum of the stays (definition).
     expect(n.kgP50).toBeCloseTo(a!.kgP50 + b!.kgP50, 12);
     expect(n.kgAddedP50).toBeCloseTo(a!.kgAddedP50 + b!.kgAddedP50, 12);
-    expect(n.kgVentedP50).toBeCloseTo(a!.kgVentedP50 + b!.kgVentedP50, 12);
+    expect(n.kgHoseVentedP50).toBeCloseTo(a!.kgHoseVentedP50 + b!.kgHoseVentedP50, 12);
+    expect(n.kgReleasedP50).toBeCloseTo(a!.kgReleasedP50 + b!.kgReleasedP50, 12);
     expect(n.servicingEventsP50).toBe(a!.servicingEventsP50 + b!.servicingEventsP50);
     // One shared pool: a single cylinder serves both aircraft; carts = ceil(1 / 2 per cart).
     expect(n.cylindersP50).toBe(1);

@@ -10,7 +10,24 @@ import { type ProfileContext, profileContext } from "../../src/plan/context.js";
 import { buildDays } from "../../src/plan/days.js";
 import type { BaseClimate } from "../../src/plan/engine.js";
 import { type Plan, parsePlanText } from "../../src/plan/planFile.js";
+import type { Stay } from "../../src/plan/schedule.js";
 import { type SimOutcome, simulateStayYear } from "../../src/plan/simulate.js";
+
+const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
+
+/** A stay at the fixture's base "North Field" with its profile "standard", no option (or as `extra` says). */
+export function stayAt(aircraft: string, arrive: string, depart: string, extra: Partial<Stay> = {}): Stay {
+  return {
+    aircraft,
+    base: "North Field",
+    arrive,
+    depart,
+    coldStartOption: false,
+    profile: "standard",
+    line: 2,
+    ...extra,
+  };
+}
 
 /** Standard sea-level atmosphere, Pa (ISO 2533). */
 export const ATM_PA = 101325;
@@ -42,7 +59,7 @@ export function oneLitreUnit(t: Tree): void {
   p.fluid = { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" };
   p.thermalTimeConstant = "0 s";
   p.gasLoss = { rate: "0 psi/month", spread: 0 };
-  t.operations.weekdays = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
+  t.operations.weekdays = ALL_DAYS;
   delete t.bases[0].hangar;
 }
 

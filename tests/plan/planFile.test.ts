@@ -57,4 +57,45 @@ describe("plan file", () => {
       /^plan\.yaml:\d+:profiles\[0\]\.gasLoss\.rate: expected a loss per month smaller than the reference precharge$/,
     );
   });
+
+  it("reads the nitrogen demand items and names file, line and field of a bad one", () => {
+    // Definitions: 1 lb = 0.45359237 kg (NIST SP 811); a week = 7 × 86 400 s.
+    const plan = parsePlanText(text, "plan.yaml");
+    expect(plan.nitrogen.unscheduledRechargesPerAircraftMonth).toBe(0);
+    expect(plan.nitrogen.otherUse).toEqual({ amount: 0, per: "flown-day" });
+    expect(plan.nitrogen.stock).toEqual({ cylinders: 2, resupplyEvery: 28 * 86400 });
+    const nitrogen = (lines: string) =>
+      text.replace(
+        / {2}unscheduledRechargesPerAircraftMonth[^\n]*\n {2}otherUse[^\n]*\n {2}stock[^\n]*\n/,
+        lines,
+      );
+    const line =
+      text.split("\n").findIndex((l) => l.startsWith("  unscheduledRechargesPerAircraftMonth")) + 1;
+    const perBase = parsePlanText(
+      nitrogen('  otherUse: { amount: "2 scf", per: week }\n  stock: { cylinders: { North Field: 3 } }\n'),
+      "plan.yaml",
+    );
+    // One scf of nitrogen: 1.160424 kg/m³ (units/factors.ts, Span et al. 2000) × 0.028316847 m³ (NIST SP 811).
+    expect(perBase.nitrogen.otherUse!.amount).toBeCloseTo(2 * 0.0328595, 6);
+    expect(perBase.nitrogen.stock).toEqual({ cylinders: { "North Field": 3 } });
+    expect(perBase.nitrogen.unscheduledRechargesPerAircraftMonth).toBe(0);
+    expect(errorOf(nitrogen("  unscheduledRechargesPerAircraftMonth: -0.1\n"))).toBe(
+      `plan.yaml:${line}:nitrogen.unscheduledRechargesPerAircraftMonth: expected a number ≥ 0`,
+    );
+    expect(errorOf(nitrogen('  otherUse: { amount: "2 psi", per: flown-day }\n'))).toMatch(
+      new RegExp(`^plan\\.yaml:${line}:nitrogen\\.otherUse\\.amount: "2 psi": unknown or missing unit "psi"`),
+    );
+    expect(errorOf(nitrogen('  otherUse: { amount: "2 lb", per: month }\n'))).toBe(
+      `plan.yaml:${line}:nitrogen.otherUse.per: expected one of "flown-day", "week"`,
+    );
+    expect(errorOf(nitrogen("  stock: { cylinders: { South Pad: 3 } }\n"))).toBe(
+      `plan.yaml:${line}:nitrogen.stock.cylinders.South Pad: unknown base "South Pad"; expected one of the plan's bases: North Field`,
+    );
+    expect(errorOf(nitrogen("  stock: { cylinders: 2.5 }\n"))).toBe(
+      `plan.yaml:${line}:nitrogen.stock.cylinders: expected a whole number of full cylinders, or base names with their numbers`,
+    );
+    expect(errorOf(nitrogen('  stock: { cylinders: 2, resupplyEvery: "12 h" }\n'))).toBe(
+      `plan.yaml:${line}:nitrogen.stock.resupplyEvery: expected an interval of at least one day`,
+    );
+  });
 });

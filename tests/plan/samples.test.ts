@@ -4,23 +4,11 @@
  */
 import { describe, expect, it } from "vitest";
 import { gasLossDraws, prepareSamples } from "../../src/plan/samples.js";
-import type { Stay } from "../../src/plan/schedule.js";
-import { fixturePlan, syntheticClimate, type Tree } from "./helpers.js";
+import { fixturePlan, stayAt, syntheticClimate, type Tree } from "./helpers.js";
 
 const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
 
-function stay(aircraft: string, arrive: string, depart: string, extra: Partial<Stay> = {}): Stay {
-  return {
-    aircraft,
-    base: "North Field",
-    arrive,
-    depart,
-    coldStartOption: false,
-    profile: "standard",
-    line: 2,
-    ...extra,
-  };
-}
+const stay = stayAt;
 
 /** Two profiles alike but for their names, every weekday flown, years 2014–2016. */
 function twoProfiles(spread: number) {

@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { drawWeekdays, fnv1a, gasLossFactor } from "../../src/plan/random.js";
+import {
+  drawWeekdays,
+  fnv1a,
+  gasLossFactor,
+  poissonCount,
+  stream,
+  unscheduledRechargeDays,
+} from "../../src/plan/random.js";
 import { gumbelMinimumReturnLevel, quantile } from "../../src/plan/stats.js";
 
 describe("statistics", () => {
@@ -55,5 +62,51 @@ describe("seeded random inputs", () => {
     expect(new Set(w).size).toBe(4);
     expect(drawWeekdays(11, 4)).toEqual(w);
     expect(drawWeekdays(11, 7)).toEqual([1, 2, 3, 4, 5, 6, 7]);
+  });
+
+  it("unscheduled recharges: the mean count over many seeds converges to rate × aircraft-months", () => {
+    // Poisson process (definition): over N independent stays the total count is Poisson with mean
+    // N·λ·months, so the sample mean's standard error is √(λ·months/N). Tolerance: 4 standard errors
+    // (a false alarm about once in 16 000 runs; the draws are seeded, so the test is deterministic).
+    // 0.05 per aircraft-month over a 150-day stay (a month = 365.2425/12 days): mean 0.246412.
+    const rate = 0.05;
+    const days = 150;
+    const expected = (rate * days) / (365.2425 / 12);
+    expect(expected).toBeCloseTo(0.246412, 6);
+    const n = 20000;
+    let total = 0;
+    for (let i = 0; i < n; i++) {
+      const d = unscheduledRechargeDays(i, `base|AC${i % 7}|2027-11-01|2015|${i % 3}`, rate, days);
+      total += d.length;
+      for (const x of d) expect(x >= 0 && x < days).toBe(true);
+      expect(d).toEqual([...d].sort((a, b) => a - b));
+    }
+    expect(Math.abs(total / n - expected)).toBeLessThan(4 * Math.sqrt(expected / n));
+  });
+
+  it("Poisson counts: mean and variance both equal the mean, in one piece and in chunks above 100", () => {
+    // Poisson distribution: E[N] = Var[N] = m. Tolerance 4 standard errors of the mean, √(m/n), and for
+    // the variance 4·√(Var of the sample variance) ≈ 4·m·√(2/n + 1/(m·n)) (Poisson fourth moment).
+    for (const m of [0.3, 4, 250]) {
+      const u = stream(17, `poisson-test-${m}`);
+      const n = 4000;
+      const x = Array.from({ length: n }, () => poissonCount(u, m));
+      const mean = x.reduce((a, b) => a + b, 0) / n;
+      const variance = x.reduce((a, b) => a + (b - mean) ** 2, 0) / (n - 1);
+      expect(Math.abs(mean - m), `mean at m = ${m}`).toBeLessThan(4 * Math.sqrt(m / n));
+      expect(Math.abs(variance - m), `variance at m = ${m}`).toBeLessThan(
+        4 * m * Math.sqrt(2 / n + 1 / (m * n)),
+      );
+    }
+    expect(poissonCount(stream(1, "zero"), 0)).toBe(0);
+    expect(() => poissonCount(stream(1, "x"), -1)).toThrow(/Poisson mean/);
+  });
+
+  it("unscheduled recharges are reproducible, keyed by their stream, and none at rate 0", () => {
+    const a = unscheduledRechargeDays(5, "Korrash|AC03|2027-12-01|2014|0", 2, 100);
+    expect(unscheduledRechargeDays(5, "Korrash|AC03|2027-12-01|2014|0", 2, 100)).toEqual(a);
+    expect(unscheduledRechargeDays(5, "Korrash|AC03|2027-12-01|2014|1", 2, 100)).not.toEqual(a);
+    expect(unscheduledRechargeDays(6, "Korrash|AC03|2027-12-01|2014|0", 2, 100)).not.toEqual(a);
+    expect(unscheduledRechargeDays(5, "Korrash|AC03|2027-12-01|2014|0", 0, 100)).toEqual([]);
   });
 });

@@ -93,6 +93,7 @@ describe("report structure", () => {
     expect(h2).toEqual([
       "Caution: read before use",
       "Fleet summary",
+      "Nitrogen to ship",
       "Contents",
       "Aircraft actions",
       ...results.bases.map((b) => `Base ${b.name}`),
@@ -129,6 +130,47 @@ describe("report structure", () => {
     expect(elements(inner(tokens, cells[9]!)).some((e) => e.attrs["class"] === "mark mark-low")).toBe(true);
     // An "act" cell carries the share that set it with its interval.
     expect(text(cells[0]!)).toMatch(/^Act \d+\.\d % \(\d+\.\d–\d+\.\d\)$/);
+  });
+
+  it("rolls the nitrogen up near the top: a row per base and the fleet, labelled sums, causes, stock, cautions", () => {
+    // Structure only: the fixture's nitrogen numbers are made up.
+    const all = els.filter((e) => e.name === "section");
+    const i = all.findIndex((e) => e.attrs["id"] === "fleet");
+    expect(all[i + 1]!.attrs["id"]).toBe("nitrogen-fleet");
+    const part = all[i + 1]!;
+    const inside = elements(inner(tokens, part));
+    const tables = inside.filter((e) => e.name === "table");
+    const rowHeads = (t: Element) =>
+      elements(inner(tokens, t))
+        .filter((e) => e.name === "th" && e.attrs["scope"] === "row")
+        .map(text);
+    const names = results.bases.map((b) => b.name);
+    expect(rowHeads(tables[0]!)).toEqual([...names, "Fleet total"]);
+    expect(rowHeads(tables[1]!)).toEqual([...names, "Fleet total"]);
+    expect(rowHeads(tables[2]!)).toEqual(names);
+    const t = text(part);
+    expect(t).toMatch(/not the sum of the bases' quantiles/);
+    expect(t).toMatch(/sum of each base's own count/);
+    expect(t).toMatch(
+      /Added by servicing.*Added by unscheduled full recharges.*Vented from hoses.*Given to other uses.*Drawn from cylinders.*Released from accumulators/,
+    );
+    expect(t).toMatch(/runs out at P90 on 2027-02-20/);
+    expect(t).toMatch(/Not included:/);
+    expect(t).toMatch(/Asphyxiation/);
+    expect(t).toMatch(/UN 1066/);
+  });
+
+  it("gives each base's nitrogen the flows in one vocabulary, the usable gas, a timeline and the stock status", () => {
+    const sec = els.find((e) => e.name === "section" && e.attrs["id"] === "base-1")!;
+    const n2 = elements(inner(tokens, sec)).find((e) => e.attrs["data-section"] === "nitrogen")!;
+    const t = text(n2);
+    expect(t).toMatch(
+      /= Added by servicing.*\+ Added by unscheduled full recharges.*\+ Vented from hoses at disconnect.*\+ Given to other uses.*apart: Released from accumulators/,
+    );
+    expect(t).toMatch(/fill temperature.*mean site temperature.*coldest site temperature/);
+    expect(t).toMatch(/runs out at P90 on 2027-02-20/);
+    expect(t).toMatch(/UN 1066/);
+    expect(elements(inner(tokens, n2)).filter((e) => e.name === "figure")).toHaveLength(1);
   });
 
   it("puts the three users' lines on the first screen, each linked to its section", () => {
@@ -206,8 +248,9 @@ describe("report structure", () => {
 
   it("renders every chart as a well-formed SVG with a <title> repeated in its caption and titled axes", () => {
     const figures = els.filter((e) => e.name === "figure");
-    // Per base: climate 2, per profile 2 (base 1 flies "main"; base 2 flies "spare"), traces 2, risk 1, hours 1.
-    expect(figures).toHaveLength(results.bases.length * 8);
+    // Per base: climate 2, per profile 2 (base 1 flies "main"; base 2 flies "spare"), traces 2, risk 1, hours 1,
+    // nitrogen timeline 1.
+    expect(figures).toHaveLength(results.bases.length * 9);
     for (const fig of figures) {
       const content = inner(tokens, fig);
       const svgs = elements(content).filter((e) => e.name === "svg");

@@ -56,6 +56,22 @@ describe("quantity grammar", () => {
     expect(() => units.parsePressureAt("1450 psig @ 70 F @ 1 K")).toThrow(units.QuantityError);
   });
 
+  it("parses an amount of nitrogen as a mass or a gas volume at standard conditions, and weeks", () => {
+    // 1 lb = 0.45359237 kg exactly (NIST SP 811, Appendix B.8).
+    expect(units.parseGasAmountKg("1 lb")).toBe(units.KG_PER_LB);
+    expect(units.parseGasAmountKg("250 g")).toBeCloseTo(0.25, 12);
+    // Industrial gas conversion tables: 1 lb of nitrogen = 13.80 scf at 70 °F, 1 atm (from memory).
+    expect(units.parseGasAmountKg("13.80 scf") / units.KG_PER_LB).toBeCloseTo(1, 2);
+    // Same tables: 1 kg of nitrogen = 0.800 normal m³ at 0 °C, 1 atm (from memory).
+    expect(units.parseGasAmountKg("0.8 Nm3")).toBeCloseTo(1, 2);
+    expect(units.parseGasAmountKg("0.8 normal m³")).toBe(units.parseGasAmountKg("0.8 Nm3"));
+    expect(() => units.parseGasAmountKg("2 psi")).toThrow(/unknown or missing unit "psi"/);
+    expect(() => units.parseGasAmountKg("-1 kg")).toThrow(/cannot be negative/);
+    // A week is 7 days of 86 400 s (definition).
+    expect(units.parseTimeS("4 weeks")).toBe(28 * 86400);
+    expect(units.parseTimeS("1 week")).toBe(7 * 86400);
+  });
+
   it("parses differences, volumes, durations, energies, flows, expansion and rates into SI", () => {
     // NIST SP 811, Appendix B.8: 1 in³ = 16.387064 cm³; 1 gal (US) = 231 in³;
     // 1 ft·lbf = 1.355818 J; mean Gregorian month = 30.436875 d.

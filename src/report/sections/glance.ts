@@ -3,7 +3,7 @@
  * local months, then a few lines for each user, each linked to its section — the engineer's aircraft
  * actions, the planner's months with out-of-band first preflights and their worst hours of day, and the
  * logistics officer's nitrogen to ship. Reads `BaseResult.months` (status, figures, intervals, worst
- * hours), `Results.actions`, `Results.thresholds` and `BaseResult.nitrogen`.
+ * hours), `Results.actions`, `Results.thresholds`, `Results.nitrogenFleet` and each base's stock.
  */
 import type { AircraftAction, Results } from "../../plan/results.js";
 import { formatDisplay, pct, show, type UnitSystem } from "../../units/index.js";
@@ -106,18 +106,24 @@ function plannerLines(results: Results): GlanceLine[] {
   return out;
 }
 
-/** The logistics line: nitrogen and cylinders to ship with every base stocked at its own P95. */
+/**
+ * The logistics line, from the fleet roll-up: the fleet's demand at P50 and P90 (quantiles of the fleet
+ * sum), cylinders and carts (each base's own count, summed), and the bases whose stock runs out.
+ */
 function logisticsLines(results: Results, u: UnitSystem): GlanceLine[] {
-  const bases = results.bases;
-  const kg = bases.reduce((n, b) => n + b.nitrogen.kgP95, 0);
-  const cylinders = bases.reduce((n, b) => n + b.nitrogen.cylindersP95, 0);
-  const carts = bases.reduce((n, b) => n + b.nitrogen.cartsP95, 0);
-  const each = bases.map((b) => `${b.name} ${show(u.mass, b.nitrogen.kgP95)}`).join(", ");
+  const f = results.nitrogenFleet;
+  const m = (kg: number) => `${show(u.mass, kg)} ${u.mass.unit}`;
+  const plural = (n: number, word: string) => `${formatDisplay(n, 0)} ${word}${n === 1 ? "" : "s"}`;
+  const out = results.bases.filter((b) => b.nitrogen.stock.stockOutP90 !== null);
+  const stock =
+    out.length === 0
+      ? "No stated stock runs out at P90."
+      : `Stock runs out at P90: ${out.map((b) => `${b.name} on ${b.nitrogen.stock.stockOutP90}`).join(", ")}.`;
   return [
     {
-      text: `Nitrogen to ship, each base at its own P95 (a sum over bases, not a fleet quantile): ${show(u.mass, kg)} ${u.mass.unit} (${each} ${u.mass.unit}), ${formatDisplay(cylinders, 0)} cylinder${cylinders === 1 ? "" : "s"} on ${formatDisplay(carts, 0)} cart${carts === 1 ? "" : "s"}.`,
-      href: bases.length > 0 ? `#${sectionId(baseAnchor(0), "nitrogen")}` : "#tables",
-      link: "Nitrogen by base",
+      text: `Fleet nitrogen drawn: ${m(f.kgP50)} at P50, ${m(f.kgP90)} at P90; ${plural(f.cylindersP90, "cylinder")} on ${plural(f.cartsP90, "cart")} at P90 (each base's own count, summed). ${stock}`,
+      href: "#nitrogen-fleet",
+      link: "Nitrogen to ship",
     },
   ];
 }

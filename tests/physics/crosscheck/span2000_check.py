@@ -1,4 +1,5 @@
-"""Independent cross-check of the nitrogen figures of the physics tests.
+"""Independent cross-check of the nitrogen figures of the physics tests (equation of state, accumulator,
+cylinder contents and usable gas, full recharge from vented).
 
 Written from ../shared/reference/nitrogen-span2000.json only (Span et al. 2000), in another language
 and by another method than src/physics/nitrogen.ts: the Helmholtz energy is evaluated in 40-digit
@@ -89,3 +90,26 @@ for name, real in (("real", True), ("ideal", False)):
         return n / rho(pa, T) + vfc * (1 + alpha * (T - cK(20)) - (pa - pc) / K) - (vgc + vfc)
     pt = mp.findroot(bal, (psig(1500), psig(3000)), solver="anderson")
     print(" 1 L with fluid alpha/K/0.2 L:", mp.nstr(topsig(pt), 7))
+
+# Cylinder contents and usable gas (docs/methods.md §7): 49.9 L water volume filled to 2640 psig at 70 F,
+# spent at the lowest precharge target + 50 psi; molar mass 28.01348 g/mol (Span et al. 2000).
+p, u, s, rho = model(True)
+MKG = mp.mpf("0.02801348"); VC = mp.mpf("49.9e-3"); T70 = fK(70); TM30 = cK(-30)
+n_full = rho(psig(2640), T70) * VC
+print("== cylinder 49.9 L, 2640 psig @ 70 F")
+print(" full kg", mp.nstr(n_full * MKG, 7), " scf", mp.nstr(n_full * MKG / (mp.mpf("1.160424") * mp.mpf("0.028316846592")), 6))
+res = rho(psig(1500), T70) * VC
+print(" 70 F, residual at 1500 psig: residual kg", mp.nstr(res * MKG, 7), " usable kg", mp.nstr((n_full - res) * MKG, 7),
+      " usable %", mp.nstr((n_full - res) / n_full * 100, 5))
+print(" full at -30 C reads psig", mp.nstr(topsig(p(n_full / VC, TM30)), 7))
+res = rho(psig(1500), TM30) * VC
+print(" -30 C, residual at 1500 psig: usable kg", mp.nstr((n_full - res) * MKG, 7))
+line = topsig(p(rho(psig(1450), T70), TM30))
+res = rho(psig(line + 50), TM30) * VC
+print(" 1450 psig @ 70 F line at -30 C psig", mp.nstr(line, 7), "; residual at line + 50 psi: usable kg", mp.nstr((n_full - res) * MKG, 7))
+# Full recharge from vented of a 250 in3 gas side serviced to 1200 psig @ 70 F, gas and site at 70 F and at -20 C.
+v0 = 250 * mp.mpf("0.0254")**3
+n_ref = rho(psig(1200), T70) * v0
+for name, T in (("70 F", T70), ("-20 C", cK(-20))):
+    n_atm = rho(ATM, T) * v0
+    print(f" full recharge at {name}: adds kg", mp.nstr((n_ref - n_atm) * MKG, 7), " vented share %", mp.nstr(n_atm / n_ref * 100, 4))
