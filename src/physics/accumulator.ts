@@ -174,38 +174,48 @@ export function readingBand(
 }
 
 /**
- * The air around the accumulator over one time step. The ambient is held at its end-of-step value
- * over the whole step; a start-of-step value (for an ambient changing linearly across the step) is the
- * field this shape leaves room for.
+ * The air around the accumulator over one time step: its temperature at the step's start and end,
+ * taken as linear in time between them (the hourly series is linear between grid hours; a held value
+ * over a data gap has `startK` = `endK`).
  */
 export interface AmbientStep {
   /** Length of the step, s (≥ 0). */
   dtS: number;
+  /** Ambient temperature at the start of the step, K. */
+  startK: number;
   /** Ambient temperature at the end of the step, K. */
   endK: number;
 }
 
 /**
  * Accumulator temperature after one step of a first-order lag behind the ambient (lumped
- * capacitance), dT/dt = (Ta − T)/τ, solved exactly with Ta held over the step:
- * T ← Ta + (T − Ta)·exp(−Δt/τ); τ = 0 gives Ta.
+ * capacitance), dT/dt = (Ta(t) − T)/τ, solved exactly for an ambient linear in time over the step,
+ * Ta(t) = Ta(0) + r·t with r = (Ta(Δt) − Ta(0))/Δt:
+ * T(Δt) = Ta(Δt) − r·τ + (T(0) − Ta(0) + r·τ)·exp(−Δt/τ).
+ * On a steady ramp the accumulator trails the air by τ (r·τ in temperature) once the transient has
+ * died out; a held ambient (r = 0) gives T ← Ta + (T − Ta)·exp(−Δt/τ); τ = 0 gives Ta(Δt).
  *
  * @param tempK accumulator temperature at the start of the step, K
- * @param step the step's length `dtS` (s) and its ambient `endK` (K)
+ * @param step the step's length `dtS` (s) and its ambient at the start `startK` and end `endK` (K)
  * @param tauS thermal time constant τ, s (≥ 0)
  * @returns accumulator temperature at the end of the step, K
  *
  * References: Incropera, F. P., DeWitt, D. P. et al., "Fundamentals of Heat and Mass Transfer",
- * the lumped capacitance method (transient conduction); docs/methods.md, "Accumulator temperature".
+ * the lumped capacitance method (transient conduction); the solution of a first-order linear ordinary
+ * differential equation with a ramp input (integrating factor); docs/methods.md, "Accumulator
+ * temperature".
  *
  * @example
- * lagTempK(270, { dtS: 7200, endK: 280 }, 7200); // 280 − 10·e⁻¹ ≈ 276.32 K
+ * // τ = 2 h, accumulator and air at 0 °C, the air falling linearly to −10 °C over one hour:
+ * lagTempK(273.15, { dtS: 3600, startK: 273.15, endK: 263.15 }, 7200); // ≈ 271.0194 K (−2.1306 °C)
  */
 export function lagTempK(tempK: number, step: AmbientStep, tauS: number): number {
   requireNonNegative("dtS", step.dtS, "s");
   requireNonNegative("tauS", tauS, "s");
   if (tauS === 0) return step.endK;
-  return step.endK + (tempK - step.endK) * Math.exp(-step.dtS / tauS);
+  if (step.dtS === 0) return tempK;
+  const rTauK = ((step.endK - step.startK) / step.dtS) * tauS;
+  return step.endK - rTauK + (tempK - step.startK + rTauK) * Math.exp(-step.dtS / tauS);
 }
 
 /**

@@ -17,9 +17,10 @@ export const METHODS: MethodNote[] = [
   },
   {
     name: "Accumulator temperature",
-    source: "First-order lag, exact solution for a constant ambient over each step",
+    source:
+      "First-order lag (lumped capacitance), exact solution for an ambient linear in time over each step (docs/methods.md §3)",
     description:
-      "T ← Ta + (T − Ta)·exp(−Δt/τ), with Ta the ambient (or hangar) temperature at the end of each step; τ = 0 gives the ambient.",
+      "T ← Ta(end) − r·τ + (T − Ta(start) + r·τ)·exp(−Δt/τ), with r the slope of the ambient (or hangar) temperature over the step, linear between grid hours; on a steady ramp the accumulator trails the air by τ. A data gap holds the last known value (r = 0); τ = 0 gives the ambient.",
   },
   {
     name: "Trapped charge",

@@ -2,8 +2,9 @@
  * The hour-by-hour simulation of one stay on one climate year (docs/methods.md §5).
  *
  * State: accumulator temperature (first-order lag behind ambient, `lagTempK` of the physics module:
- * exact update over each step with the ambient at the step's end, so τ = 0 gives the ambient itself;
- * the outdoor ambient between grid hours is the climate module's `tempAtUtcMs`), gas amount per unit
+ * exact update over each step for an ambient linear between its values at the step's two ends, so
+ * τ = 0 gives the ambient itself; the outdoor ambient between grid hours is the climate module's
+ * `tempAtUtcMs`, linear between grid hours), gas amount per unit
  * (falls continuously by the aircraft's gas-loss rate, the profile context's `gasLossMolS`), and the
  * charged state at the end of the last recharge (the fluid is trapped until the next start;
  * docs/methods.md, "Trapped charge").

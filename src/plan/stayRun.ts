@@ -75,7 +75,7 @@ export class StayRun {
   /** Gas loss of this aircraft, mol/s per unit. */
   private readonly lossMolS: number;
   /** The step the lag advances over (one object reused in the hot loop). */
-  private readonly step: AmbientStep = { dtS: 0, endK: 0 };
+  private readonly step: AmbientStep = { dtS: 0, startK: 0, endK: 0 };
   private readonly dischargeOut = new Float64Array(2);
   private readonly traceFrom: number;
   private readonly traceTo: number;
@@ -166,9 +166,10 @@ export class StayRun {
   }
 
   /**
-   * Advances lag and gas loss from `cur` to `t` with the ambient at `t` (the hangar's when the step's
-   * midpoint is in the hangar; steps never straddle a hangar boundary). Returns the ambient a
-   * technician reads at `t` (NaN if missing).
+   * Advances lag and gas loss from `cur` to `t`, the ambient linear between its values at both ends of
+   * the step in the step's environment (the hangar's when the step's midpoint is in the hangar; steps
+   * never straddle a hangar boundary). A missing end holds the last known ambient over the step (r = 0);
+   * a missing start takes the held value. Returns the ambient a technician reads at `t` (NaN if missing).
    */
   private advance(day: DayPlan, t: number): number {
     const { inp, prevDay } = this;
@@ -176,12 +177,16 @@ export class StayRun {
     const mid = (this.cur + t) / 2;
     const inHangar =
       inp.hangarTempK !== null && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
-    const stepAmb = inHangar ? inp.hangarTempK! : outdoorK(inp.series, t);
-    if (Number.isFinite(stepAmb)) this.lastAmbK = stepAmb;
+    const heldK = this.lastAmbK;
+    const startK = inHangar ? inp.hangarTempK! : outdoorK(inp.series, this.cur);
+    const endK = inHangar ? inp.hangarTempK! : outdoorK(inp.series, t);
+    const endKnown = Number.isFinite(endK);
+    if (endKnown) this.lastAmbK = endK;
     const dtS = (t - this.cur) / 1000;
     const tauS = this.ctx.tauS;
     if (dtS > 0 || tauS === 0) {
       this.step.dtS = Math.max(dtS, 0);
+      this.step.startK = endKnown && Number.isFinite(startK) ? startK : heldK;
       this.step.endK = this.lastAmbK;
       this.accK = lagTempK(this.accK, this.step, tauS);
     }

@@ -316,15 +316,57 @@ describe("gas loss", () => {
 });
 
 describe("lagged temperature", () => {
-  it("exact first-order update; τ = 0 follows ambient; one τ reaches 1 − e⁻¹ of a step", () => {
-    // Brief, section 3: T ← Ta + (T − Ta)·exp(−Δt/τ); first-order step response (textbook).
-    expect(lagTempK(250, { dtS: 3600, endK: 280 }, 0)).toBe(280);
-    expect((lagTempK(270, { dtS: 7200, endK: 280 }, 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
-    // Exactness: two half steps equal one whole step.
-    const halfStep = { dtS: 1800, endK: 260 };
-    const half = lagTempK(lagTempK(300, halfStep, 5000), halfStep, 5000);
-    expect(half).toBeCloseTo(lagTempK(300, { dtS: 3600, endK: 260 }, 5000), 12);
-    expect(() => lagTempK(300, { dtS: 3600, endK: 260 }, -1)).toThrow(/tauS: -1/);
+  /** A held ambient over the step (start = end). */
+  const held = (dtS: number, k: number) => ({ dtS, startK: k, endK: k });
+
+  it("exact first-order update for a held ambient; τ = 0 follows ambient; one τ reaches 1 − e⁻¹ of a step", () => {
+    // First-order step response T ← Ta + (T − Ta)·exp(−Δt/τ) (textbook; docs/methods.md, "Accumulator
+    // temperature").
+    expect(lagTempK(250, { dtS: 3600, startK: 270, endK: 280 }, 0)).toBe(280);
+    expect((lagTempK(270, held(7200, 280), 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
+    expect(lagTempK(270, { dtS: 0, startK: 250, endK: 290 }, 7200)).toBe(270);
+    expect(() => lagTempK(300, held(3600, 260), -1)).toThrow(/tauS: -1/);
+  });
+
+  it("τ = 2 h, 0 °C, air falling linearly to −10 °C over 1 h: −2.1306 °C (holding the end ambient: −3.9347 °C)", () => {
+    // Computed by hand from the exact solution for a linear ambient (docs/methods.md, "Accumulator
+    // temperature"): r = −10 K/h, r·τ = −20 K, T = −10 + 20 + (0 − 0 − 20)·e^(−1/2) = −2.1306 °C;
+    // holding −10 °C over the step: −10 + 10·e^(−1/2) = −3.9347 °C.
+    const k0 = 273.15;
+    const ramp = lagTempK(k0, { dtS: 3600, startK: k0, endK: k0 - 10 }, 7200) - k0;
+    expect(ramp).toBeCloseTo(-2.1306, 4);
+    expect(ramp).toBeCloseTo(10 - 20 * Math.exp(-0.5), 12);
+    const heldEnd = lagTempK(k0, held(3600, k0 - 10), 7200) - k0;
+    expect(heldEnd).toBeCloseTo(-3.9347, 4);
+  });
+
+  it("is exact for a linear ambient: two half steps equal one whole step, whatever the slope", () => {
+    // Exactness of the closed-form solution (semigroup property of a linear ODE's flow).
+    const whole = lagTempK(300, { dtS: 3600, startK: 290, endK: 260 }, 5000);
+    const a = lagTempK(300, { dtS: 1800, startK: 290, endK: 275 }, 5000);
+    expect(lagTempK(a, { dtS: 1800, startK: 275, endK: 260 }, 5000)).toBeCloseTo(whole, 10);
+  });
+
+  it("on a steady ramp the accumulator trails the air by τ after 12 τ (to 1 s), by Δt·e^(−Δt/τ)/(1 − e^(−Δt/τ)) when the end ambient is held", () => {
+    // Exact ramp response (first-order linear ODE): from T = Ta, the lag (Ta − T)/r = τ·(1 − e^(−t/τ)),
+    // short of τ by τ·e^(−12) ≈ 0.04 s after 12 τ (τ = 2 h). Holding each step's end ambient is a
+    // recursion whose fixed point trails by Δt·e^(−Δt/τ)/(1 − e^(−Δt/τ)) = 1.54 h for τ = 2 h, Δt = 1 h
+    // (hand derivation: lag L solves L = (L + Δt)·e^(−Δt/τ)).
+    const tauS = 7200;
+    const rKS = -5 / 3600; // −5 K per hour
+    let ta = 280;
+    let exact = ta;
+    let heldEnd = ta;
+    for (let h = 0; h < 24; h++) {
+      const next = ta + rKS * 3600;
+      exact = lagTempK(exact, { dtS: 3600, startK: ta, endK: next }, tauS);
+      heldEnd = lagTempK(heldEnd, held(3600, next), tauS);
+      ta = next;
+    }
+    expect(Math.abs((ta - exact) / rKS - tauS)).toBeLessThan(1);
+    const e = Math.exp(-0.5);
+    expect((ta - heldEnd) / rKS / 3600).toBeCloseTo(e / (1 - e), 3);
+    expect(e / (1 - e)).toBeCloseTo(1.54, 2); // 1.54 h for τ = 2 h, Δt = 1 h (same derivation)
   });
 });
 

@@ -96,6 +96,28 @@ describe("simulation physics identities", () => {
 });
 
 describe("hangar hours and the accumulator lag", () => {
+  it("on a steadily falling air temperature the accumulator follows the exact ramp solution, also between grid hours", () => {
+    // Exact solution of dT/dt = (Ta(t) − T)/τ for Ta linear in time, from T = Ta at arrival (local
+    // midnight; docs/methods.md, "Accumulator temperature"): T(t) = Ta(t) − r·τ·(1 − e^(−t/τ)).
+    // τ = 2 h, r = −0.5 K/h, preflight at 06:30 (between grid hours, where the air is interpolated
+    // linearly): T = Ta(6.5 h) + 1·(1 − e^(−3.25)).
+    const plan = fixturePlan((t) => {
+      oneLitreUnit(t);
+      t.profiles[0].thermalTimeConstant = "2 h";
+      t.operations.startTimes = ["06:30", "12:00"];
+    });
+    const from = Date.UTC(2014, 0, 1);
+    const climate = syntheticClimate((ms) => 10 - (0.5 * (ms - from)) / HOUR_MS, from, from + 72 * HOUR_MS);
+    const out = simulateUtcStay(plan, climate.series, {
+      arrive: "2027-01-01",
+      depart: "2027-01-02",
+      climateYear: 2014,
+    });
+    const p = out.preflights[0]!;
+    expect(p.ambientC).toBeCloseTo(10 - 0.5 * 6.5, 12);
+    expect(p.accumulatorC).toBeCloseTo(10 - 0.5 * 6.5 + 1 - Math.exp(-3.25), 9);
+  });
+
   it("the accumulator leaves a 15 °C hangar at 06:00 and follows −20 °C by the exact first-order lag", () => {
     // Exact solution of dT/dt = (Ta − T)/τ for a constant ambient: T = Ta + (T0 − Ta)·exp(−t/τ)
     // (first-order linear ODE); τ = 2 h, one hour outside: −20 + 35·e^(−1/2) °C.
