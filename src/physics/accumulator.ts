@@ -417,6 +417,80 @@ export function trappedState(
   return res;
 }
 
+/** A thermal relief of a trapped charge: the new reference state and the fluid let out. */
+export interface ReliefResult {
+  /** The relief state, the fluid model's new reference c (fluid kept, at the relief pressure and tempK). */
+  charge: ChargedState;
+  /** Fluid relieved per unit, m³, measured at tempK and the relief pressure. */
+  relievedM3: number;
+}
+
+/**
+ * Thermal relief of a trapped charge (docs/methods.md §3, "Thermal relief"): where the trapped fluid
+ * pressure would exceed the relief valve's pressure, the valve lets fluid out and the pressure holds at
+ * the relief value. The gas takes its volume at the relief pressure and tempK, n/ρ(P_r, T) (or Vmin on
+ * the gas-side stop, where the gas stays below the fluid), the fluid kept fills the rest of the closed
+ * volume V_gas,c + V_f,c, and the fluid relieved is what the trapped-fluid law would have held at
+ * (T, P_r), V_f,c·(1 + α(T − T_c) − (P_r − P_c)/K), less the fluid kept. The relief state becomes the
+ * reference state c of the fluid model, so a later cooling starts from the fluid that is left.
+ *
+ * @param model gas model
+ * @param geometry V0 and Vmin, m³
+ * @param fluid α (1/K), K (Pa) and the trapped line volume (m³)
+ * @param c the reference state of the trapped fluid (end of the last recharge, or the last relief)
+ * @param tempK accumulator (and trapped fluid) temperature now, K
+ * @param amountMol gas amount per unit now, mol
+ * @param reliefAbsPa relief pressure, Pa absolute
+ * @param trapped the trapped state now (`trappedState` of the same inputs)
+ * @returns the relief state and the fluid relieved, or null when the fluid pressure does not exceed
+ *   the relief pressure
+ *
+ * References: Span, R. et al. (2000), J. Phys. Chem. Ref. Data 29(6) (the gas density); linear
+ * thermal expansion and bulk modulus of the trapped fluid (docs/methods.md §3, "Trapped charge").
+ *
+ * @example
+ * // 1 L unit (1450 psig at 70 °F), 0.2 L line, α 8e-4/K, K 1.5 GPa, charged to 3000 psig at 0 °C,
+ * // warmed to 30 °C with relief at 3300 psig (22.854 MPa absolute): 39.4 mL relieved
+ * thermalRelief(realGas, geometry, fluid, c, 303.15, n, 22.854e6, trappedState(realGas, geometry, fluid, c, 303.15, n));
+ */
+export function thermalRelief(
+  model: GasModel,
+  geometry: AccumulatorGeometry,
+  fluid: FluidProps,
+  c: ChargedState,
+  tempK: number,
+  amountMol: number,
+  reliefAbsPa: number,
+  trapped: TrappedState,
+): ReliefResult | null {
+  requirePositive("reliefAbsPa", reliefAbsPa, "Pa");
+  if (!(trapped.fluidPressureAbsPa > reliefAbsPa)) return null;
+  let gasVolumeM3 = amountMol / model.densityMolM3(reliefAbsPa, tempK);
+  let gasPressureAbsPa = reliefAbsPa;
+  if (gasVolumeM3 < geometry.vminM3) {
+    gasVolumeM3 = geometry.vminM3;
+    gasPressureAbsPa = model.pressurePa(amountMol / gasVolumeM3, tempK);
+  } else if (gasVolumeM3 > geometry.v0M3) {
+    gasVolumeM3 = geometry.v0M3;
+    gasPressureAbsPa = model.pressurePa(amountMol / gasVolumeM3, tempK);
+  }
+  const fluidVolumeM3 = c.gasVolumeM3 + c.fluidVolumeM3 - gasVolumeM3;
+  const heldM3 =
+    c.fluidVolumeM3 *
+    (1 + fluid.alphaPerK * (tempK - c.tempK) - (reliefAbsPa - c.fluidPressureAbsPa) / fluid.bulkModulusPa);
+  return {
+    charge: {
+      amountMol,
+      tempK,
+      gasPressureAbsPa,
+      fluidPressureAbsPa: reliefAbsPa,
+      gasVolumeM3,
+      fluidVolumeM3,
+    },
+    relievedM3: Math.max(0, heldM3 - fluidVolumeM3),
+  };
+}
+
 const startProps = new Float64Array(6);
 
 /** The starter's needs from the accumulator. */

@@ -17,6 +17,7 @@ import {
   readingPct,
   recharge,
   startDischarge,
+  thermalRelief,
   trappedState,
 } from "../../src/physics/accumulator.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
@@ -300,6 +301,63 @@ describe("trapped charge", () => {
     const cold = trappedState(realGas, geometry, fluid, nearEmpty, cToK(-40), n);
     expect(cold.gasVolumeM3).toBe(geometry.v0M3);
     expect(cold.fluidPressureAbsPa).toBeLessThanOrEqual(cold.gasPressureAbsPa);
+  });
+});
+
+describe("thermal relief", () => {
+  // Check values: Span et al. (2000) equation of state and the trapped-fluid model and relief rule of
+  // docs/methods.md §3, computed independently in 40-digit arithmetic by
+  // tests/physics/crosscheck/relief_check.py (mpmath, written from the reference coefficients; output in
+  // relief_check.out): 3645.82 psig, 39.38 mL, 2736.52 psig (2738.58 with the recharge state kept as
+  // reference), 4.413 kJ and 4.203 kJ. The unit: 1 L gas volume at 0 % fill (gas-side stop not
+  // reached), precharge 1450 psig at 70 °F, 0.2 L trapped line fluid, α = 8e-4 /K, K = 1.5 GPa.
+  const geometry: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.1e-3 };
+  const fluid = { alphaPerK: 8e-4, bulkModulusPa: 1.5e9, lineVolumeM3: 0.2e-3 };
+  const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), 1e-3);
+  const c = chargedState(realGas, geometry, fluid, n, cToK(0), psigToAbs(3000));
+  const relief = psigToAbs(3300);
+  const warm = trappedState(realGas, geometry, fluid, c, cToK(30), n);
+  const relieved = thermalRelief(realGas, geometry, fluid, c, cToK(30), n, relief, warm)!;
+  const starter = { minUsefulAbsPa: psigToAbs(1000), returnAbsPa: ATM };
+
+  it("charged to 3000 psig at 0 °C and warmed to 30 °C: 3645.8 psig without relief", () => {
+    expect(absToPsig(warm.fluidPressureAbsPa)).toBeCloseTo(3645.8, 1);
+    expect(thermalRelief(realGas, geometry, fluid, c, cToK(30), n, psigToAbs(3700), warm)).toBeNull();
+  });
+
+  it("with relief at 3300 psig: 39.4 mL relieved at 30 °C, the pressure holds at the relief value", () => {
+    expect(relieved.relievedM3 * 1e6).toBeCloseTo(39.38, 1);
+    expect(relieved.charge.fluidPressureAbsPa).toBe(relief);
+    expect(relieved.charge.gasPressureAbsPa).toBe(relief);
+    // The closed volume is kept (docs/methods.md §3), and the relief state is a trapped solution.
+    expect(relieved.charge.gasVolumeM3 + relieved.charge.fluidVolumeM3).toBeCloseTo(
+      c.gasVolumeM3 + c.fluidVolumeM3,
+      15,
+    );
+    const again = trappedState(realGas, geometry, fluid, relieved.charge, cToK(30), n);
+    expect(absToPsig(again.gasPressureAbsPa)).toBeCloseTo(3300, 6);
+  });
+
+  it("cooled back to 0 °C from the relief state: 2736.5 psig instead of 3000; start energy 4.41 → 4.20 kJ", () => {
+    const cold = trappedState(realGas, geometry, fluid, relieved.charge, cToK(0), n);
+    expect(absToPsig(cold.gasPressureAbsPa)).toBeCloseTo(2736.5, 1);
+    // Isentropic start to 1000 psig, return at atmospheric pressure (docs/methods.md §3, "Start energy").
+    const before = startDischarge(realGas, geometry, 1, n, cToK(0), c.gasVolumeM3, starter);
+    const after = startDischarge(realGas, geometry, 1, n, cToK(0), cold.gasVolumeM3, starter);
+    expect(before.hydraulicEnergyJ / 1000).toBeCloseTo(4.413, 2);
+    expect(after.hydraulicEnergyJ / 1000).toBeCloseTo(4.203, 2);
+  });
+
+  it("on the gas-side stop the gas keeps Vmin below the relief pressure and the fluid holds at it", () => {
+    // Stop rule of docs/methods.md §3 ("Geometry and reading"): at 100 % the fluid rises above the gas.
+    const small: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.6e-3 };
+    const full = chargedState(realGas, small, fluid, n, cToK(0), psigToAbs(3000));
+    expect(full.gasVolumeM3).toBe(small.vminM3);
+    const hot = trappedState(realGas, small, fluid, full, cToK(30), n);
+    const r = thermalRelief(realGas, small, fluid, full, cToK(30), n, relief, hot)!;
+    expect(r.charge.gasVolumeM3).toBe(small.vminM3);
+    expect(r.charge.gasPressureAbsPa).toBeLessThan(relief);
+    expect(r.relievedM3).toBeGreaterThan(0);
   });
 });
 
