@@ -125,6 +125,19 @@ export function resultTables(r: Results): Table[] {
       ],
     ),
     table(
+      "trapped_charge",
+      perBase(r, (b) => b.trappedCharge),
+      [
+        baseName,
+        ["month", ({ x }) => x.month],
+        ["peak_trapped_kpa_gauge", ({ x }) => x.peakTrappedKPaGauge],
+        ["relief_events", ({ x }) => x.reliefEvents],
+        ["relief_events_per_year", ({ x }) => x.reliefEventsPerYear],
+        ["relieved_l", ({ x }) => x.relievedL],
+        ["relieved_l_per_year", ({ x }) => x.relievedLPerYear],
+      ],
+    ),
+    table(
       "out_of_band_by_hour",
       perBase(r, (b) => b.outOfBandByHour),
       [

@@ -90,6 +90,8 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
     pressure(["system", "low"], "system pressure, low", p.system.low);
     pressure(["system", "nominal"], "system pressure, nominal", p.system.nominal);
     pressure(["system", "high"], "system pressure, high", p.system.high);
+    if (p.reliefPressure === undefined) a(["reliefPressure"], "thermal relief pressure", "text", "none");
+    else pressure(["reliefPressure"], "thermal relief pressure", p.reliefPressure);
     a(["fluid", "expansionPerK"], "fluid volumetric expansion", "expansion", p.fluid.expansionPerK);
     a(["fluid", "bulkModulus"], "fluid bulk modulus", "pressureDifference", p.fluid.bulkModulus);
     a(["fluid", "lineVolume"], "trapped line fluid volume", "volume", p.fluid.lineVolume);

@@ -11,6 +11,7 @@ import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 import { baseNitrogen } from "./supplyPlan.js";
 import { overnightTraces } from "./traces.js";
+import { trappedChargeMonths } from "./trappedStats.js";
 
 function stationResult(s: StationClimate): StationResult {
   const c = stationCoverage(s);
@@ -42,5 +43,6 @@ export function aggregateBase(
     advice: statistics.advice,
     traces: overnightTraces(sim, base, outcomes),
     nitrogen: baseNitrogen(plan, sim.model, base, outcomes, warnings),
+    trappedCharge: trappedChargeMonths(plan, base, outcomes, warnings),
   };
 }

@@ -30,6 +30,12 @@ export const METHODS: MethodNote[] = [
       "Between recharges the fluid is trapped: V_f = V_f,c·(1 + α(T − T_c) − (P − P_c)/K); gas volume plus fluid volume constant; gas loss lowers the amount continuously.",
   },
   {
+    name: "Thermal relief",
+    source: "Trapped-fluid model with a relief valve (docs/methods.md §3); gas from Span et al. (2000)",
+    description:
+      "Where the trapped fluid pressure would exceed the profile's relief pressure, fluid is let out and the pressure holds at the relief value; the fluid relieved is lost until the next recharge and the relief state becomes the fluid's reference, so the next cold morning reads lower. Checked at the end of every step (at least hourly); consecutive steps with the valve open are one opening. Without a relief valve a warning names each base-month where the trapped pressure exceeds 1.1 × the system high.",
+  },
+  {
     name: "Preflight and servicing",
     source: "coldsoak servicing model (docs/methods.md §5)",
     description:

@@ -45,6 +45,20 @@ const clock = q(parseClockMinutes);
 const NAME_RE = /^[A-Za-z0-9][A-Za-z0-9 _.-]*$/;
 
 export const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"] as const;
+export const MONTH_NAMES = [
+  "Jan",
+  "Feb",
+  "Mar",
+  "Apr",
+  "May",
+  "Jun",
+  "Jul",
+  "Aug",
+  "Sep",
+  "Oct",
+  "Nov",
+  "Dec",
+] as const;
 const weekdayName = z.string().transform((s, ctx) => {
   const i = WEEKDAY_NAMES.findIndex((d) => s.toLowerCase().startsWith(d.toLowerCase()));
   if (i < 0 || s.length < 3) {
@@ -76,6 +90,7 @@ const profileSchema = z
     }),
     precharge: z.strictObject({ reference: pressureAt, tolerance: q(parsePressureDifference) }),
     system: z.strictObject({ low: pointPressure, nominal: pointPressure, high: pointPressure }),
+    reliefPressure: pointPressure.optional(),
     fluid: z.strictObject({
       expansionPerK: q(parseExpansionPerK),
       bulkModulus: positive(q(parsePressureDifference), "bulkModulus"),
@@ -137,6 +152,13 @@ const profileSchema = z
         code: "custom",
         path: ["precharge", "reference"],
         message: "expected the precharge plus its tolerance below the lowest system pressure",
+      });
+    }
+    if (p.reliefPressure !== undefined && !(g(p.reliefPressure) > g(sys.high))) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["reliefPressure"],
+        message: "expected a relief pressure above the system's high limit (system.high)",
       });
     }
     if (!(p.gasLoss.rate * S_PER_MONTH < ref)) {

@@ -118,6 +118,24 @@ export interface MonthRow {
   energyMarginTwoP50Pct: number | null;
 }
 
+/**
+ * The trapped charge of a base by local month (docs/methods.md §3, "Thermal relief"), pooled over the
+ * stays there and the climate years, for the configuration each stay has fitted.
+ */
+export interface TrappedMonthRow {
+  month: number; // 1–12, local
+  /** Highest trapped fluid pressure, kPa gauge; null without a trapped hour in the month. */
+  peakTrappedKPaGauge: number | null;
+  /** Openings of the thermal relief valve (a run of steps letting fluid out counts once). */
+  reliefEvents: number;
+  /** reliefEvents ÷ climate years used: openings in the month in a year, all stays at the base. */
+  reliefEventsPerYear: number;
+  /** Fluid relieved, L (measured at the relief pressure and the temperature of each step). */
+  relievedL: number;
+  /** relievedL ÷ climate years used. */
+  relievedLPerYear: number;
+}
+
 export interface ClimateMonthRow {
   month: number;
   minC: number | null;
@@ -223,6 +241,8 @@ export interface BaseResult {
   advice: AdviceRow[];
   traces: { typical: Trace | null; worst: Trace | null };
   nitrogen: NitrogenBase;
+  /** Peak trapped pressure and thermal relief by local month. */
+  trappedCharge: TrappedMonthRow[];
 }
 
 export interface StayResult {

@@ -7,7 +7,9 @@
  * `tempAtUtcMs`, linear between grid hours), gas amount per unit
  * (falls continuously by the aircraft's gas-loss rate, the profile context's `gasLossMolS`), and the
  * charged state at the end of the last recharge (the fluid is trapped until the next start;
- * docs/methods.md, "Trapped charge").
+ * docs/methods.md, "Trapped charge"). The trapped charge is solved at the end of every step; where it
+ * would exceed the profile's relief pressure the valve lets fluid out (`thermalRelief`) and the relief
+ * state becomes the reference (docs/methods.md, "Thermal relief").
  *
  * The aircraft arrives serviced: gas amount on the precharge reference, charged to nominal system
  * pressure at the arrival-day midnight temperature. Then, on each flown day, at each start time:
@@ -105,6 +107,16 @@ export interface NitrogenEvent {
   units: number;
 }
 
+/** One opening of the thermal relief valve: the steps in a row at which it let fluid out. */
+export interface ReliefRecord {
+  /** Local month of the day the valve first opened. */
+  month: number;
+  /** Instant it first opened, UTC ms (climate time). */
+  utcMs: number;
+  /** Fluid relieved over the event, m³ (all units), each step's measured at its temperature and the relief pressure. */
+  relievedM3: number;
+}
+
 /** One hour of a trace as simulated (UTC instant); the engine adds the local time for the results. */
 export type TraceSample = Omit<TracePoint, "hour" | "localTime"> & { utcMs: number };
 
@@ -122,6 +134,10 @@ export interface SimOutcome {
   checks: number;
   handPumpStrokes: number;
   startsWithoutAmbient: number;
+  /** Thermal relief events of the configuration fitted (docs/methods.md §3, "Thermal relief"). */
+  reliefs: ReliefRecord[];
+  /** Highest trapped fluid pressure by local month (index 1–12), Pa absolute; NaN: no trapped step. */
+  peakTrappedAbsPa: Float64Array;
   /** Accumulator-hours simulated (hours × units). */
   accumulatorHours: number;
   trace: TraceSample[];

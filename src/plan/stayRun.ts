@@ -18,12 +18,13 @@ import {
   recharge,
   startDischarge,
   type TrappedState,
+  thermalRelief,
   trappedState,
 } from "../physics/accumulator.js";
 import { ZERO_CELSIUS_K as K0 } from "../units/index.js";
 import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
 import { type DayPlan, HOUR_MS, localHourOf } from "./days.js";
-import type { SimInputs, SimOutcome } from "./simulate.js";
+import type { ReliefRecord, SimInputs, SimOutcome } from "./simulate.js";
 
 function inHangarAt(day: DayPlan, utcMs: number): boolean {
   for (const [a, b] of day.hangar) if (utcMs >= a && utcMs < b) return true;
@@ -63,6 +64,8 @@ export function emptyOutcome(): SimOutcome {
     checks: 0,
     handPumpStrokes: 0,
     startsWithoutAmbient: 0,
+    reliefs: [],
+    peakTrappedAbsPa: new Float64Array(13).fill(Number.NaN),
     accumulatorHours: 0,
     trace: [],
   };
@@ -91,6 +94,10 @@ export class StayRun {
   /** The other configuration's charge (see the header); equal to `charged` while altSame. */
   private chargedAlt: ChargedState;
   private altSame = true;
+  /** The trapped state of `charged` at `cur`, settled after each step (relieved where the valve opens). */
+  private st: TrappedState = { gasPressureAbsPa: 0, gasVolumeM3: 0, fluidPressureAbsPa: 0 };
+  /** The relief event under way (the valve let fluid out at the last step), or null. */
+  private relief: ReliefRecord | null = null;
   private lastCheckDay = 0;
   private lastRecharge: RechargeMark | null = null;
   private prevDay: DayPlan | null = null;
@@ -192,7 +199,46 @@ export class StayRun {
     }
     if (dtS > 0) this.amountMol = Math.max(this.amountMol - this.lossMolS * dtS, 1e-9);
     this.cur = t;
+    this.settle(day);
     return amb;
+  }
+
+  /**
+   * The trapped charge at the end of a step: solved once; where the fluid pressure exceeds the relief
+   * valve's, the valve lets fluid out and the relief state becomes the fluid's reference (both
+   * configurations; events and volume counted for the one fitted); the month's peak pressure noted.
+   */
+  private settle(day: DayPlan): void {
+    const { ctx, out } = this;
+    const { model, geometry, fluid, reliefAbsPa } = ctx;
+    const st = trappedState(model, geometry, fluid, this.charged, this.accK, this.amountMol, this.st);
+    const opened = reliefAbsPa === null ? null : this.relieve(this.charged, st, reliefAbsPa);
+    if (opened === null) {
+      this.relief = null;
+    } else {
+      this.charged = opened.charge;
+      if (this.altSame) this.chargedAlt = opened.charge;
+      st.gasPressureAbsPa = opened.charge.gasPressureAbsPa;
+      st.gasVolumeM3 = opened.charge.gasVolumeM3;
+      st.fluidPressureAbsPa = opened.charge.fluidPressureAbsPa;
+      if (this.relief === null) {
+        this.relief = { month: day.month, utcMs: this.cur, relievedM3: 0 };
+        out.reliefs.push(this.relief);
+      }
+      this.relief.relievedM3 += opened.relievedM3 * ctx.count;
+    }
+    if (reliefAbsPa !== null && !this.altSame) {
+      const alt = this.relieve(this.chargedAlt, this.trapped(this.chargedAlt), reliefAbsPa);
+      if (alt !== null) this.chargedAlt = alt.charge;
+    }
+    const peak = out.peakTrappedAbsPa[day.month]!;
+    if (!(st.fluidPressureAbsPa <= peak)) out.peakTrappedAbsPa[day.month] = st.fluidPressureAbsPa;
+  }
+
+  /** The relief of one charge in its trapped state `st`, or null when the valve stays shut. */
+  private relieve(charge: ChargedState, st: TrappedState, reliefAbsPa: number) {
+    const { model, geometry, fluid } = this.ctx;
+    return thermalRelief(model, geometry, fluid, charge, this.accK, this.amountMol, reliefAbsPa, st);
   }
 
   /** Grid hour: what-if reading of the trapped charge against the band at ambient; the trace. */
@@ -202,7 +248,7 @@ export class StayRun {
     out.accumulatorHours += ctx.count;
     const inTrace = g >= this.traceFrom && g <= this.traceTo;
     if (!(Number.isFinite(amb) || inTrace)) return;
-    const st = this.trapped(this.charged);
+    const { st } = this;
     const reading = readingPct(ctx.geometry, st.gasVolumeM3);
     const ambForBand = Number.isFinite(amb) ? amb : this.lastAmbK;
     const low = bandAt(ctx.bandTable, ambForBand, "low");
@@ -231,7 +277,7 @@ export class StayRun {
     const ambK = Number.isFinite(amb) ? amb : this.lastAmbK;
     const counted = Number.isFinite(amb);
     if (!counted) this.out.startsWithoutAmbient++;
-    const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.trapped(this.charged);
+    const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.st;
     const { endM3, endAltM3 } = this.discharge(day, ambK, counted, st);
     this.recharge(di, t, endM3, endAltM3);
   }
@@ -242,8 +288,7 @@ export class StayRun {
    * trapped state the start discharges from.
    */
   private preflight(day: DayPlan, di: number, t: number, ambK: number, counted: boolean): TrappedState {
-    const { ctx, inp, out } = this;
-    const st = this.trapped(this.charged);
+    const { ctx, inp, out, st } = this;
     const reading = readingPct(ctx.geometry, st.gasVolumeM3);
     const below = reading < bandAt(ctx.bandTable, ambK, "low");
     const above = reading > bandAt(ctx.bandTable, ambK, "high");
@@ -327,6 +372,7 @@ export class StayRun {
     this.charged = this.chargedAt(ctx.systemNominalAbsPa);
     this.chargedAlt = this.charged;
     this.altSame = true;
+    this.relief = null;
   }
 
   /** Per-unit discharge from a gas volume at the start: sets dischargeJ and dischargeEndM3. */
@@ -386,6 +432,7 @@ export class StayRun {
     const p = ctx.systemNominalAbsPa;
     const r = recharge(model, geometry, ctx.count, this.amountMol, this.accK, endM3, p, ctx.pump);
     this.charged = this.chargedAt(r.gasPressureAbsPa);
+    this.relief = null;
     if (this.altSame && r.reachedSystem && (r.timeS * ctx.altCount) / ctx.count <= ctx.altPump.timerS) {
       this.chargedAlt = this.charged;
     } else {

@@ -50,6 +50,7 @@ describe("result tables", () => {
       results.bases.reduce((n, b) => n + items(b).length, 0);
     expect(rows("bases")).toBe(results.bases.length);
     expect(rows("months")).toBe(perBase((b) => b.months));
+    expect(rows("trapped_charge")).toBe(perBase((b) => b.trappedCharge));
     expect(rows("nitrogen_stays")).toBe(perBase((b) => b.nitrogen.stays));
     expect(rows("stations")).toBe(perBase((b) => b.stations));
     expect(rows("stays")).toBe(results.stays.length);

@@ -1,31 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { runPlan } from "../../src/plan/engine.js";
 import { PA_PER_PSI } from "../../src/units/index.js";
-import { fixturePlan, HOUR_MS, simulateUtcStay, syntheticClimate, type Tree } from "./helpers.js";
-
-const _ATM = 101325;
-
-/** The 1 L unit of the physics tests: 1450 psig at 70 °F, 3000 psig, α 8e-4/K, K 1.5 GPa, 0.2 L line. */
-function oneLitreUnit(t: Tree) {
-  const p = t.profiles[0];
-  p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
-  p.precharge = { reference: "1450 psig @ 70 F", tolerance: "50 psi" };
-  p.system = { low: "2850 psig", nominal: "3000 psig", high: "3150 psig" };
-  p.fluid = { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" };
-  p.thermalTimeConstant = "0 s";
-  p.gasLoss = { rate: "0 psi/month", spread: 0 };
-  // A pump that always finishes within its timer, and a requirement far below delivery.
-  p.pump = {
-    curve: [
-      { pressure: "0 psig", flow: "100 L/min" },
-      { pressure: "3000 psig", flow: "100 L/min" },
-    ],
-    timer: "10 min",
-  };
-  p.startEnergy = [{ ambient: "-60 C", energy: "0.1 kJ" }];
-  t.operations.weekdays = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
-  delete t.bases[0].hangar;
-}
+import { fixturePlan, HOUR_MS, oneLitreUnit, simulateUtcStay, syntheticClimate } from "./helpers.js";
 
 describe("simulation physics identities", () => {
   it("constant temperature, no gas loss, complete recharge: no drop, no out-of-band, no short start", () => {
