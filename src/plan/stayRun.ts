@@ -232,7 +232,8 @@ export class StayRun {
       if (alt !== null) this.chargedAlt = alt.charge;
     }
     const peak = out.peakTrappedAbsPa[day.month]!;
-    if (!(st.fluidPressureAbsPa <= peak)) out.peakTrappedAbsPa[day.month] = st.fluidPressureAbsPa;
+    if (st.fluidPressureAbsPa > peak || Number.isNaN(peak))
+      out.peakTrappedAbsPa[day.month] = st.fluidPressureAbsPa;
   }
 
   /** The relief of one charge in its trapped state `st`, or null when the valve stays shut. */

@@ -40,7 +40,7 @@ export function trappedChargeMonths(
       }
       for (let m = 1; m <= 12; m++) {
         const p = o.peakTrappedAbsPa[m]!;
-        if (!(p <= peakAbsPa[m]!)) peakAbsPa[m] = p;
+        if (p > peakAbsPa[m]! || (Number.isNaN(peakAbsPa[m]!) && !Number.isNaN(p))) peakAbsPa[m] = p;
         const worst = overLimit[m] ?? null;
         if (profile.reliefPressure === undefined && p > limitAbsPa && (worst === null || p > worst.peakAbsPa))
           overLimit[m] = { profile: profile.name, peakAbsPa: p, limitAbsPa };
