@@ -58,7 +58,10 @@ bases:
   # hours the first one misses. Find the id in the file names (USAF-WBAN-YEAR.gz).
   - name: Home Base
     stations: ["000000-00000"]                                  # REPLACE with your station id
-    hangar: { temperature: "50 F", in: "20:00", out: "06:00" }  # optional: overnight hangar
+    # optional overnight hangar: kind heated (the inside is the warmer of heatedTo and the outdoor
+    # air) or shelter (unheated: follows the outdoor air through timeConstant, default 6 h, plus an
+    # offset); months limits it to part of the year (default: all year)
+    hangar: { kind: heated, heatedTo: "50 F", in: "20:00", out: "06:00", months: [Nov, Dec, Jan, Feb, Mar] }
   - name: Forward Base
     stations: ["000000-00000"]                                  # REPLACE with your station id
 

@@ -23,6 +23,12 @@ export const METHODS: MethodNote[] = [
       "T ← Ta(end) − r·τ + (T − Ta(start) + r·τ)·exp(−Δt/τ), with r the slope of the ambient (or hangar) temperature over the step, linear between grid hours; on a steady ramp the accumulator trails the air by τ. A data gap holds the last known value (r = 0); τ = 0 gives the ambient.",
   },
   {
+    name: "Hangars",
+    source: "coldsoak hangar model (docs/methods.md §3); first-order lag as for the accumulator",
+    description:
+      "During a base's hangar hours (optionally only some months; a night goes with its evening's month) the air around the aircraft is the hangar's: a heated hangar is max(outdoor air, set point); an unheated shelter follows the outdoor air through its own first-order lag (default 6 h, exact update) plus an optional offset, simulated continuously from the start of the stay's window, also while the aircraft is out.",
+  },
+  {
     name: "Trapped charge",
     source:
       "Linear thermal expansion and bulk modulus of the trapped fluid (textbook fluid mechanics); gas from Span et al. (2000)",

@@ -13,6 +13,7 @@ import {
   parsePressureAt,
   parsePressureDifference,
   parsePressureRatePaS,
+  parseTemperatureDifferenceK,
   parseTemperatureK,
   parseTimeS,
   parseVolumeM3,
@@ -71,7 +72,69 @@ const weekdayName = z.string().transform((s, ctx) => {
   return i + 1; // ISO weekday, Monday = 1
 });
 
-const hangarSchema = z.strictObject({ temperature: q(parseTemperatureK), in: clock, out: clock });
+const monthName = z.union([z.number(), z.string()]).transform((v, ctx) => {
+  const i =
+    typeof v === "number"
+      ? Number.isInteger(v) && v >= 1 && v <= 12
+        ? v - 1
+        : -1
+      : MONTH_NAMES.findIndex((m) => v.length >= 3 && v.toLowerCase().startsWith(m.toLowerCase()));
+  if (i < 0) {
+    ctx.addIssue({ code: "custom", message: `"${v}" is not a month; expected Jan … Dec or a number 1–12` });
+    return z.NEVER;
+  }
+  return i + 1;
+});
+
+/** Default time constant of an unheated shelter's air behind the outdoor air (docs/methods.md §3). */
+export const SHELTER_TIME_CONSTANT_S = 6 * 3600;
+
+/**
+ * An overnight hangar (docs/methods.md §3, "Hangars"): `heated` holds its air at or above `heatedTo`;
+ * an unheated `shelter` follows the outdoor air through its own lag `timeConstant` plus `offset`.
+ * `months` limits it to part of the year. The former fixed `temperature` is refused in `parsePlanText`.
+ */
+const hangarSchema = z
+  .strictObject({
+    kind: z.enum(["heated", "shelter"]).optional(),
+    heatedTo: q(parseTemperatureK).optional(),
+    timeConstant: q(parseTimeS).optional(),
+    offset: q(parseTemperatureDifferenceK).optional(),
+    in: clock,
+    out: clock,
+    months: z
+      .array(monthName)
+      .min(1)
+      .refine((m) => new Set(m).size === m.length, { message: "expected each month once" })
+      .optional(),
+  })
+  .superRefine((h, ctx) => {
+    const wrong = (key: string, message: string) => ctx.addIssue({ code: "custom", path: [key], message });
+    if (h.kind === undefined) {
+      wrong(
+        "kind",
+        "missing; expected kind: heated (with heatedTo) or kind: shelter (unheated, with timeConstant and offset)",
+      );
+    } else if (h.kind === "heated") {
+      if (h.heatedTo === undefined)
+        wrong("heatedTo", 'missing; a heated hangar needs its set point, e.g. heatedTo: "50 F"');
+      if (h.timeConstant !== undefined) wrong("timeConstant", "belongs to kind: shelter, not kind: heated");
+      if (h.offset !== undefined) wrong("offset", "belongs to kind: shelter, not kind: heated");
+    } else if (h.heatedTo !== undefined) {
+      wrong("heatedTo", "belongs to kind: heated; a shelter follows the outdoor air (timeConstant, offset)");
+    }
+  })
+  .transform((h) => {
+    const common = { in: h.in, out: h.out, months: h.months ?? null };
+    return h.kind === "heated"
+      ? { kind: "heated" as const, heatedTo: h.heatedTo!, ...common }
+      : {
+          kind: "shelter" as const,
+          timeConstant: h.timeConstant ?? SHELTER_TIME_CONSTANT_S,
+          offset: h.offset ?? 0,
+          ...common,
+        };
+  });
 
 const baseSchema = z.strictObject({
   name: z.string().min(1),
@@ -281,6 +344,7 @@ export const planSchema = z
 export type PlanInput = z.output<typeof planSchema>;
 export type ProfileInput = PlanInput["profiles"][number];
 export type BaseInput = PlanInput["bases"][number];
+export type HangarInput = NonNullable<BaseInput["hangar"]>;
 export type { PointPressure };
 
 /** A validated plan, with the file it came from and a way to point back at its lines. */
@@ -353,6 +417,27 @@ function describeIssue(issue: z.core.$ZodIssue): string {
   }
 }
 
+/**
+ * Keys that earlier plan files used and that now mean something else: refused with a located message
+ * naming the keys that replace them (a fixed hangar temperature gave a 15 °C "heated" hangar colder than
+ * July air and a −5 °C shelter colder than the air outside).
+ */
+function refuseFormerKeys(raw: unknown, file: string, lineOf: (path: (string | number)[]) => number): void {
+  const bases = (raw as { bases?: unknown } | null)?.bases;
+  if (!Array.isArray(bases)) return;
+  bases.forEach((b, i) => {
+    const hangar = (b as { hangar?: unknown } | null)?.hangar;
+    if (hangar === null || typeof hangar !== "object" || !("temperature" in hangar)) return;
+    const path = ["bases", i, "hangar", "temperature"];
+    throw inputError(
+      file,
+      lineOf(path),
+      yamlPathText(path),
+      "a fixed hangar temperature is no longer read; write kind: heated with heatedTo (the set point: the inside is the warmer of it and the outdoor air), or kind: shelter (unheated: follows the outdoor air through timeConstant, default 6 h, plus offset)",
+    );
+  });
+}
+
 /** Parses and validates plan text; throws InputError `file:line:yaml.path: message`. */
 export function parsePlanText(text: string, file: string): Plan {
   const lc = new LineCounter();
@@ -371,6 +456,7 @@ export function parsePlanText(text: string, file: string): Plan {
     );
   }
   const raw: unknown = doc.toJS({ maxAliasCount: 100 });
+  refuseFormerKeys(raw, file, (path) => nodeLine(doc, lc, path));
   const parsed = planSchema.safeParse(raw);
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;

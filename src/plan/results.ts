@@ -43,10 +43,11 @@ export interface StationResult {
  * One plan parameter as data (the report's assumptions table and assumptions.csv show it):
  * - `key`: its YAML path with names for list items, e.g. "profiles.main.precharge.reference";
  * - `kind`: the quantity kind ("pressureGauge", "pressureAbsolute", "pressureDifference",
- *   "pressureRate", "temperature", "volume", "energy", "duration", "flow", "expansion", "percent",
+ *   "pressureRate", "temperature", "temperatureDifference", "volume", "energy", "duration", "flow", "expansion", "percent",
  *   "fraction", "number", "count", "year", "localTime", "weekday", "text");
  * - `value` in the fixed units of results.json whatever the plan's units, named by `unit`: kPa gauge,
- *   kPa absolute, kPa (a difference), kPa/month (mean Gregorian month), °C, L, J, s, L/s, 1/K, %;
+ *   kPa absolute, kPa (a difference), kPa/month (mean Gregorian month), °C, K (a temperature
+ *   difference), L, J, s, L/s, 1/K, %;
  *   plain numbers as they are (`unit` "" or what a count counts: "h", "d"); texts, "HH:MM" local
  *   times and lists of them as strings;
  * - `atTempC`: for a pressure stated at a temperature ("1450 psig @ 70 F"), that temperature in °C;

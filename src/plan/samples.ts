@@ -244,7 +244,13 @@ export function prepareSamples(
       timeZone: clim.timeZone,
       startMinutes: plan.operations.startTimes,
       flownWeekdays: flown,
-      hangar: base.hangar ? { inMin: base.hangar.in, outMin: base.hangar.out } : null,
+      hangar: base.hangar
+        ? {
+            inMin: base.hangar.in,
+            outMin: base.hangar.out,
+            months: base.hangar.months === null ? null : new Set(base.hangar.months),
+          }
+        : null,
     };
     const years = usableYears(plan, clim, groups, refYear, dayOptions);
     warnings.push(...yearWarnings(plan, base.name, { groups, ...years }));

@@ -3,8 +3,9 @@
  *
  * State: accumulator temperature (first-order lag behind ambient, `lagTempK` of the physics module:
  * exact update over each step for an ambient linear between its values at the step's two ends, so
- * τ = 0 gives the ambient itself; the outdoor ambient between grid hours is the climate module's
- * `tempAtUtcMs`, linear between grid hours), gas amount per unit
+ * τ = 0 gives the ambient itself; the ambient is the air around the aircraft of `air.ts`: the outdoor
+ * air, linear between grid hours, or in a hangar's hours a heated hangar's or an unheated shelter's
+ * air, docs/methods.md, "Hangars"), gas amount per unit
  * (falls continuously by the aircraft's gas-loss rate, the profile context's `gasLossMolS`), and the
  * charged state at the end of the last recharge (the fluid is trapped until the next start;
  * docs/methods.md, "Trapped charge"). The trapped charge is solved at the end of every step; where it
@@ -41,6 +42,7 @@
  */
 
 import type { HourlySeries } from "../climate/types.js";
+import type { HangarAir } from "./air.js";
 import type { ProfileContext } from "./context.js";
 import type { DayPlan } from "./days.js";
 import type { TracePoint } from "./results.js";
@@ -55,7 +57,8 @@ export interface SimInputs {
   days: DayPlan[];
   /** Multiplier of the nominal gas-loss rate for this aircraft (seeded). */
   gasLossFactor: number;
-  hangarTempK: number | null;
+  /** The air inside the base's hangar during its hours (`days[].hangar`), or null without one. */
+  hangar: HangarAir | null;
   prechargeCheckDays: number;
   policy: OutOfBandPolicy;
   /** Record an hourly trace of this many hours from this instant (UTC ms). */

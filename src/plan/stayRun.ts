@@ -3,8 +3,6 @@
  * trapped charge of both configurations, and the steps that advance them (advance, grid hour, start,
  * preflight, service, discharge, recharge). What happens when is described in `simulate.ts`.
  */
-import { tempAtUtcMs } from "../climate/hourly.js";
-import type { HourlySeries } from "../climate/types.js";
 import {
   type AmbientStep,
   type ChargedState,
@@ -22,25 +20,10 @@ import {
   trappedState,
 } from "../physics/accumulator.js";
 import { ZERO_CELSIUS_K as K0 } from "../units/index.js";
+import { AirAround, inHangarAt } from "./air.js";
 import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
 import { type DayPlan, HOUR_MS, localHourOf } from "./days.js";
 import type { ReliefRecord, SimInputs, SimOutcome } from "./simulate.js";
-
-function inHangarAt(day: DayPlan, utcMs: number): boolean {
-  for (const [a, b] of day.hangar) if (utcMs >= a && utcMs < b) return true;
-  return false;
-}
-
-/** Outdoor temperature (K) at an instant, linear between grid hours (the climate module's rule); NaN where missing. */
-function outdoorK(series: HourlySeries, utcMs: number): number {
-  return tempAtUtcMs(series, utcMs) + K0;
-}
-
-/** Ambient temperature (K) at an instant: the outdoor temperature, or the hangar's while inside. */
-function ambientK(inp: SimInputs, day: DayPlan, utcMs: number): number {
-  if (inp.hangarTempK !== null && inHangarAt(day, utcMs)) return inp.hangarTempK;
-  return outdoorK(inp.series, utcMs);
-}
 
 /** The last recharge of a day: what the next morning's overnight drop is measured from. */
 interface RechargeMark {
@@ -84,8 +67,10 @@ export class StayRun {
   private readonly traceTo: number;
   /** Instant the state stands at, UTC ms. */
   private cur: number;
-  /** Last known ambient, K (held through missing hours). */
-  private lastAmbK: number;
+  /** The outdoor and hangar air around the aircraft. */
+  private readonly air: AirAround;
+  /** The air a technician would read now, the last known value held through missing hours, K. */
+  private heldAmbK: number;
   /** Accumulator (lagged) temperature, K. */
   private accK: number;
   /** Gas amount per unit, mol. */
@@ -114,12 +99,9 @@ export class StayRun {
     this.traceTo = inp.trace ? this.traceFrom + inp.trace.hours * HOUR_MS : Number.NEGATIVE_INFINITY;
     // Initial state: serviced on arrival, charged at nominal system pressure at the first known ambient.
     this.cur = days[0]!.midnightUtcMs;
-    let ambK = ambientK(inp, days[0]!, this.cur);
-    for (let k = 1; !Number.isFinite(ambK) && k < 24 * days.length; k++) {
-      ambK = ambientK(inp, days[Math.min(days.length - 1, Math.floor(k / 24))]!, this.cur + k * HOUR_MS);
-    }
-    this.lastAmbK = Number.isFinite(ambK) ? ambK : ctx.refTempK;
-    this.accK = this.lastAmbK;
+    this.air = new AirAround(inp.series, inp.hangar, this.cur, 24 * days.length, ctx.refTempK);
+    this.heldAmbK = this.air.nowK(inp.hangar !== null && inHangarAt(days[0]!, this.cur));
+    this.accK = this.heldAmbK;
     this.amountMol = ctx.nominalMol;
     this.charged = this.chargedAt(ctx.systemNominalAbsPa);
     this.chargedAlt = this.charged;
@@ -142,8 +124,10 @@ export class StayRun {
     const day = this.inp.days[di]!;
     this.prevDay = di > 0 ? this.inp.days[di - 1]! : null;
     // A 29 February fold or a skipped leap day breaks the calendar: the state carries over as it is.
-    if (this.prevDay !== null && this.prevDay.nextMidnightUtcMs !== day.midnightUtcMs)
+    if (this.prevDay !== null && this.prevDay.nextMidnightUtcMs !== day.midnightUtcMs) {
       this.cur = day.midnightUtcMs;
+      this.air.jumpTo(this.cur);
+    }
     let si = 0;
     let g = Math.ceil(day.midnightUtcMs / HOUR_MS) * HOUR_MS;
     const breaks = day.hangar
@@ -173,28 +157,26 @@ export class StayRun {
   }
 
   /**
-   * Advances lag and gas loss from `cur` to `t`, the ambient linear between its values at both ends of
-   * the step in the step's environment (the hangar's when the step's midpoint is in the hangar; steps
-   * never straddle a hangar boundary). A missing end holds the last known ambient over the step (r = 0);
-   * a missing start takes the held value. Returns the ambient a technician reads at `t` (NaN if missing).
+   * Advances the air, the lag and the gas loss from `cur` to `t`, the air linear between its values at
+   * both ends of the step in the step's environment (the hangar's when the step's midpoint is in the
+   * hangar; steps never straddle a hangar boundary; `AirAround` holds the last known value through a
+   * gap). Returns the air a technician reads at `t` (NaN if missing).
    */
   private advance(day: DayPlan, t: number): number {
-    const { inp, prevDay } = this;
-    const amb = ambientK(inp, day, t);
+    const { inp, prevDay, air } = this;
+    const hangar = inp.hangar !== null;
     const mid = (this.cur + t) / 2;
-    const inHangar =
-      inp.hangarTempK !== null && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
-    const heldK = this.lastAmbK;
-    const startK = inHangar ? inp.hangarTempK! : outdoorK(inp.series, this.cur);
-    const endK = inHangar ? inp.hangarTempK! : outdoorK(inp.series, t);
-    const endKnown = Number.isFinite(endK);
-    if (endKnown) this.lastAmbK = endK;
+    const stepInHangar = hangar && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
+    air.advance(t);
+    const nowInHangar = hangar && inHangarAt(day, t);
+    const amb = air.readK(nowInHangar);
+    this.heldAmbK = air.nowK(nowInHangar);
     const dtS = (t - this.cur) / 1000;
     const tauS = this.ctx.tauS;
     if (dtS > 0 || tauS === 0) {
       this.step.dtS = Math.max(dtS, 0);
-      this.step.startK = endKnown && Number.isFinite(startK) ? startK : heldK;
-      this.step.endK = this.lastAmbK;
+      this.step.startK = air.stepStartK(stepInHangar);
+      this.step.endK = air.nowK(stepInHangar);
       this.accK = lagTempK(this.accK, this.step, tauS);
     }
     if (dtS > 0) this.amountMol = Math.max(this.amountMol - this.lossMolS * dtS, 1e-9);
@@ -251,7 +233,7 @@ export class StayRun {
     if (!(Number.isFinite(amb) || inTrace)) return;
     const { st } = this;
     const reading = readingPct(ctx.geometry, st.gasVolumeM3);
-    const ambForBand = Number.isFinite(amb) ? amb : this.lastAmbK;
+    const ambForBand = Number.isFinite(amb) ? amb : this.heldAmbK;
     const low = bandAt(ctx.bandTable, ambForBand, "low");
     const high = bandAt(ctx.bandTable, ambForBand, "high");
     if (Number.isFinite(amb)) {
@@ -275,7 +257,7 @@ export class StayRun {
   /** Start `si` of day `di` at `t`: the preflight first in the day, then discharge and recharge. */
   private start(day: DayPlan, di: number, si: number, t: number): void {
     const amb = this.advance(day, t);
-    const ambK = Number.isFinite(amb) ? amb : this.lastAmbK;
+    const ambK = Number.isFinite(amb) ? amb : this.heldAmbK;
     const counted = Number.isFinite(amb);
     if (!counted) this.out.startsWithoutAmbient++;
     const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.st;

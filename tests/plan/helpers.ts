@@ -5,6 +5,7 @@ import { emptyQc } from "../../src/climate/qc.js";
 import type { HourlySeries, StationClimate } from "../../src/climate/types.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { realGas } from "../../src/physics/nitrogen.js";
+import type { HangarAir } from "../../src/plan/air.js";
 import { stayDays } from "../../src/plan/calendar.js";
 import { type ProfileContext, profileContext } from "../../src/plan/context.js";
 import { buildDays } from "../../src/plan/days.js";
@@ -92,14 +93,16 @@ export function simulateUtcStay(
   stay: { arrive: string; depart: string; climateYear: number },
   options: {
     ctx?: ProfileContext;
-    hangar?: { inMin: number; outMin: number; tempK: number };
+    hangar?: { inMin: number; outMin: number; air: HangarAir; months?: ReadonlySet<number> };
   } = {},
 ): SimOutcome {
   const days = buildDays(stayDays(stay.arrive, stay.depart), stay.climateYear, {
     timeZone: "UTC",
     startMinutes: plan.operations.startTimes,
     flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
-    hangar: options.hangar ? { inMin: options.hangar.inMin, outMin: options.hangar.outMin } : null,
+    hangar: options.hangar
+      ? { inMin: options.hangar.inMin, outMin: options.hangar.outMin, months: options.hangar.months ?? null }
+      : null,
   });
   return simulateStayYear({
     ctx: options.ctx ?? profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM_PA, false),
@@ -107,7 +110,7 @@ export function simulateUtcStay(
     timeZone: "UTC",
     days,
     gasLossFactor: 1,
-    hangarTempK: options.hangar?.tempK ?? null,
+    hangar: options.hangar?.air ?? null,
     prechargeCheckDays: 30,
     policy: "log",
   });
