@@ -158,6 +158,7 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
     unit: "d",
   });
   add(["operations", "outOfBand"], "Action on an out-of-band preflight", "text", o.outOfBand);
+  add(["operations", "arrival"], "Accumulator state on arrival at a base", "text", o.arrival);
   const n = plan.nitrogen;
   add(["nitrogen", "cylinder", "waterVolume"], "Cylinder water volume", "volume", n.cylinder.waterVolume);
   const fill = n.cylinder.fill;

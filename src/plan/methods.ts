@@ -42,6 +42,12 @@ export const METHODS: MethodNote[] = [
       "Where the trapped fluid pressure would exceed the profile's relief pressure, fluid is let out and the pressure holds at the relief value; the fluid relieved is lost until the next recharge and the relief state becomes the fluid's reference, so the next cold morning reads lower. Checked at the end of every step (at least hourly); consecutive steps with the valve open are one opening. Without a relief valve a warning names each base-month where the trapped pressure exceeds 1.1 × the system high.",
   },
   {
+    name: "Arrival",
+    source: "coldsoak arrival states (docs/methods.md §5)",
+    description:
+      "The accumulator arrives with its gas on the precharge reference, in the plan's arrival state: charged (default) to nominal system pressure at the ambient of local midnight on the arrival day, then trapped; or precharge-only, the fluid side empty until the hand pump charges it to nominal system pressure at the first start, its strokes counted.",
+  },
+  {
     name: "Preflight and servicing",
     source: "coldsoak servicing model (docs/methods.md §5)",
     description:

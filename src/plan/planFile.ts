@@ -282,6 +282,8 @@ const operationsSchema = z.strictObject({
     }),
   prechargeCheckDays: z.number().int().min(1),
   outOfBand: z.enum(["log", "adjust-precharge"]).default("log"),
+  /** The accumulator's state on arrival at a base (docs/methods.md §5, "Arrival"). */
+  arrival: z.enum(["charged", "precharge-only"]).default("charged"),
 });
 
 const nitrogenSchema = z.strictObject({

@@ -12,8 +12,11 @@
  * would exceed the profile's relief pressure the valve lets fluid out (`thermalRelief`) and the relief
  * state becomes the reference (docs/methods.md, "Thermal relief").
  *
- * The aircraft arrives serviced: gas amount on the precharge reference, charged to nominal system
- * pressure at the arrival-day midnight temperature. Then, on each flown day, at each start time:
+ * The aircraft arrives serviced, gas amount on the precharge reference, in the plan's arrival state:
+ * charged to nominal system pressure at the arrival-day midnight temperature and trapped (default), or
+ * precharge only (fluid side empty: no trapped charge and no hourly reading until the hand pump charges
+ * it to nominal system pressure at the first start, strokes counted). Then, on each flown day, at each
+ * start time:
  * 1. first start of the day: preflight — the reading (physics at the lagged accumulator temperature)
  *    against the band for the AMBIENT temperature the technician reads; the precharge check when due
  *    (every `prechargeCheckDays` days since the last one); the out-of-band policy;
@@ -49,6 +52,12 @@ import type { TracePoint } from "./results.js";
 import { emptyOutcome, StayRun } from "./stayRun.js";
 
 export type OutOfBandPolicy = "log" | "adjust-precharge";
+/**
+ * The accumulator on arrival: `charged` to nominal system pressure at the local-midnight ambient of the
+ * arrival day, then trapped; `precharge-only`: the fluid side empty until the hand pump charges it to
+ * nominal system pressure at the first start (docs/methods.md §5, "Arrival").
+ */
+export type ArrivalState = "charged" | "precharge-only";
 
 export interface SimInputs {
   ctx: ProfileContext;
@@ -61,6 +70,8 @@ export interface SimInputs {
   hangar: HangarAir | null;
   prechargeCheckDays: number;
   policy: OutOfBandPolicy;
+  /** The accumulator's state on arrival (default: charged). */
+  arrival?: ArrivalState;
   /** Record an hourly trace of this many hours from this instant (UTC ms). */
   trace?: { fromUtcMs: number; hours: number };
 }

@@ -73,6 +73,7 @@ export function sampleInputs(sim: Simulator, base: BaseSamples, gi: number, yi: 
     hangar: hangar ? hangarAir(hangar) : null,
     prechargeCheckDays: plan.operations.prechargeCheckDays,
     policy: plan.operations.outOfBand,
+    arrival: plan.operations.arrival,
   };
 }
 

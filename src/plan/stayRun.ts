@@ -79,6 +79,8 @@ export class StayRun {
   /** The other configuration's charge (see the header); equal to `charged` while altSame. */
   private chargedAlt: ChargedState;
   private altSame = true;
+  /** Arrived with the fluid side empty and not yet charged by the hand pump (no trapped charge). */
+  private uncharged: boolean;
   /** The trapped state of `charged` at `cur`, settled after each step (relieved where the valve opens). */
   private st: TrappedState = { gasPressureAbsPa: 0, gasVolumeM3: 0, fluidPressureAbsPa: 0 };
   /** The relief event under way (the valve let fluid out at the last step), or null. */
@@ -105,6 +107,7 @@ export class StayRun {
     this.amountMol = ctx.nominalMol;
     this.charged = this.chargedAt(ctx.systemNominalAbsPa);
     this.chargedAlt = this.charged;
+    this.uncharged = inp.arrival === "precharge-only";
   }
 
   /** The charged state of the current gas amount and temperature at a gas pressure. */
@@ -191,6 +194,7 @@ export class StayRun {
    * configurations; events and volume counted for the one fitted); the month's peak pressure noted.
    */
   private settle(day: DayPlan): void {
+    if (this.uncharged) return;
     const { ctx, out } = this;
     const { model, geometry, fluid, reliefAbsPa } = ctx;
     const st = trappedState(model, geometry, fluid, this.charged, this.accK, this.amountMol, this.st);
@@ -230,7 +234,7 @@ export class StayRun {
     const amb = this.advance(day, g);
     out.accumulatorHours += ctx.count;
     const inTrace = g >= this.traceFrom && g <= this.traceTo;
-    if (!(Number.isFinite(amb) || inTrace)) return;
+    if (this.uncharged || !(Number.isFinite(amb) || inTrace)) return;
     const { st } = this;
     const reading = readingPct(ctx.geometry, st.gasVolumeM3);
     const ambForBand = Number.isFinite(amb) ? amb : this.heldAmbK;
@@ -260,6 +264,13 @@ export class StayRun {
     const ambK = Number.isFinite(amb) ? amb : this.heldAmbK;
     const counted = Number.isFinite(amb);
     if (!counted) this.out.startsWithoutAmbient++;
+    if (this.uncharged) {
+      // Arrived with the fluid side empty: the hand pump charges it before the first start.
+      this.uncharged = false;
+      this.handPumpToSystem();
+      const { model, geometry, fluid } = this.ctx;
+      trappedState(model, geometry, fluid, this.charged, this.accK, this.amountMol, this.st);
+    }
     const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.st;
     const { endM3, endAltM3 } = this.discharge(day, ambK, counted, st);
     this.recharge(di, t, endM3, endAltM3);

@@ -11,7 +11,7 @@ import { type ProfileContext, profileContext } from "../../src/plan/context.js";
 import { buildDays } from "../../src/plan/days.js";
 import type { BaseClimate } from "../../src/plan/engine.js";
 import { type Plan, parsePlanText } from "../../src/plan/planFile.js";
-import { type SimOutcome, simulateStayYear } from "../../src/plan/simulate.js";
+import { type ArrivalState, type SimOutcome, simulateStayYear } from "../../src/plan/simulate.js";
 
 /** Standard sea-level atmosphere, Pa (ISO 2533). */
 export const ATM_PA = 101325;
@@ -94,6 +94,7 @@ export function simulateUtcStay(
   options: {
     ctx?: ProfileContext;
     hangar?: { inMin: number; outMin: number; air: HangarAir; months?: ReadonlySet<number> };
+    arrival?: ArrivalState;
   } = {},
 ): SimOutcome {
   const days = buildDays(stayDays(stay.arrive, stay.depart), stay.climateYear, {
@@ -113,5 +114,6 @@ export function simulateUtcStay(
     hangar: options.hangar?.air ?? null,
     prechargeCheckDays: 30,
     policy: "log",
+    arrival: options.arrival ?? "charged",
   });
 }

@@ -1,7 +1,11 @@
 import { describe, expect, it } from "vitest";
+import { chargedState } from "../../src/physics/accumulator.js";
+import { tabulatedGas } from "../../src/physics/gasTable.js";
+import { realGas } from "../../src/physics/nitrogen.js";
+import { profileContext } from "../../src/plan/context.js";
 import { runPlan } from "../../src/plan/engine.js";
 import { PA_PER_PSI } from "../../src/units/index.js";
-import { fixturePlan, HOUR_MS, oneLitreUnit, simulateUtcStay, syntheticClimate } from "./helpers.js";
+import { ATM_PA, fixturePlan, HOUR_MS, oneLitreUnit, simulateUtcStay, syntheticClimate } from "./helpers.js";
 
 describe("simulation physics identities", () => {
   it("constant temperature, no gas loss, complete recharge: no drop, no out-of-band, no short start", () => {
@@ -188,5 +192,42 @@ describe("heated hangars and unheated shelters (docs/methods.md §3, Hangars)", 
     expect(
       simulateUtcStay(plan, warm, stay, { hangar: { ...night, air } }).preflights[0]!.ambientC,
     ).toBeCloseTo(15, 9);
+  });
+});
+
+describe("arrival state (docs/methods.md §5, Arrival)", () => {
+  const from = Date.UTC(2014, 0, 1);
+  const plan = fixturePlan((t) => {
+    oneLitreUnit(t);
+    t.operations.startTimes = ["07:00", "12:00"];
+    t.profiles[0].handPump = { displacement: "10 mL", efficiency: 0.8 };
+  });
+  const series = syntheticClimate(() => -10, from, from + 6 * 24 * HOUR_MS).series;
+  const stay = { arrive: "2027-01-01", depart: "2027-01-03", climateYear: 2014 };
+
+  it("precharge-only: the hand pump charges the empty fluid side to nominal system pressure at the first start", () => {
+    const charged = simulateUtcStay(plan, series, stay);
+    const empty = simulateUtcStay(plan, series, stay, { arrival: "precharge-only" });
+    // Charged on arrival at −10 °C and kept there: no servicing, no stroke.
+    expect(charged.handPumpStrokes).toBe(0);
+    // Hand-pump strokes = fluid / (displacement × volumetric efficiency) (docs/methods.md §3), the fluid
+    // being V0 − V_gas at nominal system pressure and −10 °C (the physics module's charged state).
+    const ctx = profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM_PA, false);
+    const full = chargedState(
+      ctx.model,
+      ctx.geometry,
+      ctx.fluid,
+      ctx.nominalMol,
+      263.15,
+      ctx.systemNominalAbsPa,
+    );
+    expect(empty.handPumpStrokes).toBeCloseTo((1e-3 - full.gasVolumeM3) / (10e-6 * 0.8), 6);
+    // From the first start on both are the same charge at the same temperature.
+    expect(empty.preflights).toEqual(charged.preflights);
+    expect(empty.starts).toEqual(charged.starts);
+    // No trapped charge to read before the first start: the 8 grid hours 00:00–07:00 of the first day
+    // (a grid hour is taken before a start at the same instant, docs/methods.md §5).
+    const count = (o: typeof charged) => o.hourlyReadings.reduce((a, b) => a + b, 0);
+    expect(count(charged) - count(empty)).toBe(8);
   });
 });
