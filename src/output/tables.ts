@@ -236,6 +236,33 @@ export function resultTables(r: Results): Table[] {
         ["qc_duplicate", ({ x }) => x.qc.dropped.duplicate],
       ],
     ),
+    table("atmosphere", r.bases, [
+      ["base", (b) => b.name],
+      ["station", (b) => b.atmosphere.station],
+      ["elevation_m", (b) => b.atmosphere.elevationM],
+      ["atmosphere_kpa_absolute", (b) => b.atmosphere.pressureKPaAbsolute],
+      ["source", (b) => b.atmosphere.source],
+    ]),
+    table(
+      "base_curves",
+      r.bases.flatMap((b) =>
+        b.profileCurves.flatMap((p) => p.prechargeLine.map((x, i) => ({ b, p, x, band: p.band[i] ?? null }))),
+      ),
+      [
+        baseName,
+        ["profile", ({ p }) => p.name],
+        ["atmosphere_kpa_absolute", ({ p }) => p.atmosphereKPaAbsolute],
+        ["temp_c", ({ x }) => x.tempC],
+        ["precharge_kpa_gauge", ({ x }) => x.prechargeKPaGauge],
+        ["precharge_low_kpa_gauge", ({ x }) => x.prechargeLowKPaGauge],
+        ["precharge_high_kpa_gauge", ({ x }) => x.prechargeHighKPaGauge],
+        ["ideal_precharge_kpa_gauge", ({ x }) => x.idealPrechargeKPaGauge],
+        ["reading_low_pct", ({ band }) => band?.readingLowPct ?? null],
+        ["reading_nominal_pct", ({ band }) => band?.readingNominalPct ?? null],
+        ["reading_high_pct", ({ band }) => band?.readingHighPct ?? null],
+        ["ideal_reading_nominal_pct", ({ band }) => band?.idealReadingNominalPct ?? null],
+      ],
+    ),
     table(
       "precharge_line",
       perProfile(r, (p) => p.prechargeLine),

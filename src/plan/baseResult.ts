@@ -5,8 +5,10 @@
  */
 import { stationCoverage } from "../climate/index.js";
 import type { StationClimate } from "../climate/types.js";
+import { PA_PER_KPA } from "../units/index.js";
+import { profileCurves } from "./bandCurves.js";
 import { baseStatistics } from "./monthStats.js";
-import type { BaseResult, StationResult } from "./results.js";
+import type { AtmosphereResult, BaseResult, StationResult } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 import { baseNitrogen } from "./supplyPlan.js";
@@ -16,6 +18,17 @@ import { trappedChargeMonths } from "./trappedStats.js";
 function stationResult(s: StationClimate): StationResult {
   const c = stationCoverage(s);
   return { ...c, firstUtc: c.firstUtc ?? "", lastUtc: c.lastUtc ?? "" };
+}
+
+/** The atmospheric pressure used at a base, its source and the primary station it comes from. */
+function atmosphereOf(base: BaseSamples): AtmosphereResult {
+  const primary = base.climate.stations[0]?.meta;
+  return {
+    pressureKPaAbsolute: base.climate.atmPa / PA_PER_KPA,
+    source: base.climate.atmSource,
+    station: primary?.id ?? "",
+    elevationM: primary?.elevationM ?? 0,
+  };
 }
 
 /** Aggregates one base; warnings (starts without data, unreachable servicings) go to `warnings`. */
@@ -44,5 +57,9 @@ export function aggregateBase(
     traces: overnightTraces(sim, base, outcomes),
     nitrogen: baseNitrogen(plan, sim.model, base, outcomes, warnings),
     trappedCharge: trappedChargeMonths(plan, base, outcomes, warnings),
+    atmosphere: atmosphereOf(base),
+    profileCurves: [...new Set(base.groups.map((g) => g.profileIndex))]
+      .sort((a, b) => a - b)
+      .map((i) => profileCurves(plan.profiles[i]!, base.climate.atmPa)),
   };
 }

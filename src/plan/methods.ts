@@ -13,7 +13,7 @@ export const METHODS: MethodNote[] = [
     name: "Atmospheric pressure",
     source: "ISO 2533:1975 standard atmosphere (troposphere)",
     description:
-      "Gauge = absolute − local atmospheric pressure: the station's mean reported station pressure where the records carry it, else the standard atmosphere at the station elevation. Profile curves in the results use 101.325 kPa.",
+      "Gauge = absolute − local atmospheric pressure: the primary station's mean reported station pressure where the records carry it, else the standard atmosphere at the station elevation; the value and its source are shown with each base, whose simulation and curves use it. The profile-level curves without a base (profiles in results.json, precharge_line.csv, band.csv) use 101.325 kPa.",
   },
   {
     name: "Accumulator temperature",

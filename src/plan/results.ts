@@ -85,8 +85,26 @@ export interface BandRow {
 
 export interface ProfileResult {
   name: string;
+  /**
+   * The atmospheric pressure the curves' gauge pressures are relative to, kPa absolute: 101.325 (the
+   * standard sea-level atmosphere) for `Results.profiles`, the base's own for `BaseResult.profileCurves`.
+   */
+  atmosphereKPaAbsolute: number;
   prechargeLine: PrechargeRow[];
   band: BandRow[];
+}
+
+/** The atmospheric pressure used at a base (docs/methods.md §1): gauge = absolute − this pressure. */
+export interface AtmosphereResult {
+  pressureKPaAbsolute: number;
+  /**
+   * "station pressure": the mean station pressure reported in the primary station's records (ISD
+   * MA1); "standard atmosphere": ISO 2533 at the primary station's elevation.
+   */
+  source: "station pressure" | "standard atmosphere";
+  /** The primary station ("USAF-WBAN") and its elevation, m. */
+  station: string;
+  elevationM: number;
 }
 
 export interface MonthRow {
@@ -244,6 +262,10 @@ export interface BaseResult {
   nitrogen: NitrogenBase;
   /** Peak trapped pressure and thermal relief by local month. */
   trappedCharge: TrappedMonthRow[];
+  /** The atmospheric pressure used at the base and its source. */
+  atmosphere: AtmosphereResult;
+  /** Precharge lines and reading bands of the profiles flown at the base, at the base's atmosphere. */
+  profileCurves: ProfileResult[];
 }
 
 export interface StayResult {

@@ -22,8 +22,16 @@ export interface BaseClimate {
   stations: StationClimate[];
   series: HourlySeries;
   timeZone: string;
+  /** Local atmospheric pressure, Pa absolute (docs/methods.md §1). */
   atmPa: number;
+  /**
+   * Where `atmPa` comes from: the mean station pressure the primary station's records report (ISD
+   * `MA1`), or the ISO 2533 standard atmosphere at its elevation.
+   */
+  atmSource: AtmosphereSource;
 }
+
+export type AtmosphereSource = "station pressure" | "standard atmosphere";
 
 /** Stays of one base simulated once and counted once per stay. */
 export interface StayGroup {

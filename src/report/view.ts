@@ -8,7 +8,7 @@
  * `templates/partials/<name>.hbs`; `shared.ts` holds what the sections share.
  */
 import type { AdviceRow, BaseResult, MonthRow, Results, StationResult } from "../plan/results.js";
-import { pct, shownText, type UnitSystem, unitSystem } from "../units/index.js";
+import { formatDisplay, pct, shownText, showWithUnit, type UnitSystem, unitSystem } from "../units/index.js";
 import { climateSection } from "./sections/climate.js";
 import { type CoverageView, coverageSection } from "./sections/coverage.js";
 import { nitrogenSection } from "./sections/nitrogen.js";
@@ -66,6 +66,8 @@ export interface BaseView {
   stationList: string;
   yearsUsed: string;
   yearsSkipped: string;
+  /** The atmospheric pressure used at the base and where it comes from. */
+  atmosphere: string;
   sections: SectionView[];
 }
 
@@ -190,6 +192,18 @@ function fleetRows(results: Results): ReportView["fleet"]["rows"] {
   });
 }
 
+/** "14.64 psia (100.9 kPa), the mean station pressure reported by 999701-99999" and the like. */
+function atmosphereText(base: BaseResult, u: UnitSystem): string {
+  const a = base.atmosphere;
+  const kPa = `${formatDisplay(a.pressureKPaAbsolute, 1)} kPa absolute`;
+  const value = u.id === "us" ? `${showWithUnit(u.pressureAbs, a.pressureKPaAbsolute)} (${kPa})` : kPa;
+  const source =
+    a.source === "station pressure"
+      ? `the mean station pressure reported by ${a.station}`
+      : `the ISO 2533 standard atmosphere at ${showWithUnit(u.length, a.elevationM)}, the elevation of ${a.station}`;
+  return `${value}, ${source}; gauge pressures are relative to it`;
+}
+
 function stationLabel(s: StationResult): string {
   return s.name ? `${s.id} (${s.name})` : s.id;
 }
@@ -206,6 +220,7 @@ async function buildBase(ctx: BaseContext): Promise<BaseView> {
     stationList: base.stations.map(stationLabel).join("; ") || "none",
     yearsUsed: yearsText(base.yearsUsed),
     yearsSkipped: yearsSkippedText(base),
+    atmosphere: atmosphereText(base, ctx.u),
     sections,
   };
 }

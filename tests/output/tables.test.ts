@@ -51,6 +51,8 @@ describe("result tables", () => {
     expect(rows("bases")).toBe(results.bases.length);
     expect(rows("months")).toBe(perBase((b) => b.months));
     expect(rows("trapped_charge")).toBe(perBase((b) => b.trappedCharge));
+    expect(rows("atmosphere")).toBe(results.bases.length);
+    expect(rows("base_curves")).toBe(perBase((b) => b.profileCurves.flatMap((p) => p.prechargeLine)));
     expect(rows("nitrogen_stays")).toBe(perBase((b) => b.nitrogen.stays));
     expect(rows("stations")).toBe(perBase((b) => b.stations));
     expect(rows("stays")).toBe(results.stays.length);

@@ -80,7 +80,14 @@ export function syntheticClimate(
     meanStationPressureHpa: null,
     malformedExamples: [],
   };
-  return { stations: [station], series, timeZone: opts.timeZone ?? "UTC", atmPa: opts.atmPa ?? 101325 };
+  return {
+    stations: [station],
+    series,
+    timeZone: opts.timeZone ?? "UTC",
+    atmPa: opts.atmPa ?? 101325,
+    // 101 325 Pa is the ISO 2533 standard atmosphere at the synthetic station's 0 m.
+    atmSource: "standard atmosphere",
+  };
 }
 
 /**
