@@ -233,7 +233,7 @@ export class StayRun {
     const { ctx, out } = this;
     const amb = this.advance(day, g);
     out.accumulatorHours += ctx.count;
-    const inTrace = g >= this.traceFrom && g <= this.traceTo;
+    const inTrace = g > this.traceFrom && g <= this.traceTo;
     if (this.uncharged || !(Number.isFinite(amb) || inTrace)) return;
     const { st } = this;
     const reading = readingPct(ctx.geometry, st.gasVolumeM3);
@@ -245,17 +245,21 @@ export class StayRun {
       out.hourlyReadings[idx]!++;
       if (reading < low || reading > high) out.hourlyOutOfBand[idx]!++;
     }
-    if (inTrace) {
-      out.trace.push({
-        utcMs: g,
-        ambientC: ambForBand - K0,
-        accumulatorC: this.accK - K0,
-        gasKPaGauge: (st.gasPressureAbsPa - ctx.atmPa) / 1000,
-        readingPct: reading,
-        bandLowPct: low,
-        bandHighPct: high,
-      });
-    }
+    if (inTrace) this.tracePoint(g, ambForBand, st.gasPressureAbsPa, reading);
+  }
+
+  /** One point of the hourly trace: the air, the accumulator and its charge against the band at the air. */
+  private tracePoint(utcMs: number, ambK: number, gasPressureAbsPa: number, reading: number): void {
+    const { ctx } = this;
+    this.out.trace.push({
+      utcMs,
+      ambientC: ambK - K0,
+      accumulatorC: this.accK - K0,
+      gasKPaGauge: (gasPressureAbsPa - ctx.atmPa) / 1000,
+      readingPct: reading,
+      bandLowPct: bandAt(ctx.bandTable, ambK, "low"),
+      bandHighPct: bandAt(ctx.bandTable, ambK, "high"),
+    });
   }
 
   /** Start `si` of day `di` at `t`: the preflight first in the day, then discharge and recharge. */
@@ -274,6 +278,11 @@ export class StayRun {
     const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.st;
     const { endM3, endAltM3 } = this.discharge(day, ambK, counted, st);
     this.recharge(di, t, endM3, endAltM3);
+    // The overnight trace starts with the state just after the recharge it is measured from.
+    if (t === this.traceFrom) {
+      const c = this.charged;
+      this.tracePoint(t, ambK, c.gasPressureAbsPa, readingPct(this.ctx.geometry, c.gasVolumeM3));
+    }
   }
 
   /**
