@@ -417,6 +417,18 @@ export function trappedState(
   return res;
 }
 
+/** A trapped charge at one instant: its reference state c, its temperature and gas amount, its solved state. */
+export interface TrappedNow {
+  /** The reference state of the trapped fluid (end of the last recharge, or the last relief). */
+  c: ChargedState;
+  /** Accumulator (and trapped fluid) temperature, K. */
+  tempK: number;
+  /** Gas amount per unit, mol. */
+  amountMol: number;
+  /** `trappedState` of the above. */
+  trapped: TrappedState;
+}
+
 /** A thermal relief of a trapped charge: the new reference state and the fluid let out. */
 export interface ReliefResult {
   /** The relief state, the fluid model's new reference c (fluid kept, at the relief pressure and tempK). */
@@ -437,11 +449,9 @@ export interface ReliefResult {
  * @param model gas model
  * @param geometry V0 and Vmin, m³
  * @param fluid α (1/K), K (Pa) and the trapped line volume (m³)
- * @param c the reference state of the trapped fluid (end of the last recharge, or the last relief)
- * @param tempK accumulator (and trapped fluid) temperature now, K
- * @param amountMol gas amount per unit now, mol
+ * @param now the trapped charge now: its reference state `c`, `tempK` (K), `amountMol` (mol per unit)
+ *   and its solved state `trapped`
  * @param reliefAbsPa relief pressure, Pa absolute
- * @param trapped the trapped state now (`trappedState` of the same inputs)
  * @returns the relief state and the fluid relieved, or null when the fluid pressure does not exceed
  *   the relief pressure
  *
@@ -451,17 +461,15 @@ export interface ReliefResult {
  * @example
  * // 1 L unit (1450 psig at 70 °F), 0.2 L line, α 8e-4/K, K 1.5 GPa, charged to 3000 psig at 0 °C,
  * // warmed to 30 °C with relief at 3300 psig (22.854 MPa absolute): 39.4 mL relieved
- * thermalRelief(realGas, geometry, fluid, c, 303.15, n, 22.854e6, trappedState(realGas, geometry, fluid, c, 303.15, n));
+ * const trapped = trappedState(realGas, geometry, fluid, c, 303.15, n);
+ * thermalRelief(realGas, geometry, fluid, { c, tempK: 303.15, amountMol: n, trapped }, 22.854e6);
  */
 export function thermalRelief(
   model: GasModel,
   geometry: AccumulatorGeometry,
   fluid: FluidProps,
-  c: ChargedState,
-  tempK: number,
-  amountMol: number,
+  { c, tempK, amountMol, trapped }: TrappedNow,
   reliefAbsPa: number,
-  trapped: TrappedState,
 ): ReliefResult | null {
   requirePositive("reliefAbsPa", reliefAbsPa, "Pa");
   if (!(trapped.fluidPressureAbsPa > reliefAbsPa)) return null;

@@ -225,7 +225,8 @@ export class StayRun {
   /** The relief of one charge in its trapped state `st`, or null when the valve stays shut. */
   private relieve(charge: ChargedState, st: TrappedState, reliefAbsPa: number) {
     const { model, geometry, fluid } = this.ctx;
-    return thermalRelief(model, geometry, fluid, charge, this.accK, this.amountMol, reliefAbsPa, st);
+    const now = { c: charge, tempK: this.accK, amountMol: this.amountMol, trapped: st };
+    return thermalRelief(model, geometry, fluid, now, reliefAbsPa);
   }
 
   /** Grid hour: what-if reading of the trapped charge against the band at ambient; the trace. */

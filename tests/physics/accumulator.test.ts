@@ -317,12 +317,13 @@ describe("thermal relief", () => {
   const c = chargedState(realGas, geometry, fluid, n, cToK(0), psigToAbs(3000));
   const relief = psigToAbs(3300);
   const warm = trappedState(realGas, geometry, fluid, c, cToK(30), n);
-  const relieved = thermalRelief(realGas, geometry, fluid, c, cToK(30), n, relief, warm)!;
+  const at30 = { c, tempK: cToK(30), amountMol: n, trapped: warm };
+  const relieved = thermalRelief(realGas, geometry, fluid, at30, relief)!;
   const starter = { minUsefulAbsPa: psigToAbs(1000), returnAbsPa: ATM };
 
   it("charged to 3000 psig at 0 °C and warmed to 30 °C: 3645.8 psig without relief", () => {
     expect(absToPsig(warm.fluidPressureAbsPa)).toBeCloseTo(3645.8, 1);
-    expect(thermalRelief(realGas, geometry, fluid, c, cToK(30), n, psigToAbs(3700), warm)).toBeNull();
+    expect(thermalRelief(realGas, geometry, fluid, at30, psigToAbs(3700))).toBeNull();
   });
 
   it("with relief at 3300 psig: 39.4 mL relieved at 30 °C, the pressure holds at the relief value", () => {
@@ -354,7 +355,13 @@ describe("thermal relief", () => {
     const full = chargedState(realGas, small, fluid, n, cToK(0), psigToAbs(3000));
     expect(full.gasVolumeM3).toBe(small.vminM3);
     const hot = trappedState(realGas, small, fluid, full, cToK(30), n);
-    const r = thermalRelief(realGas, small, fluid, full, cToK(30), n, relief, hot)!;
+    const r = thermalRelief(
+      realGas,
+      small,
+      fluid,
+      { c: full, tempK: cToK(30), amountMol: n, trapped: hot },
+      relief,
+    )!;
     expect(r.charge.gasVolumeM3).toBe(small.vminM3);
     expect(r.charge.gasPressureAbsPa).toBeLessThan(relief);
     expect(r.relievedM3).toBeGreaterThan(0);

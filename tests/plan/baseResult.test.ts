@@ -1,9 +1,8 @@
 /** One base's results: the atmosphere used and the curves at it (docs/methods.md §1; README, Outputs). */
 import { describe, expect, it } from "vitest";
 import { runPlan } from "../../src/plan/engine.js";
-import type { Stay } from "../../src/plan/schedule.js";
 import { fToK, PA_PER_PSI } from "../../src/units/index.js";
-import { fixturePlan, HOUR_MS, oneLitreUnit, syntheticClimate } from "./helpers.js";
+import { fixturePlan, fixtureStay, HOUR_MS, oneLitreUnit, syntheticClimate } from "./helpers.js";
 
 describe("the atmosphere of a base", () => {
   const from = Date.UTC(2014, 0, 1);
@@ -11,17 +10,7 @@ describe("the atmosphere of a base", () => {
   const climate = new Map([
     ["North Field", syntheticClimate(() => 0, from, from + 10 * 24 * HOUR_MS, { atmPa })],
   ]);
-  const stays: Stay[] = [
-    {
-      aircraft: "A1",
-      base: "North Field",
-      arrive: "2027-01-02",
-      depart: "2027-01-05",
-      coldStartOption: false,
-      profile: "standard",
-      line: 2,
-    },
-  ];
+  const stays = [fixtureStay("A1", "2027-01-02", "2027-01-05")];
   const { results } = runPlan(fixturePlan(oneLitreUnit), stays, climate);
   const base = results.bases[0]!;
 

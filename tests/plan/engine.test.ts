@@ -6,26 +6,12 @@ import { realGas } from "../../src/physics/nitrogen.js";
 import { profileContext } from "../../src/plan/context.js";
 import { runPlan } from "../../src/plan/engine.js";
 import type { Stay } from "../../src/plan/schedule.js";
-import { fixturePlan, HOUR_MS, simulateUtcStay, syntheticClimate, type Tree } from "./helpers.js";
+import { fixturePlan, HOUR_MS, oneLitreUnit, simulateUtcStay, syntheticClimate } from "./helpers.js";
 
 const ATM = 101325;
-const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
 
 function stay(aircraft: string, arrive: string, depart: string, coldStartOption = false): Stay {
   return { aircraft, base: "North Field", arrive, depart, coldStartOption, profile: "standard", line: 2 };
-}
-
-/** The 1 L unit of the physics tests, lag 0, no gas loss, every day flown, no hangar. */
-function oneLitreUnit(t: Tree) {
-  const p = t.profiles[0];
-  p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
-  p.precharge = { reference: "1450 psig @ 70 F", tolerance: "50 psi" };
-  p.system = { low: "2850 psig", nominal: "3000 psig", high: "3150 psig" };
-  p.fluid = { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" };
-  p.thermalTimeConstant = "0 s";
-  p.gasLoss = { rate: "0 psi/month", spread: 0 };
-  t.operations.weekdays = ALL_DAYS;
-  delete t.bases[0].hangar;
 }
 
 describe("energy with one and with two accumulators (README; docs/methods.md §5)", () => {

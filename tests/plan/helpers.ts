@@ -11,6 +11,7 @@ import { type ProfileContext, profileContext } from "../../src/plan/context.js";
 import { buildDays } from "../../src/plan/days.js";
 import type { BaseClimate } from "../../src/plan/engine.js";
 import { type Plan, parsePlanText } from "../../src/plan/planFile.js";
+import type { Stay } from "../../src/plan/schedule.js";
 import { type ArrivalState, type SimOutcome, simulateStayYear } from "../../src/plan/simulate.js";
 
 /** Standard sea-level atmosphere, Pa (ISO 2533). */
@@ -31,8 +32,11 @@ export function fixturePlan(edit: (t: Tree) => void = () => {}, file = "plan.yam
 
 export const HOUR_MS = 3_600_000;
 
-/** The 1 L unit of the physics tests: 1450 psig at 70 °F, 3000 psig, α 8e-4/K, K 1.5 GPa, 0.2 L line. */
-export function oneLitreUnit(t: Tree) {
+/**
+ * The 1 L unit of the physics tests on the fixture plan: 1450 psig at 70 °F, 3000 psig, α 8e-4/K,
+ * K 1.5 GPa, 0.2 L line; lag 0, no gas loss, every weekday flown, no hangar.
+ */
+export function oneLitreUnit(t: Tree): void {
   const p = t.profiles[0];
   p.accumulator = { gasVolumeEmpty: "1 L", gasVolumeFull: "0.1 L" };
   p.precharge = { reference: "1450 psig @ 70 F", tolerance: "50 psi" };
@@ -40,17 +44,14 @@ export function oneLitreUnit(t: Tree) {
   p.fluid = { expansionPerK: "8e-4 /K", bulkModulus: "1.5 GPa", lineVolume: "0.2 L" };
   p.thermalTimeConstant = "0 s";
   p.gasLoss = { rate: "0 psi/month", spread: 0 };
-  // A pump that always finishes within its timer, and a requirement far below delivery.
-  p.pump = {
-    curve: [
-      { pressure: "0 psig", flow: "100 L/min" },
-      { pressure: "3000 psig", flow: "100 L/min" },
-    ],
-    timer: "10 min",
-  };
-  p.startEnergy = [{ ambient: "-60 C", energy: "0.1 kJ" }];
   t.operations.weekdays = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
   delete t.bases[0].hangar;
+}
+
+/** A stay of the schedule at the fixture's base, with its profile and no cold-start option. */
+export function fixtureStay(aircraft: string, arrive: string, depart: string): Stay {
+  const rest = { base: "North Field", coldStartOption: false, profile: "standard", line: 2 };
+  return { aircraft, arrive, depart, ...rest };
 }
 
 /** A one-station climate whose hourly temperature is fn(utcMs), over [fromUtcMs, toUtcMs). */

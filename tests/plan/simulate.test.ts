@@ -5,14 +5,37 @@ import { realGas } from "../../src/physics/nitrogen.js";
 import { profileContext } from "../../src/plan/context.js";
 import { runPlan } from "../../src/plan/engine.js";
 import { PA_PER_PSI } from "../../src/units/index.js";
-import { ATM_PA, fixturePlan, HOUR_MS, oneLitreUnit, simulateUtcStay, syntheticClimate } from "./helpers.js";
+import {
+  ATM_PA,
+  fixturePlan,
+  HOUR_MS,
+  oneLitreUnit,
+  simulateUtcStay,
+  syntheticClimate,
+  type Tree,
+} from "./helpers.js";
+
+/** The 1 L unit of the physics tests (helpers.ts), with a pump that always finishes. */
+function oneLitreUnitFullPump(t: Tree) {
+  oneLitreUnit(t);
+  const p = t.profiles[0];
+  // A pump that always finishes within its timer, and a requirement far below delivery.
+  p.pump = {
+    curve: [
+      { pressure: "0 psig", flow: "100 L/min" },
+      { pressure: "3000 psig", flow: "100 L/min" },
+    ],
+    timer: "10 min",
+  };
+  p.startEnergy = [{ ambient: "-60 C", energy: "0.1 kJ" }];
+}
 
 describe("simulation physics identities", () => {
   it("constant temperature, no gas loss, complete recharge: no drop, no out-of-band, no short start", () => {
     // Physics identity (docs/methods.md §3): at one temperature with the fluid trapped and no gas loss,
     // the state after each recharge is the same equilibrium, so nothing moves overnight.
     const plan = fixturePlan((t) => {
-      oneLitreUnit(t);
+      oneLitreUnitFullPump(t);
       t.profiles[0].thermalTimeConstant = "2 h";
       t.operations.startTimes = ["06:30", "13:00", "18:00"];
     });
@@ -50,7 +73,7 @@ describe("simulation physics identities", () => {
     // Issue 4 / physics tests: computed independently from the equation of state (Span et al. 2000) and
     // the fluid model of docs/methods.md §3: 2311.6 psig ± 1.
     const plan = fixturePlan((t) => {
-      oneLitreUnit(t);
+      oneLitreUnitFullPump(t);
       t.operations.startTimes = ["07:00", "18:00"];
     });
     const day2 = Date.UTC(2014, 0, 2);
@@ -82,7 +105,7 @@ describe("hangar hours and the accumulator lag", () => {
     // τ = 2 h, r = −0.5 K/h, preflight at 06:30 (between grid hours, where the air is interpolated
     // linearly): T = Ta(6.5 h) + 1·(1 − e^(−3.25)).
     const plan = fixturePlan((t) => {
-      oneLitreUnit(t);
+      oneLitreUnitFullPump(t);
       t.profiles[0].thermalTimeConstant = "2 h";
       t.operations.startTimes = ["06:30", "12:00"];
     });
@@ -102,7 +125,7 @@ describe("hangar hours and the accumulator lag", () => {
     // Exact solution of dT/dt = (Ta − T)/τ for a constant ambient: T = Ta + (T0 − Ta)·exp(−t/τ)
     // (first-order linear ODE); τ = 2 h, one hour outside: −20 + 35·e^(−1/2) °C.
     const plan = fixturePlan((t) => {
-      oneLitreUnit(t);
+      oneLitreUnitFullPump(t);
       t.profiles[0].thermalTimeConstant = "2 h";
       t.bases[0].hangar = { kind: "heated", heatedTo: "15 C", in: "18:00", out: "06:00" };
       t.operations.startTimes = ["07:00", "12:00"];
@@ -130,7 +153,7 @@ describe("heated hangars and unheated shelters (docs/methods.md §3, Hangars)", 
   const stay = { arrive: "2027-01-01", depart: "2027-01-05", climateYear: 2014 };
   const planOf = (tau: string) =>
     fixturePlan((t) => {
-      oneLitreUnit(t);
+      oneLitreUnitFullPump(t);
       t.profiles[0].thermalTimeConstant = tau;
       t.operations.startTimes = ["07:00", "12:00", "19:30"];
     });
@@ -198,7 +221,7 @@ describe("heated hangars and unheated shelters (docs/methods.md §3, Hangars)", 
 describe("arrival state (docs/methods.md §5, Arrival)", () => {
   const from = Date.UTC(2014, 0, 1);
   const plan = fixturePlan((t) => {
-    oneLitreUnit(t);
+    oneLitreUnitFullPump(t);
     t.operations.startTimes = ["07:00", "12:00"];
     t.profiles[0].handPump = { displacement: "10 mL", efficiency: 0.8 };
   });

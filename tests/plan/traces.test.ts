@@ -1,9 +1,8 @@
 /** Overnight traces (docs/methods.md §5; README, Outputs: `bases[].traces`, traces.csv). */
 import { describe, expect, it } from "vitest";
 import { runPlan } from "../../src/plan/engine.js";
-import type { Stay } from "../../src/plan/schedule.js";
 import { PA_PER_PSI } from "../../src/units/index.js";
-import { fixturePlan, HOUR_MS, oneLitreUnit, syntheticClimate } from "./helpers.js";
+import { fixturePlan, fixtureStay, HOUR_MS, oneLitreUnit, syntheticClimate } from "./helpers.js";
 
 describe("overnight traces", () => {
   const from = Date.UTC(2014, 0, 1);
@@ -16,17 +15,7 @@ describe("overnight traces", () => {
     from,
     from + 10 * 24 * HOUR_MS,
   );
-  const stays: Stay[] = [
-    {
-      aircraft: "A1",
-      base: "North Field",
-      arrive: "2027-01-02",
-      depart: "2027-01-06",
-      coldStartOption: false,
-      profile: "standard",
-      line: 2,
-    },
-  ];
+  const stays = [fixtureStay("A1", "2027-01-02", "2027-01-06")];
   const plan = fixturePlan((t) => {
     oneLitreUnit(t);
     t.operations.startTimes = ["07:00", "18:00"];

@@ -4,9 +4,16 @@
  */
 import { describe, expect, it } from "vitest";
 import { runPlan } from "../../src/plan/engine.js";
-import type { Stay } from "../../src/plan/schedule.js";
 import { PA_PER_PSI } from "../../src/units/index.js";
-import { ATM_PA, fixturePlan, HOUR_MS, oneLitreUnit, simulateUtcStay, syntheticClimate } from "./helpers.js";
+import {
+  ATM_PA,
+  fixturePlan,
+  fixtureStay,
+  HOUR_MS,
+  oneLitreUnit,
+  simulateUtcStay,
+  syntheticClimate,
+} from "./helpers.js";
 
 // The unit and figures of the physics tests' relief check values (Span et al. 2000 and the trapped-fluid
 // model of docs/methods.md §3, computed independently by tests/physics/crosscheck/relief_check.py):
@@ -60,17 +67,11 @@ describe("thermal relief in the simulation", () => {
 
 describe("trapped charge by base-month", () => {
   const climate = new Map([["North Field", syntheticClimate(warmDay, DAY, DAY + 60 * 24 * HOUR_MS)]]);
-  const stay = (aircraft: string, arrive: string, depart: string): Stay => ({
-    aircraft,
-    base: "North Field",
-    arrive,
-    depart,
-    coldStartOption: false,
-    profile: "standard",
-    line: 2,
-  });
   // A1 meets the warm day in January; A2 stays in February at a steady 0 °C.
-  const stays = [stay("A1", "2027-01-01", "2027-01-02"), stay("A2", "2027-02-01", "2027-02-02")];
+  const stays = [
+    fixtureStay("A1", "2027-01-01", "2027-01-02"),
+    fixtureStay("A2", "2027-02-01", "2027-02-02"),
+  ];
 
   it("counts openings and fluid per month and year; a profile without a valve above 1.1 × high is warned about", () => {
     const relieved = runPlan(planWith("3300 psig"), stays, climate).results;
