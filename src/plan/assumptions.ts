@@ -7,8 +7,9 @@
  */
 
 import { JSON_UNITS, kToC, type QuantityKind, type QuantityValue, toJsonUnit } from "../units/index.js";
+import { MONTH_NAMES } from "./calendar.js";
 import type { Plan, PointPressure } from "./planFile.js";
-import { MONTH_NAMES, WEEKDAY_NAMES } from "./planFile.js";
+import { WEEKDAY_NAMES } from "./planFile.js";
 import type { Assumption } from "./results.js";
 
 const clock = (min: number) =>

@@ -6,6 +6,22 @@
  */
 import { DateTime } from "luxon";
 
+/** Month names as plans and messages write them, January first. */
+export const MONTH_NAMES = [
+  "Jan",
+  "Feb",
+  "Mar",
+  "Apr",
+  "May",
+  "Jun",
+  "Jul",
+  "Aug",
+  "Sep",
+  "Oct",
+  "Nov",
+  "Dec",
+] as const;
+
 export interface CivilDate {
   year: number;
   month: number; // 1–12

@@ -80,6 +80,14 @@ function instantOn(
   return dayLengthMs === 24 * HOUR_MS ? midnight + minutes * 60_000 : localInstant(d, minutes, zone);
 }
 
+/** The day's hangar in and out instants that fall between its grid hours, ascending (each ends a step). */
+export function hangarBreaks(day: DayPlan): number[] {
+  return day.hangar
+    .flat()
+    .filter((b) => b % HOUR_MS !== 0 && b > day.midnightUtcMs && b < day.nextMidnightUtcMs)
+    .sort((a, b) => a - b);
+}
+
 /** Local hour of day of a UTC instant inside the day. */
 export function localHourOf(day: DayPlan, utcMs: number, zone: string): number {
   if (day.localHours === null) return Math.floor((utcMs - day.midnightUtcMs) / HOUR_MS);

@@ -13,29 +13,14 @@ import {
   parsePressureAt,
   parsePressureDifference,
   parsePressureRatePaS,
-  parseTemperatureDifferenceK,
   parseTemperatureK,
   parseTimeS,
   parseVolumeM3,
-  QuantityError,
   S_PER_MONTH,
   STANDARD_ATMOSPHERE_PA,
 } from "../units/index.js";
-
-/** A string field parsed by `parser`; a parse failure becomes a zod issue at that path. */
-function q<T>(parser: (s: string) => T) {
-  return z.string().transform((s, ctx): T => {
-    try {
-      return parser(s);
-    } catch (err) {
-      if (err instanceof QuantityError) {
-        ctx.addIssue({ code: "custom", message: err.message });
-        return z.NEVER;
-      }
-      throw err;
-    }
-  });
-}
+import { hangarSchema } from "./planHangar.js";
+import { q } from "./planQuantity.js";
 
 const positive = <T extends z.ZodType<number>>(s: T, what: string) =>
   s.refine((v) => v > 0, { message: `${what} must be greater than zero` });
@@ -46,20 +31,6 @@ const clock = q(parseClockMinutes);
 const NAME_RE = /^[A-Za-z0-9][A-Za-z0-9 _.-]*$/;
 
 export const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"] as const;
-export const MONTH_NAMES = [
-  "Jan",
-  "Feb",
-  "Mar",
-  "Apr",
-  "May",
-  "Jun",
-  "Jul",
-  "Aug",
-  "Sep",
-  "Oct",
-  "Nov",
-  "Dec",
-] as const;
 const weekdayName = z.string().transform((s, ctx) => {
   const i = WEEKDAY_NAMES.findIndex((d) => s.toLowerCase().startsWith(d.toLowerCase()));
   if (i < 0 || s.length < 3) {
@@ -71,70 +42,6 @@ const weekdayName = z.string().transform((s, ctx) => {
   }
   return i + 1; // ISO weekday, Monday = 1
 });
-
-const monthName = z.union([z.number(), z.string()]).transform((v, ctx) => {
-  const i =
-    typeof v === "number"
-      ? Number.isInteger(v) && v >= 1 && v <= 12
-        ? v - 1
-        : -1
-      : MONTH_NAMES.findIndex((m) => v.length >= 3 && v.toLowerCase().startsWith(m.toLowerCase()));
-  if (i < 0) {
-    ctx.addIssue({ code: "custom", message: `"${v}" is not a month; expected Jan … Dec or a number 1–12` });
-    return z.NEVER;
-  }
-  return i + 1;
-});
-
-/** Default time constant of an unheated shelter's air behind the outdoor air (docs/methods.md §3). */
-export const SHELTER_TIME_CONSTANT_S = 6 * 3600;
-
-/**
- * An overnight hangar (docs/methods.md §3, "Hangars"): `heated` holds its air at or above `heatedTo`;
- * an unheated `shelter` follows the outdoor air through its own lag `timeConstant` plus `offset`.
- * `months` limits it to part of the year. The former fixed `temperature` is refused in `parsePlanText`.
- */
-const hangarSchema = z
-  .strictObject({
-    kind: z.enum(["heated", "shelter"]).optional(),
-    heatedTo: q(parseTemperatureK).optional(),
-    timeConstant: q(parseTimeS).optional(),
-    offset: q(parseTemperatureDifferenceK).optional(),
-    in: clock,
-    out: clock,
-    months: z
-      .array(monthName)
-      .min(1)
-      .refine((m) => new Set(m).size === m.length, { message: "expected each month once" })
-      .optional(),
-  })
-  .superRefine((h, ctx) => {
-    const wrong = (key: string, message: string) => ctx.addIssue({ code: "custom", path: [key], message });
-    if (h.kind === undefined) {
-      wrong(
-        "kind",
-        "missing; expected kind: heated (with heatedTo) or kind: shelter (unheated, with timeConstant and offset)",
-      );
-    } else if (h.kind === "heated") {
-      if (h.heatedTo === undefined)
-        wrong("heatedTo", 'missing; a heated hangar needs its set point, e.g. heatedTo: "50 F"');
-      if (h.timeConstant !== undefined) wrong("timeConstant", "belongs to kind: shelter, not kind: heated");
-      if (h.offset !== undefined) wrong("offset", "belongs to kind: shelter, not kind: heated");
-    } else if (h.heatedTo !== undefined) {
-      wrong("heatedTo", "belongs to kind: heated; a shelter follows the outdoor air (timeConstant, offset)");
-    }
-  })
-  .transform((h) => {
-    const common = { in: h.in, out: h.out, months: h.months ?? null };
-    return h.kind === "heated"
-      ? { kind: "heated" as const, heatedTo: h.heatedTo!, ...common }
-      : {
-          kind: "shelter" as const,
-          timeConstant: h.timeConstant ?? SHELTER_TIME_CONSTANT_S,
-          offset: h.offset ?? 0,
-          ...common,
-        };
-  });
 
 const baseSchema = z.strictObject({
   name: z.string().min(1),

@@ -1,7 +1,8 @@
 /**
  * One stay on one climate year as a small state object: accumulator temperature, gas amount, the
- * trapped charge of both configurations, and the steps that advance them (advance, grid hour, start,
- * preflight, service, discharge, recharge). What happens when is described in `simulate.ts`.
+ * trapped charge of both configurations, and the steps that advance them (advance with the air around
+ * the aircraft, settle the trapped charge and its thermal relief, grid hour, start, preflight, service,
+ * discharge, recharge). What happens when is described in `simulate.ts`.
  */
 import {
   type AmbientStep,
@@ -16,14 +17,14 @@ import {
   recharge,
   startDischarge,
   type TrappedState,
-  thermalRelief,
   trappedState,
 } from "../physics/accumulator.js";
 import { ZERO_CELSIUS_K as K0 } from "../units/index.js";
 import { AirAround, inHangarAt } from "./air.js";
 import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
-import { type DayPlan, HOUR_MS, localHourOf } from "./days.js";
-import type { ReliefRecord, SimInputs, SimOutcome } from "./simulate.js";
+import { type DayPlan, HOUR_MS, hangarBreaks, localHourOf } from "./days.js";
+import { ReliefValve } from "./reliefValve.js";
+import type { SimInputs, SimOutcome } from "./simulate.js";
 
 /** The last recharge of a day: what the next morning's overnight drop is measured from. */
 interface RechargeMark {
@@ -34,6 +35,7 @@ interface RechargeMark {
   utcMs: number;
 }
 
+/** An outcome with nothing recorded yet. */
 export function emptyOutcome(): SimOutcome {
   return {
     preflights: [],
@@ -83,8 +85,8 @@ export class StayRun {
   private uncharged: boolean;
   /** The trapped state of `charged` at `cur`, settled after each step (relieved where the valve opens). */
   private st: TrappedState = { gasPressureAbsPa: 0, gasVolumeM3: 0, fluidPressureAbsPa: 0 };
-  /** The relief event under way (the valve let fluid out at the last step), or null. */
-  private relief: ReliefRecord | null = null;
+  /** The thermal relief valve and its records. */
+  private readonly valve: ReliefValve;
   private lastCheckDay = 0;
   private lastRecharge: RechargeMark | null = null;
   private prevDay: DayPlan | null = null;
@@ -96,6 +98,7 @@ export class StayRun {
     const ctx = inp.ctx;
     const days = inp.days;
     this.ctx = ctx;
+    this.valve = new ReliefValve(ctx, this.out);
     this.lossMolS = ctx.gasLossMolS * inp.gasLossFactor;
     this.traceFrom = inp.trace?.fromUtcMs ?? Number.POSITIVE_INFINITY;
     this.traceTo = inp.trace ? this.traceFrom + inp.trace.hours * HOUR_MS : Number.NEGATIVE_INFINITY;
@@ -133,10 +136,7 @@ export class StayRun {
     }
     let si = 0;
     let g = Math.ceil(day.midnightUtcMs / HOUR_MS) * HOUR_MS;
-    const breaks = day.hangar
-      .flat()
-      .filter((b) => b % HOUR_MS !== 0 && b > day.midnightUtcMs && b < day.nextMidnightUtcMs)
-      .sort((a, b) => a - b);
+    const breaks = hangarBreaks(day);
     let hb = 0;
     for (;;) {
       const nextStart = si < day.startsUtcMs.length ? day.startsUtcMs[si]! : Number.POSITIVE_INFINITY;
@@ -191,42 +191,30 @@ export class StayRun {
   /**
    * The trapped charge at the end of a step: solved once; where the fluid pressure exceeds the relief
    * valve's, the valve lets fluid out and the relief state becomes the fluid's reference (both
-   * configurations; events and volume counted for the one fitted); the month's peak pressure noted.
+   * configurations; openings, fluid and the month's peak pressure recorded for the one fitted).
    */
   private settle(day: DayPlan): void {
     if (this.uncharged) return;
-    const { ctx, out } = this;
-    const { model, geometry, fluid, reliefAbsPa } = ctx;
+    const { model, geometry, fluid } = this.ctx;
     const st = trappedState(model, geometry, fluid, this.charged, this.accK, this.amountMol, this.st);
-    const opened = reliefAbsPa === null ? null : this.relieve(this.charged, st, reliefAbsPa);
-    if (opened === null) {
-      this.relief = null;
-    } else {
+    const opened = this.valve.relieve(this.charged, st, this.accK, this.amountMol);
+    if (opened !== null) {
       this.charged = opened.charge;
       if (this.altSame) this.chargedAlt = opened.charge;
       st.gasPressureAbsPa = opened.charge.gasPressureAbsPa;
       st.gasVolumeM3 = opened.charge.gasVolumeM3;
       st.fluidPressureAbsPa = opened.charge.fluidPressureAbsPa;
-      if (this.relief === null) {
-        this.relief = { month: day.month, utcMs: this.cur, relievedM3: 0 };
-        out.reliefs.push(this.relief);
-      }
-      this.relief.relievedM3 += opened.relievedM3 * ctx.count;
     }
-    if (reliefAbsPa !== null && !this.altSame) {
-      const alt = this.relieve(this.chargedAlt, this.trapped(this.chargedAlt), reliefAbsPa);
+    this.valve.note(day.month, this.cur, opened, st.fluidPressureAbsPa);
+    if (!this.altSame && this.ctx.reliefAbsPa !== null) {
+      const alt = this.valve.relieve(
+        this.chargedAlt,
+        this.trapped(this.chargedAlt),
+        this.accK,
+        this.amountMol,
+      );
       if (alt !== null) this.chargedAlt = alt.charge;
     }
-    const peak = out.peakTrappedAbsPa[day.month]!;
-    if (st.fluidPressureAbsPa > peak || Number.isNaN(peak))
-      out.peakTrappedAbsPa[day.month] = st.fluidPressureAbsPa;
-  }
-
-  /** The relief of one charge in its trapped state `st`, or null when the valve stays shut. */
-  private relieve(charge: ChargedState, st: TrappedState, reliefAbsPa: number) {
-    const { model, geometry, fluid } = this.ctx;
-    const now = { c: charge, tempK: this.accK, amountMol: this.amountMol, trapped: st };
-    return thermalRelief(model, geometry, fluid, now, reliefAbsPa);
   }
 
   /** Grid hour: what-if reading of the trapped charge against the band at ambient; the trace. */
@@ -376,7 +364,7 @@ export class StayRun {
     this.charged = this.chargedAt(ctx.systemNominalAbsPa);
     this.chargedAlt = this.charged;
     this.altSame = true;
-    this.relief = null;
+    this.valve.recharged();
   }
 
   /** Per-unit discharge from a gas volume at the start: sets dischargeJ and dischargeEndM3. */
@@ -436,7 +424,7 @@ export class StayRun {
     const p = ctx.systemNominalAbsPa;
     const r = recharge(model, geometry, ctx.count, this.amountMol, this.accK, endM3, p, ctx.pump);
     this.charged = this.chargedAt(r.gasPressureAbsPa);
-    this.relief = null;
+    this.valve.recharged();
     if (this.altSame && r.reachedSystem && (r.timeS * ctx.altCount) / ctx.count <= ctx.altPump.timerS) {
       this.chargedAlt = this.charged;
     } else {

@@ -5,8 +5,9 @@
  * a profile without a relief valve sees a trapped pressure above 1.1 × its system high.
  */
 import { M3_PER_LITRE, PA_PER_KPA, showWithUnit, unitSystem } from "../units/index.js";
+import { MONTH_NAMES } from "./calendar.js";
 import { gaugePa } from "./context.js";
-import { MONTH_NAMES, type Plan } from "./planFile.js";
+import type { Plan } from "./planFile.js";
 import type { TrappedMonthRow } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
