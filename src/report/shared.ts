@@ -61,8 +61,8 @@ export function baseAnchor(index: number): string {
 /**
  * Which air surrounds the aircraft in a base's hangar hours, from the plan's hangar assumptions of the
  * base (keys `bases.<name>.hangar.{kind,heatedTo,timeConstant,offset,in,out,months}`), in the plan's
- * units: "heated hangar air (the outside air, or 59.0 °F where colder) from 19:00 to 06:30", "unheated
- * shelter air (the outside air 6 h behind, +3.6 °F) from 20:00 to 06:00 in Nov, Dec"; null without one.
+ * units: "heated hangar air, the outside air or 59.0 °F where colder, from 19:00 to 06:30", "unheated
+ * shelter air, the outside air 6 h behind and +3.6 °F, from 20:00 to 06:00 in Nov, Dec"; null without one.
  */
 export function hangarText(results: Results, baseName: string): string | null {
   const get = (k: string) => results.assumptions.find((a) => a.key === `bases.${baseName}.hangar.${k}`);
@@ -75,15 +75,15 @@ export function hangarText(results: Results, baseName: string): string | null {
   if (kind === "heated") {
     const setPoint = get("heatedTo")?.value;
     const t = typeof setPoint === "number" ? showWithUnit(u.temp, setPoint) : "its set point";
-    air = `heated hangar air (the outside air, or ${t} where colder)`;
+    air = `heated hangar air, the outside air or ${t} where colder,`;
   } else {
     const lag = get("timeConstant");
     const offset = get("offset")?.value;
     const off =
       typeof offset === "number" && offset !== 0
-        ? `, ${offset > 0 ? "+" : ""}${showWithUnit(u.tempDelta, offset)}`
+        ? ` and ${offset > 0 ? "+" : ""}${showWithUnit(u.tempDelta, offset)}`
         : "";
-    air = `unheated shelter air (the outside air ${lag ? shownText(lag, u) : "some hours"} behind${off})`;
+    air = `unheated shelter air, the outside air ${lag ? shownText(lag, u) : "some hours"} behind${off},`;
   }
   const months = get("months")?.value;
   const when = Array.isArray(months) ? ` in ${months.join(", ")}` : "";

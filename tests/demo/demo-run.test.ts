@@ -75,9 +75,11 @@ describe("demo scenario, end to end (years 2019–2020)", () => {
     expect(html).toContain("Thermal relief: utility relieves at 3400 psig.");
     // The demo plan: a heated hangar at Veldmoor, an unheated shelter at Iskarra (sample-data).
     expect(html).toContain(
-      "heated hangar air (the outside air, or 59.0 °F where colder) from 19:00 to 06:30 in Oct",
+      "heated hangar air, the outside air or 59.0 °F where colder, from 19:00 to 06:30 in Oct",
     );
-    expect(html).toContain("unheated shelter air (the outside air 6 h behind, +4.0 °F) from 20:00 to 06:00");
+    expect(html).toContain(
+      "unheated shelter air, the outside air 6 h behind and +4.0 °F, from 20:00 to 06:00",
+    );
   });
 
   it("shows plan values as the user typed them", () => {

@@ -155,7 +155,7 @@ describe("report structure", () => {
     for (const c of north) expect(c).toContain("temperature of the outside air");
     for (const c of south)
       expect(c).toContain(
-        "heated hangar air (the outside air, or 41.0 °F where colder) from 20:00 to 06:00 in Nov, Dec, Jan, Feb; outside air otherwise",
+        "heated hangar air, the outside air or 41.0 °F where colder, from 20:00 to 06:00 in Nov, Dec, Jan, Feb; outside air otherwise",
       );
     expect(html).not.toContain("evening recharge");
   });
