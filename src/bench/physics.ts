@@ -53,7 +53,7 @@ function trappedBatch(model: GasModel): () => number {
     let t = 283.15;
     let n = n0;
     for (let h = 0; h < hours; h++) {
-      t = lagTempK(t, { dtS: 3600, endK: ambientK(h) }, 5400);
+      t = lagTempK(t, { dtS: 3600, startK: ambientK(h - 1), endK: ambientK(h) }, 5400);
       n *= 1 - 1e-6; // slow gas loss
       trappedState(model, geometry, fluid, c, t, n, out);
       sink += out.gasPressureAbsPa;

@@ -224,6 +224,19 @@ export function resultTables(r: Results): Table[] {
       ],
     ),
     table(
+      "trapped_charge",
+      perBase(r, (b) => b.trappedCharge),
+      [
+        baseName,
+        ["month", ({ x }) => x.month],
+        ["peak_trapped_kpa_gauge", ({ x }) => x.peakTrappedKPaGauge],
+        ["relief_events", ({ x }) => x.reliefEvents],
+        ["relief_events_per_year", ({ x }) => x.reliefEventsPerYear],
+        ["relieved_l", ({ x }) => x.relievedL],
+        ["relieved_l_per_year", ({ x }) => x.relievedLPerYear],
+      ],
+    ),
+    table(
       "out_of_band_by_hour",
       perBase(r, (b) => b.outOfBandByHour),
       [
@@ -374,6 +387,33 @@ export function resultTables(r: Results): Table[] {
         ["qc_erroneous", ({ x }) => x.qc.dropped.erroneous],
         ["qc_suspect", ({ x }) => x.qc.dropped.suspect],
         ["qc_duplicate", ({ x }) => x.qc.dropped.duplicate],
+      ],
+    ),
+    table("atmosphere", r.bases, [
+      ["base", (b) => b.name],
+      ["station", (b) => b.atmosphere.station],
+      ["elevation_m", (b) => b.atmosphere.elevationM],
+      ["atmosphere_kpa_absolute", (b) => b.atmosphere.pressureKPaAbsolute],
+      ["source", (b) => b.atmosphere.source],
+    ]),
+    table(
+      "base_curves",
+      r.bases.flatMap((b) =>
+        b.profileCurves.flatMap((p) => p.prechargeLine.map((x, i) => ({ b, p, x, band: p.band[i] ?? null }))),
+      ),
+      [
+        baseName,
+        ["profile", ({ p }) => p.name],
+        ["atmosphere_kpa_absolute", ({ p }) => p.atmosphereKPaAbsolute],
+        ["temp_c", ({ x }) => x.tempC],
+        ["precharge_kpa_gauge", ({ x }) => x.prechargeKPaGauge],
+        ["precharge_low_kpa_gauge", ({ x }) => x.prechargeLowKPaGauge],
+        ["precharge_high_kpa_gauge", ({ x }) => x.prechargeHighKPaGauge],
+        ["ideal_precharge_kpa_gauge", ({ x }) => x.idealPrechargeKPaGauge],
+        ["reading_low_pct", ({ band }) => band?.readingLowPct ?? null],
+        ["reading_nominal_pct", ({ band }) => band?.readingNominalPct ?? null],
+        ["reading_high_pct", ({ band }) => band?.readingHighPct ?? null],
+        ["ideal_reading_nominal_pct", ({ band }) => band?.idealReadingNominalPct ?? null],
       ],
     ),
     table(

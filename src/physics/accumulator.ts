@@ -174,38 +174,48 @@ export function readingBand(
 }
 
 /**
- * The air around the accumulator over one time step. The ambient is held at its end-of-step value
- * over the whole step; a start-of-step value (for an ambient changing linearly across the step) is the
- * field this shape leaves room for.
+ * The air around the accumulator over one time step: its temperature at the step's start and end,
+ * taken as linear in time between them (the hourly series is linear between grid hours; a held value
+ * over a data gap has `startK` = `endK`).
  */
 export interface AmbientStep {
   /** Length of the step, s (≥ 0). */
   dtS: number;
+  /** Ambient temperature at the start of the step, K. */
+  startK: number;
   /** Ambient temperature at the end of the step, K. */
   endK: number;
 }
 
 /**
  * Accumulator temperature after one step of a first-order lag behind the ambient (lumped
- * capacitance), dT/dt = (Ta − T)/τ, solved exactly with Ta held over the step:
- * T ← Ta + (T − Ta)·exp(−Δt/τ); τ = 0 gives Ta.
+ * capacitance), dT/dt = (Ta(t) − T)/τ, solved exactly for an ambient linear in time over the step,
+ * Ta(t) = Ta(0) + r·t with r = (Ta(Δt) − Ta(0))/Δt:
+ * T(Δt) = Ta(Δt) − r·τ + (T(0) − Ta(0) + r·τ)·exp(−Δt/τ).
+ * On a steady ramp the accumulator trails the air by τ (r·τ in temperature) once the transient has
+ * died out; a held ambient (r = 0) gives T ← Ta + (T − Ta)·exp(−Δt/τ); τ = 0 gives Ta(Δt).
  *
  * @param tempK accumulator temperature at the start of the step, K
- * @param step the step's length `dtS` (s) and its ambient `endK` (K)
+ * @param step the step's length `dtS` (s) and its ambient at the start `startK` and end `endK` (K)
  * @param tauS thermal time constant τ, s (≥ 0)
  * @returns accumulator temperature at the end of the step, K
  *
  * References: Incropera, F. P., DeWitt, D. P. et al., "Fundamentals of Heat and Mass Transfer",
- * the lumped capacitance method (transient conduction); docs/methods.md, "Accumulator temperature".
+ * the lumped capacitance method (transient conduction); the solution of a first-order linear ordinary
+ * differential equation with a ramp input (integrating factor); docs/methods.md, "Accumulator
+ * temperature".
  *
  * @example
- * lagTempK(270, { dtS: 7200, endK: 280 }, 7200); // 280 − 10·e⁻¹ ≈ 276.32 K
+ * // τ = 2 h, accumulator and air at 0 °C, the air falling linearly to −10 °C over one hour:
+ * lagTempK(273.15, { dtS: 3600, startK: 273.15, endK: 263.15 }, 7200); // ≈ 271.0194 K (−2.1306 °C)
  */
 export function lagTempK(tempK: number, step: AmbientStep, tauS: number): number {
   requireNonNegative("dtS", step.dtS, "s");
   requireNonNegative("tauS", tauS, "s");
   if (tauS === 0) return step.endK;
-  return step.endK + (tempK - step.endK) * Math.exp(-step.dtS / tauS);
+  if (step.dtS === 0) return tempK;
+  const rTauK = ((step.endK - step.startK) / step.dtS) * tauS;
+  return step.endK - rTauK + (tempK - step.startK + rTauK) * Math.exp(-step.dtS / tauS);
 }
 
 /**
@@ -405,6 +415,88 @@ export function trappedState(
   res.fluidPressureAbsPa =
     stop < 0 ? Math.max(0, Math.min(pf, res.gasPressureAbsPa)) : Math.max(pf, res.gasPressureAbsPa);
   return res;
+}
+
+/** A trapped charge at one instant: its reference state c, its temperature and gas amount, its solved state. */
+export interface TrappedNow {
+  /** The reference state of the trapped fluid (end of the last recharge, or the last relief). */
+  c: ChargedState;
+  /** Accumulator (and trapped fluid) temperature, K. */
+  tempK: number;
+  /** Gas amount per unit, mol. */
+  amountMol: number;
+  /** `trappedState` of the above. */
+  trapped: TrappedState;
+}
+
+/** A thermal relief of a trapped charge: the new reference state and the fluid let out. */
+export interface ReliefResult {
+  /** The relief state, the fluid model's new reference c (fluid kept, at the relief pressure and tempK). */
+  charge: ChargedState;
+  /** Fluid relieved per unit, m³, measured at tempK and the relief pressure. */
+  relievedM3: number;
+}
+
+/**
+ * Thermal relief of a trapped charge (docs/methods.md §3, "Thermal relief"): where the trapped fluid
+ * pressure would exceed the relief valve's pressure, the valve lets fluid out and the pressure holds at
+ * the relief value. The gas takes its volume at the relief pressure and tempK, n/ρ(P_r, T) (or Vmin on
+ * the gas-side stop, where the gas stays below the fluid), the fluid kept fills the rest of the closed
+ * volume V_gas,c + V_f,c, and the fluid relieved is what the trapped-fluid law would have held at
+ * (T, P_r), V_f,c·(1 + α(T − T_c) − (P_r − P_c)/K), less the fluid kept. The relief state becomes the
+ * reference state c of the fluid model, so a later cooling starts from the fluid that is left.
+ *
+ * @param model gas model
+ * @param geometry V0 and Vmin, m³
+ * @param fluid α (1/K), K (Pa) and the trapped line volume (m³)
+ * @param now the trapped charge now: its reference state `c`, `tempK` (K), `amountMol` (mol per unit)
+ *   and its solved state `trapped`
+ * @param reliefAbsPa relief pressure, Pa absolute
+ * @returns the relief state and the fluid relieved, or null when the fluid pressure does not exceed
+ *   the relief pressure
+ *
+ * References: Span, R. et al. (2000), J. Phys. Chem. Ref. Data 29(6) (the gas density); linear
+ * thermal expansion and bulk modulus of the trapped fluid (docs/methods.md §3, "Trapped charge").
+ *
+ * @example
+ * // 1 L unit (1450 psig at 70 °F), 0.2 L line, α 8e-4/K, K 1.5 GPa, charged to 3000 psig at 0 °C,
+ * // warmed to 30 °C with relief at 3300 psig (22.854 MPa absolute): 39.4 mL relieved
+ * const trapped = trappedState(realGas, geometry, fluid, c, 303.15, n);
+ * thermalRelief(realGas, geometry, fluid, { c, tempK: 303.15, amountMol: n, trapped }, 22.854e6);
+ */
+export function thermalRelief(
+  model: GasModel,
+  geometry: AccumulatorGeometry,
+  fluid: FluidProps,
+  { c, tempK, amountMol, trapped }: TrappedNow,
+  reliefAbsPa: number,
+): ReliefResult | null {
+  requirePositive("reliefAbsPa", reliefAbsPa, "Pa");
+  if (!(trapped.fluidPressureAbsPa > reliefAbsPa)) return null;
+  let gasVolumeM3 = amountMol / model.densityMolM3(reliefAbsPa, tempK);
+  let gasPressureAbsPa = reliefAbsPa;
+  if (gasVolumeM3 < geometry.vminM3) {
+    gasVolumeM3 = geometry.vminM3;
+    gasPressureAbsPa = model.pressurePa(amountMol / gasVolumeM3, tempK);
+  } else if (gasVolumeM3 > geometry.v0M3) {
+    gasVolumeM3 = geometry.v0M3;
+    gasPressureAbsPa = model.pressurePa(amountMol / gasVolumeM3, tempK);
+  }
+  const fluidVolumeM3 = c.gasVolumeM3 + c.fluidVolumeM3 - gasVolumeM3;
+  const heldM3 =
+    c.fluidVolumeM3 *
+    (1 + fluid.alphaPerK * (tempK - c.tempK) - (reliefAbsPa - c.fluidPressureAbsPa) / fluid.bulkModulusPa);
+  return {
+    charge: {
+      amountMol,
+      tempK,
+      gasPressureAbsPa,
+      fluidPressureAbsPa: reliefAbsPa,
+      gasVolumeM3,
+      fluidVolumeM3,
+    },
+    relievedM3: Math.max(0, heldM3 - fluidVolumeM3),
+  };
 }
 
 const startProps = new Float64Array(6);

@@ -1,12 +1,13 @@
 /**
  * The results.json contract (`results.ts`) assembled from the bases' results: the plan's settings, the
- * profiles' precharge lines and reading bands at the standard atmosphere, the stays, assumptions,
+ * profiles' precharge lines and reading bands at the standard sea-level atmosphere (101.325 kPa; each
+ * base has its own at its atmosphere), the stays, assumptions,
  * methods, the random inputs drawn from the seed, and the warnings of the run.
  */
-import { ZERO_CELSIUS_K as K0, S_PER_MONTH, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
+import { S_PER_MONTH, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
 import { TOOL_VERSION } from "../version.js";
 import { assumptionsOf } from "./assumptions.js";
-import { bandCurves } from "./bandCurves.js";
+import { profileCurves } from "./bandCurves.js";
 import type { AggregatedBase } from "./baseResult.js";
 import { BOOTSTRAP_RESAMPLES } from "./bootstrap.js";
 import type { StayFigures } from "./confidence.js";
@@ -14,45 +15,13 @@ import { METHODS } from "./methods.js";
 import { EVENT_DRAWS } from "./nitrogenDemand.js";
 import { nitrogenFleet } from "./nitrogenFleet.js";
 import type { Plan } from "./planFile.js";
-import type { AircraftAction, BaseResult, ProfileResult, Results } from "./results.js";
+import type { AircraftAction, BaseResult, Results } from "./results.js";
 import { type BaseSamples, gasLossDraws } from "./samples.js";
 import type { Stay } from "./schedule.js";
 import { QUANTILE_METHOD } from "./stats.js";
 import { eventDraws } from "./supplyPlan.js";
 
 const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
-
-/** Temperatures of the profiles' curves: −50 °C to 60 °C in steps of 2 K. */
-function curveTempsK(): number[] {
-  const out: number[] = [];
-  for (let c = -50; c <= 60; c += 2) out.push(c + K0);
-  return out;
-}
-
-/** Each profile's precharge lines and reading band against temperature, at the standard atmosphere. */
-function profileCurves(plan: Plan): ProfileResult[] {
-  const temps = curveTempsK();
-  return plan.profiles.map((pr) => {
-    const rows = bandCurves(pr, temps, STANDARD_ATMOSPHERE_PA);
-    return {
-      name: pr.name,
-      prechargeLine: rows.map((r) => ({
-        tempC: r.tempC,
-        prechargeKPaGauge: r.prechargeKPaGauge,
-        prechargeLowKPaGauge: r.prechargeLowKPaGauge,
-        prechargeHighKPaGauge: r.prechargeHighKPaGauge,
-        idealPrechargeKPaGauge: r.idealPrechargeKPaGauge,
-      })),
-      band: rows.map((r) => ({
-        tempC: r.tempC,
-        readingLowPct: r.readingLowPct,
-        readingNominalPct: r.readingNominalPct,
-        readingHighPct: r.readingHighPct,
-        idealReadingNominalPct: r.idealReadingNominalPct,
-      })),
-    };
-  });
-}
 
 /** The unscheduled full recharges drawn from the seed, in words: rate, draws, counts drawn against expected. */
 function unscheduledText(plan: Plan, stays: Stay[], bases: BaseResult[]): string {
@@ -138,7 +107,7 @@ export function assembleResults(
       outOfBandPct: plan.thresholds.outOfBandPct,
       minYears: plan.climate.minYears,
     },
-    profiles: profileCurves(plan),
+    profiles: plan.profiles.map((p) => profileCurves(p, STANDARD_ATMOSPHERE_PA)),
     bases,
     nitrogenFleet: nitrogenFleet(bases, eventDraws(plan)),
     stays: stays.map((s, i) => ({

@@ -7,6 +7,7 @@
  */
 
 import { JSON_UNITS, kToC, type QuantityKind, type QuantityValue, toJsonUnit } from "../units/index.js";
+import { MONTH_NAMES } from "./calendar.js";
 import type { Plan, PointPressure } from "./planFile.js";
 import { WEEKDAY_NAMES } from "./planFile.js";
 import type { Assumption } from "./results.js";
@@ -64,11 +65,27 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
     add(at("stations"), `${b.name}: stations (priority order)`, "text", b.stations, key("stations"));
     if (b.hangar) {
       const h = b.hangar;
-      add(at("hangar", "temperature"), `${b.name}: hangar temperature`, "temperature", h.temperature, {
-        ...key("hangar.temperature"),
-      });
+      add(at("hangar", "kind"), `${b.name}: hangar kind`, "text", h.kind, key("hangar.kind"));
+      if (h.kind === "heated") {
+        add(at("hangar", "heatedTo"), `${b.name}: hangar heated to at least`, "temperature", h.heatedTo, {
+          ...key("hangar.heatedTo"),
+        });
+      } else {
+        const lag = `${b.name}: shelter air's time constant behind the outdoor air`;
+        add(at("hangar", "timeConstant"), lag, "duration", h.timeConstant, key("hangar.timeConstant"));
+        const offset = `${b.name}: shelter air's offset from the lagged outdoor air`;
+        add(at("hangar", "offset"), offset, "temperatureDifference", h.offset, key("hangar.offset"));
+      }
       add(at("hangar", "in"), `${b.name}: into the hangar`, "localTime", clock(h.in), key("hangar.in"));
       add(at("hangar", "out"), `${b.name}: out of the hangar`, "localTime", clock(h.out), key("hangar.out"));
+      const months = h.months === null ? "all year" : h.months.map((m) => MONTH_NAMES[m - 1]!);
+      add(
+        at("hangar", "months"),
+        `${b.name}: months the hangar is used`,
+        "text",
+        months,
+        key("hangar.months"),
+      );
     } else {
       add(at("hangar"), `${b.name}: overnight hangar`, "text", "none", key("hangar"));
     }
@@ -90,6 +107,8 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
     pressure(["system", "low"], "system pressure, low", p.system.low);
     pressure(["system", "nominal"], "system pressure, nominal", p.system.nominal);
     pressure(["system", "high"], "system pressure, high", p.system.high);
+    if (p.reliefPressure === undefined) a(["reliefPressure"], "thermal relief pressure", "text", "none");
+    else pressure(["reliefPressure"], "thermal relief pressure", p.reliefPressure);
     a(["fluid", "expansionPerK"], "fluid volumetric expansion", "expansion", p.fluid.expansionPerK);
     a(["fluid", "bulkModulus"], "fluid bulk modulus", "pressureDifference", p.fluid.bulkModulus);
     a(["fluid", "lineVolume"], "trapped line fluid volume", "volume", p.fluid.lineVolume);
@@ -140,6 +159,7 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
     unit: "d",
   });
   add(["operations", "outOfBand"], "Action on an out-of-band preflight", "text", o.outOfBand);
+  add(["operations", "arrival"], "Accumulator state on arrival at a base", "text", o.arrival);
   const n = plan.nitrogen;
   add(["nitrogen", "cylinder", "waterVolume"], "Cylinder water volume", "volume", n.cylinder.waterVolume);
   const fill = n.cylinder.fill;

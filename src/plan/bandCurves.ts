@@ -1,12 +1,14 @@
 /**
  * Precharge line, tolerance lines and reading band against temperature, real gas and ideal
- * (docs/methods.md §3), for `results.profiles` and the `coldsoak band` command.
+ * (docs/methods.md §3), for `results.profiles` (at the standard atmosphere), each base's
+ * `profileCurves` (at the base's atmosphere) and the `coldsoak band` command.
  */
 import { prechargeLinesAbsPa, readingBand } from "../physics/accumulator.js";
 import { idealGas, realGas } from "../physics/nitrogen.js";
-import { kToC, PA_PER_KPA } from "../units/index.js";
+import { ZERO_CELSIUS_K as K0, kToC, PA_PER_KPA } from "../units/index.js";
 import { bandInputsOf } from "./context.js";
 import type { ProfileInput } from "./planFile.js";
+import type { ProfileResult } from "./results.js";
 
 export interface BandCurveRow {
   tempC: number;
@@ -42,4 +44,34 @@ export function bandCurves(profile: ProfileInput, tempsK: number[], atmPa: numbe
       idealReadingNominalPct: bi.nominalPct,
     };
   });
+}
+
+/** Temperatures of the results' curves: −50 °C to 60 °C in steps of 2 K. */
+function curveTempsK(): number[] {
+  const out: number[] = [];
+  for (let c = -50; c <= 60; c += 2) out.push(c + K0);
+  return out;
+}
+
+/** A profile's precharge lines and reading band against temperature, gauge pressures relative to atmPa. */
+export function profileCurves(profile: ProfileInput, atmPa: number): ProfileResult {
+  const rows = bandCurves(profile, curveTempsK(), atmPa);
+  return {
+    name: profile.name,
+    atmosphereKPaAbsolute: atmPa / PA_PER_KPA,
+    prechargeLine: rows.map((r) => ({
+      tempC: r.tempC,
+      prechargeKPaGauge: r.prechargeKPaGauge,
+      prechargeLowKPaGauge: r.prechargeLowKPaGauge,
+      prechargeHighKPaGauge: r.prechargeHighKPaGauge,
+      idealPrechargeKPaGauge: r.idealPrechargeKPaGauge,
+    })),
+    band: rows.map((r) => ({
+      tempC: r.tempC,
+      readingLowPct: r.readingLowPct,
+      readingNominalPct: r.readingNominalPct,
+      readingHighPct: r.readingHighPct,
+      idealReadingNominalPct: r.idealReadingNominalPct,
+    })),
+  };
 }

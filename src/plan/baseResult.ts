@@ -6,15 +6,18 @@
  */
 import { stationCoverage } from "../climate/index.js";
 import type { StationClimate } from "../climate/types.js";
+import { PA_PER_KPA } from "../units/index.js";
+import { profileCurves } from "./bandCurves.js";
 import { baseConfidence, type StayFigures } from "./confidence.js";
 import { baseDecisions, type DecisionThresholds } from "./decisions.js";
 import { baseStatistics } from "./monthStats.js";
 import type { Plan } from "./planFile.js";
-import type { AircraftAction, BaseResult, StationResult } from "./results.js";
+import type { AircraftAction, AtmosphereResult, BaseResult, StationResult } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 import { baseNitrogen } from "./supplyPlan.js";
 import { overnightTraces } from "./traces.js";
+import { trappedChargeMonths } from "./trappedStats.js";
 
 function stationResult(s: StationClimate): StationResult {
   const c = stationCoverage(s);
@@ -76,6 +79,17 @@ export function decisionThresholds(plan: Plan): DecisionThresholds {
   };
 }
 
+/** The atmospheric pressure used at a base, its source and the primary station it comes from. */
+function atmosphereOf(base: BaseSamples): AtmosphereResult {
+  const primary = base.climate.stations[0]?.meta;
+  return {
+    pressureKPaAbsolute: base.climate.atmPa / PA_PER_KPA,
+    source: base.climate.atmSource,
+    station: primary?.id ?? "",
+    elevationM: primary?.elevationM ?? 0,
+  };
+}
+
 /** Aggregates one base; warnings (starts without data, unreachable servicings) go to `warnings`. */
 export function aggregateBase(
   sim: Simulator,
@@ -126,6 +140,11 @@ export function aggregateBase(
     advice: decided.advice,
     traces: overnightTraces(sim, base, outcomes),
     nitrogen: nitrogenOf(sim, base, outcomes, warnings),
+    trappedCharge: trappedChargeMonths(plan, base, outcomes, warnings),
+    atmosphere: atmosphereOf(base),
+    profileCurves: [...new Set(base.groups.map((g) => g.profileIndex))]
+      .sort((a, b) => a - b)
+      .map((i) => profileCurves(plan.profiles[i]!, base.climate.atmPa)),
   };
   return { result, stays: conf.stays, actions: decided.actions };
 }

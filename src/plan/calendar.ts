@@ -6,7 +6,7 @@
  */
 import { DateTime } from "luxon";
 
-/** Month abbreviations for the warnings and the decision texts, January first. */
+/** Month names as plans and messages write them, January first. */
 export const MONTH_NAMES = [
   "Jan",
   "Feb",
@@ -20,7 +20,7 @@ export const MONTH_NAMES = [
   "Oct",
   "Nov",
   "Dec",
-];
+] as const;
 
 export interface CivilDate {
   year: number;

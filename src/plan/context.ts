@@ -48,6 +48,8 @@ export interface ProfileContext {
   highMol: number;
   refTempK: number;
   systemNominalAbsPa: number;
+  /** Thermal relief valve of the trapped charge, Pa absolute; null: none (docs/methods.md §3). */
+  reliefAbsPa: number | null;
   band: BandInputs;
   bandTable: BandTable;
   starter: StarterSpec;
@@ -177,6 +179,7 @@ export function profileContext(
     highMol,
     refTempK: ref.tempK,
     systemNominalAbsPa: absPa(profile.system.nominal, atmPa),
+    reliefAbsPa: profile.reliefPressure === undefined ? null : absPa(profile.reliefPressure, atmPa),
     band,
     bandTable,
     starter,

@@ -33,7 +33,16 @@ export interface DayOptions {
   timeZone: string;
   startMinutes: number[];
   flownWeekdays: ReadonlySet<number>;
-  hangar: { inMin: number; outMin: number } | null;
+  /**
+   * The hangar's local in and out times and the months it is used (null: all year). An overnight
+   * hangar's night belongs to the month of its evening, so both halves of a night go together.
+   */
+  hangar: { inMin: number; outMin: number; months?: ReadonlySet<number> | null } | null;
+}
+
+function previousDay(d: CivilDate): CivilDate {
+  const t = new Date(Date.UTC(d.year, d.month - 1, d.day - 1));
+  return { year: t.getUTCFullYear(), month: t.getUTCMonth() + 1, day: t.getUTCDate() };
 }
 
 /** Cache of local-midnight instants per (zone, date): luxon is the slow part of building days. */
@@ -71,6 +80,14 @@ function instantOn(
   return dayLengthMs === 24 * HOUR_MS ? midnight + minutes * 60_000 : localInstant(d, minutes, zone);
 }
 
+/** The day's hangar in and out instants that fall between its grid hours, ascending (each ends a step). */
+export function hangarBreaks(day: DayPlan): number[] {
+  return day.hangar
+    .flat()
+    .filter((b) => b % HOUR_MS !== 0 && b > day.midnightUtcMs && b < day.nextMidnightUtcMs)
+    .sort((a, b) => a - b);
+}
+
 /** Local hour of day of a UTC instant inside the day. */
 export function localHourOf(day: DayPlan, utcMs: number, zone: string): number {
   if (day.localHours === null) return Math.floor((utcMs - day.midnightUtcMs) / HOUR_MS);
@@ -101,12 +118,15 @@ export function buildDays(
       ? opts.startMinutes.map((m) => instantOn(c, midnight, len, m, opts.timeZone))
       : [];
     const hangar: [number, number][] = [];
-    if (opts.hangar !== null) {
-      const inMs = instantOn(c, midnight, len, opts.hangar.inMin, opts.timeZone);
-      const outMs = instantOn(c, midnight, len, opts.hangar.outMin, opts.timeZone);
-      if (opts.hangar.inMin > opts.hangar.outMin) {
-        hangar.push([midnight, outMs], [inMs, next]);
-      } else if (opts.hangar.inMin < opts.hangar.outMin) {
+    const h = opts.hangar;
+    if (h !== null) {
+      const used = (month: number) => !h.months || h.months.has(month);
+      const inMs = instantOn(c, midnight, len, h.inMin, opts.timeZone);
+      const outMs = instantOn(c, midnight, len, h.outMin, opts.timeZone);
+      if (h.inMin > h.outMin) {
+        if (used(previousDay(c).month)) hangar.push([midnight, outMs]);
+        if (used(c.month)) hangar.push([inMs, next]);
+      } else if (h.inMin < h.outMin && used(c.month)) {
         hangar.push([inMs, outMs]);
       }
     }

@@ -13,13 +13,20 @@ export const METHODS: MethodNote[] = [
     name: "Atmospheric pressure",
     source: "ISO 2533:1975 standard atmosphere (troposphere)",
     description:
-      "Gauge = absolute − local atmospheric pressure: the station's mean reported station pressure where the records carry it, else the standard atmosphere at the station elevation. Profile curves in the results use 101.325 kPa.",
+      "Gauge = absolute − local atmospheric pressure: the primary station's mean reported station pressure where the records carry it, else the standard atmosphere at the station elevation; the value and its source are shown with each base, whose simulation and curves use it. The profile-level curves without a base (profiles in results.json, precharge_line.csv, band.csv) use 101.325 kPa.",
   },
   {
     name: "Accumulator temperature",
-    source: "First-order lag, exact solution for a constant ambient over each step",
+    source:
+      "First-order lag (lumped capacitance), exact solution for an ambient linear in time over each step (docs/methods.md §3)",
     description:
-      "T ← Ta + (T − Ta)·exp(−Δt/τ), with Ta the ambient (or hangar) temperature at the end of each step; τ = 0 gives the ambient.",
+      "T ← Ta(end) − r·τ + (T − Ta(start) + r·τ)·exp(−Δt/τ), with r the slope of the ambient (or hangar) temperature over the step, linear between grid hours; on a steady ramp the accumulator trails the air by τ. A data gap holds the last known value (r = 0); τ = 0 gives the ambient.",
+  },
+  {
+    name: "Hangars",
+    source: "coldsoak hangar model (docs/methods.md §3); first-order lag as for the accumulator",
+    description:
+      "During a base's hangar hours (optionally only some months; a night goes with its evening's month) the air around the aircraft is the hangar's: a heated hangar is max(outdoor air, set point); an unheated shelter follows the outdoor air through its own first-order lag (default 6 h, exact update) plus an optional offset, simulated continuously from the start of the stay's window, also while the aircraft is out.",
   },
   {
     name: "Trapped charge",
@@ -27,6 +34,18 @@ export const METHODS: MethodNote[] = [
       "Linear thermal expansion and bulk modulus of the trapped fluid (textbook fluid mechanics); gas from Span et al. (2000)",
     description:
       "Between recharges the fluid is trapped: V_f = V_f,c·(1 + α(T − T_c) − (P − P_c)/K); gas volume plus fluid volume constant; gas loss lowers the amount continuously.",
+  },
+  {
+    name: "Thermal relief",
+    source: "Trapped-fluid model with a relief valve (docs/methods.md §3); gas from Span et al. (2000)",
+    description:
+      "Where the trapped fluid pressure would exceed the profile's relief pressure, fluid is let out and the pressure holds at the relief value; the fluid relieved is lost until the next recharge and the relief state becomes the fluid's reference, so the next cold morning reads lower. Checked at the end of every step (at least hourly); consecutive steps with the valve open are one opening. Without a relief valve a warning names each base-month where the trapped pressure exceeds 1.1 × the system high.",
+  },
+  {
+    name: "Arrival",
+    source: "coldsoak arrival states (docs/methods.md §5)",
+    description:
+      "The accumulator arrives with its gas on the precharge reference, in the plan's arrival state: charged (default) to nominal system pressure at the ambient of local midnight on the arrival day, then trapped; or precharge-only, the fluid side empty until the hand pump charges it to nominal system pressure at the first start, its strokes counted.",
   },
   {
     name: "Preflight and servicing",

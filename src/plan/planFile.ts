@@ -17,26 +17,12 @@ import {
   parseTemperatureK,
   parseTimeS,
   parseVolumeM3,
-  QuantityError,
   S_PER_DAY,
   S_PER_MONTH,
   STANDARD_ATMOSPHERE_PA,
 } from "../units/index.js";
-
-/** A string field parsed by `parser`; a parse failure becomes a zod issue at that path. */
-function q<T>(parser: (s: string) => T) {
-  return z.string().transform((s, ctx): T => {
-    try {
-      return parser(s);
-    } catch (err) {
-      if (err instanceof QuantityError) {
-        ctx.addIssue({ code: "custom", message: err.message });
-        return z.NEVER;
-      }
-      throw err;
-    }
-  });
-}
+import { hangarSchema } from "./planHangar.js";
+import { q } from "./planQuantity.js";
 
 const positive = <T extends z.ZodType<number>>(s: T, what: string) =>
   s.refine((v) => v > 0, { message: `${what} must be greater than zero` });
@@ -59,8 +45,6 @@ const weekdayName = z.string().transform((s, ctx) => {
   return i + 1; // ISO weekday, Monday = 1
 });
 
-const hangarSchema = z.strictObject({ temperature: q(parseTemperatureK), in: clock, out: clock });
-
 const baseSchema = z.strictObject({
   name: z.string().min(1),
   stations: z
@@ -78,6 +62,7 @@ const profileSchema = z
     }),
     precharge: z.strictObject({ reference: pressureAt, tolerance: q(parsePressureDifference) }),
     system: z.strictObject({ low: pointPressure, nominal: pointPressure, high: pointPressure }),
+    reliefPressure: pointPressure.optional(),
     fluid: z.strictObject({
       expansionPerK: q(parseExpansionPerK),
       bulkModulus: positive(q(parsePressureDifference), "bulkModulus"),
@@ -141,6 +126,13 @@ const profileSchema = z
         message: "expected the precharge plus its tolerance below the lowest system pressure",
       });
     }
+    if (p.reliefPressure !== undefined && !(g(p.reliefPressure) > g(sys.high))) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["reliefPressure"],
+        message: "expected a relief pressure above the system's high limit (system.high)",
+      });
+    }
     if (!(p.gasLoss.rate * S_PER_MONTH < ref)) {
       ctx.addIssue({
         code: "custom",
@@ -199,6 +191,8 @@ const operationsSchema = z.strictObject({
     }),
   prechargeCheckDays: z.number().int().min(1),
   outOfBand: z.enum(["log", "adjust-precharge"]).default("log"),
+  /** The accumulator's state on arrival at a base (docs/methods.md §5, "Arrival"). */
+  arrival: z.enum(["charged", "precharge-only"]).default("charged"),
 });
 
 /** A value for every base, or a mapping of base names to values (a base not named has none). */
@@ -323,6 +317,7 @@ export const planSchema = z
 export type PlanInput = z.output<typeof planSchema>;
 export type ProfileInput = PlanInput["profiles"][number];
 export type BaseInput = PlanInput["bases"][number];
+export type HangarInput = NonNullable<BaseInput["hangar"]>;
 export type { PointPressure };
 
 /** A validated plan, with the file it came from and a way to point back at its lines. */
@@ -395,6 +390,27 @@ function describeIssue(issue: z.core.$ZodIssue): string {
   }
 }
 
+/**
+ * Keys that earlier plan files used and that now mean something else: refused with a located message
+ * naming the keys that replace them (a fixed hangar temperature gave a 15 °C "heated" hangar colder than
+ * July air and a −5 °C shelter colder than the air outside).
+ */
+function refuseFormerKeys(raw: unknown, file: string, lineOf: (path: (string | number)[]) => number): void {
+  const bases = (raw as { bases?: unknown } | null)?.bases;
+  if (!Array.isArray(bases)) return;
+  bases.forEach((b, i) => {
+    const hangar = (b as { hangar?: unknown } | null)?.hangar;
+    if (hangar === null || typeof hangar !== "object" || !("temperature" in hangar)) return;
+    const path = ["bases", i, "hangar", "temperature"];
+    throw inputError(
+      file,
+      lineOf(path),
+      yamlPathText(path),
+      "a fixed hangar temperature is no longer read; write kind: heated with heatedTo (the set point: the inside is the warmer of it and the outdoor air), or kind: shelter (unheated: follows the outdoor air through timeConstant, default 6 h, plus offset)",
+    );
+  });
+}
+
 /** Parses and validates plan text; throws InputError `file:line:yaml.path: message`. */
 export function parsePlanText(text: string, file: string): Plan {
   const lc = new LineCounter();
@@ -413,6 +429,7 @@ export function parsePlanText(text: string, file: string): Plan {
     );
   }
   const raw: unknown = doc.toJS({ maxAliasCount: 100 });
+  refuseFormerKeys(raw, file, (path) => nodeLine(doc, lc, path));
   const parsed = planSchema.safeParse(raw);
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;

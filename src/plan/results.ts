@@ -43,10 +43,11 @@ export interface StationResult {
  * One plan parameter as data (the report's assumptions table and assumptions.csv show it):
  * - `key`: its YAML path with names for list items, e.g. "profiles.main.precharge.reference";
  * - `kind`: the quantity kind ("pressureGauge", "pressureAbsolute", "pressureDifference",
- *   "pressureRate", "temperature", "volume", "energy", "duration", "flow", "expansion", "percent",
+ *   "pressureRate", "temperature", "temperatureDifference", "volume", "energy", "duration", "flow", "expansion", "percent",
  *   "fraction", "number", "count", "year", "localTime", "weekday", "text");
  * - `value` in the fixed units of results.json whatever the plan's units, named by `unit`: kPa gauge,
- *   kPa absolute, kPa (a difference), kPa/month (mean Gregorian month), °C, L, J, s, L/s, 1/K, %;
+ *   kPa absolute, kPa (a difference), kPa/month (mean Gregorian month), °C, K (a temperature
+ *   difference), L, J, s, L/s, 1/K, %;
  *   plain numbers as they are (`unit` "" or what a count counts: "h", "d"); texts, "HH:MM" local
  *   times and lists of them as strings;
  * - `atTempC`: for a pressure stated at a temperature ("1450 psig @ 70 F"), that temperature in °C;
@@ -84,8 +85,26 @@ export interface BandRow {
 
 export interface ProfileResult {
   name: string;
+  /**
+   * The atmospheric pressure the curves' gauge pressures are relative to, kPa absolute: 101.325 (the
+   * standard sea-level atmosphere) for `Results.profiles`, the base's own for `BaseResult.profileCurves`.
+   */
+  atmosphereKPaAbsolute: number;
   prechargeLine: PrechargeRow[];
   band: BandRow[];
+}
+
+/** The atmospheric pressure used at a base (docs/methods.md §1): gauge = absolute − this pressure. */
+export interface AtmosphereResult {
+  pressureKPaAbsolute: number;
+  /**
+   * "station pressure": the mean station pressure reported in the primary station's records (ISD
+   * MA1); "standard atmosphere": ISO 2533 at the primary station's elevation.
+   */
+  source: "station pressure" | "standard atmosphere";
+  /** The primary station ("USAF-WBAN") and its elevation, m. */
+  station: string;
+  elevationM: number;
 }
 
 /**
@@ -164,6 +183,23 @@ export interface MonthRow extends MonthConfidence, MonthDecision {
 
 /** A month's statistics before the confidence and the status are added (`monthStats.ts`). */
 export type MonthStatistics = Omit<MonthRow, keyof MonthConfidence | keyof MonthDecision>;
+/**
+ * The trapped charge of a base by local month (docs/methods.md §3, "Thermal relief"), pooled over the
+ * stays there and the climate years, for the configuration each stay has fitted.
+ */
+export interface TrappedMonthRow {
+  month: number; // 1–12, local
+  /** Highest trapped fluid pressure, kPa gauge; null without a trapped hour in the month. */
+  peakTrappedKPaGauge: number | null;
+  /** Openings of the thermal relief valve (a run of steps letting fluid out counts once). */
+  reliefEvents: number;
+  /** reliefEvents ÷ climate years used: openings in the month in a year, all stays at the base. */
+  reliefEventsPerYear: number;
+  /** Fluid relieved, L (measured at the relief pressure and the temperature of each step). */
+  relievedL: number;
+  /** relievedL ÷ climate years used. */
+  relievedLPerYear: number;
+}
 
 export interface ClimateMonthRow {
   month: number;
@@ -402,6 +438,12 @@ export interface BaseResult {
   advice: AdviceRow[];
   traces: { typical: Trace | null; worst: Trace | null };
   nitrogen: NitrogenBase;
+  /** Peak trapped pressure and thermal relief by local month. */
+  trappedCharge: TrappedMonthRow[];
+  /** The atmospheric pressure used at the base and its source. */
+  atmosphere: AtmosphereResult;
+  /** Precharge lines and reading bands of the profiles flown at the base, at the base's atmosphere. */
+  profileCurves: ProfileResult[];
 }
 
 /** One local month of a stay: its own figures, pooled over the stay's usable years, with 90 % intervals. */

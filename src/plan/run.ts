@@ -14,6 +14,7 @@ import { inputError } from "../errors.js";
 import { standardAtmospherePa } from "../physics/atmosphere.js";
 import type { BaseClimate } from "./engine.js";
 import type { Plan } from "./planFile.js";
+import type { AtmosphereSource } from "./samples.js";
 
 export interface ClimateLoadOptions {
   /** Cache folder; null disables; undefined: the plan's `climate.cacheDir` or the climate default. */
@@ -22,11 +23,15 @@ export interface ClimateLoadOptions {
   onWarning?: (message: string) => void;
 }
 
-/** Local atmospheric pressure of a station: its mean reported station pressure, else ISO 2533 at its elevation. */
-export function stationAtmospherePa(s: StationClimate): number {
+/**
+ * Local atmospheric pressure of a station (Pa absolute) and where it comes from: its mean reported
+ * station pressure, else the ISO 2533 standard atmosphere at its elevation (docs/methods.md §1).
+ */
+export function stationAtmosphere(s: StationClimate): { atmPa: number; atmSource: AtmosphereSource } {
   if (s.meanStationPressureHpa !== null && s.meanStationPressureHpa > 300)
-    return s.meanStationPressureHpa * 100;
-  return standardAtmospherePa(Number.isFinite(s.meta.elevationM) ? s.meta.elevationM : 0);
+    return { atmPa: s.meanStationPressureHpa * 100, atmSource: "station pressure" };
+  const elevationM = Number.isFinite(s.meta.elevationM) ? s.meta.elevationM : 0;
+  return { atmPa: standardAtmospherePa(elevationM), atmSource: "standard atmosphere" };
 }
 
 /** Loads the climate of every base of the plan. Errors name the plan file line of the missing item. */
@@ -88,7 +93,7 @@ export async function loadPlanClimate(
       stations: list,
       series: mergeByPriority(list),
       timeZone: primary.meta.timeZone,
-      atmPa: stationAtmospherePa(primary),
+      ...stationAtmosphere(primary),
     });
   });
   return out;

@@ -22,8 +22,16 @@ export interface BaseClimate {
   stations: StationClimate[];
   series: HourlySeries;
   timeZone: string;
+  /** Local atmospheric pressure, Pa absolute (docs/methods.md §1). */
   atmPa: number;
+  /**
+   * Where `atmPa` comes from: the mean station pressure the primary station's records report (ISD
+   * `MA1`), or the ISO 2533 standard atmosphere at its elevation.
+   */
+  atmSource: AtmosphereSource;
 }
+
+export type AtmosphereSource = "station pressure" | "standard atmosphere";
 
 /** Stays of one base simulated once and counted once per stay. */
 export interface StayGroup {
@@ -357,7 +365,13 @@ export function prepareSamples(
       timeZone: clim.timeZone,
       startMinutes: plan.operations.startTimes,
       flownWeekdays: flown,
-      hangar: base.hangar ? { inMin: base.hangar.in, outMin: base.hangar.out } : null,
+      hangar: base.hangar
+        ? {
+            inMin: base.hangar.in,
+            outMin: base.hangar.out,
+            months: base.hangar.months === null ? null : new Set(base.hangar.months),
+          }
+        : null,
     };
     const years = usableYears(plan, clim, groups, refYear, dayOptions);
     warnings.push(...yearWarnings(plan, base.name, here, groups, years));

@@ -2,14 +2,21 @@
  * The hour-by-hour simulation of one stay on one climate year (docs/methods.md §5).
  *
  * State: accumulator temperature (first-order lag behind ambient, `lagTempK` of the physics module:
- * exact update over each step with the ambient at the step's end, so τ = 0 gives the ambient itself;
- * the outdoor ambient between grid hours is the climate module's `tempAtUtcMs`), gas amount per unit
+ * exact update over each step for an ambient linear between its values at the step's two ends, so
+ * τ = 0 gives the ambient itself; the ambient is the air around the aircraft of `air.ts`: the outdoor
+ * air, linear between grid hours, or in a hangar's hours a heated hangar's or an unheated shelter's
+ * air, docs/methods.md, "Hangars"), gas amount per unit
  * (falls continuously by the aircraft's gas-loss rate, the profile context's `gasLossMolS`), and the
  * charged state at the end of the last recharge (the fluid is trapped until the next start;
- * docs/methods.md, "Trapped charge").
+ * docs/methods.md, "Trapped charge"). The trapped charge is solved at the end of every step; where it
+ * would exceed the profile's relief pressure the valve lets fluid out (`thermalRelief`) and the relief
+ * state becomes the reference (docs/methods.md, "Thermal relief").
  *
- * The aircraft arrives serviced: gas amount on the precharge reference, charged to nominal system
- * pressure at the arrival-day midnight temperature. Then, on each flown day, at each start time:
+ * The aircraft arrives serviced, gas amount on the precharge reference, in the plan's arrival state:
+ * charged to nominal system pressure at the arrival-day midnight temperature and trapped (default), or
+ * precharge only (fluid side empty: no trapped charge and no hourly reading until the hand pump charges
+ * it to nominal system pressure at the first start, strokes counted). Then, on each flown day, at each
+ * start time:
  * 1. first start of the day: preflight — the reading (physics at the lagged accumulator temperature)
  *    against the band for the AMBIENT temperature the technician reads; the precharge check when due
  *    (every `prechargeCheckDays` days since the last one); the out-of-band policy;
@@ -38,12 +45,19 @@
  */
 
 import type { HourlySeries } from "../climate/types.js";
+import type { HangarAir } from "./air.js";
 import type { ProfileContext } from "./context.js";
 import type { DayPlan } from "./days.js";
 import type { TracePoint } from "./results.js";
 import { emptyOutcome, StayRun } from "./stayRun.js";
 
 export type OutOfBandPolicy = "log" | "adjust-precharge";
+/**
+ * The accumulator on arrival: `charged` to nominal system pressure at the local-midnight ambient of the
+ * arrival day, then trapped; `precharge-only`: the fluid side empty until the hand pump charges it to
+ * nominal system pressure at the first start (docs/methods.md §5, "Arrival").
+ */
+export type ArrivalState = "charged" | "precharge-only";
 
 export interface SimInputs {
   ctx: ProfileContext;
@@ -52,9 +66,12 @@ export interface SimInputs {
   days: DayPlan[];
   /** Multiplier of the nominal gas-loss rate for this aircraft (seeded). */
   gasLossFactor: number;
-  hangarTempK: number | null;
+  /** The air inside the base's hangar during its hours (`days[].hangar`), or null without one. */
+  hangar: HangarAir | null;
   prechargeCheckDays: number;
   policy: OutOfBandPolicy;
+  /** The accumulator's state on arrival (default: charged). */
+  arrival?: ArrivalState;
   /** Record an hourly trace of this many hours from this instant (UTC ms). */
   trace?: { fromUtcMs: number; hours: number };
 }
@@ -104,6 +121,16 @@ export interface NitrogenEvent {
   units: number;
 }
 
+/** One opening of the thermal relief valve: the steps in a row at which it let fluid out. */
+export interface ReliefRecord {
+  /** Local month of the day the valve first opened. */
+  month: number;
+  /** Instant it first opened, UTC ms (climate time). */
+  utcMs: number;
+  /** Fluid relieved over the event, m³ (all units), each step's measured at its temperature and the relief pressure. */
+  relievedM3: number;
+}
+
 /** One hour of a trace as simulated (UTC instant); the engine adds the local time for the results. */
 export type TraceSample = Omit<TracePoint, "hour" | "localTime"> & { utcMs: number };
 
@@ -121,6 +148,10 @@ export interface SimOutcome {
   checks: number;
   handPumpStrokes: number;
   startsWithoutAmbient: number;
+  /** Thermal relief events of the configuration fitted (docs/methods.md §3, "Thermal relief"). */
+  reliefs: ReliefRecord[];
+  /** Highest trapped fluid pressure by local month (index 1–12), Pa absolute; NaN: no trapped step. */
+  peakTrappedAbsPa: Float64Array;
   /** Accumulator-hours simulated (hours × units). */
   accumulatorHours: number;
   trace: TraceSample[];

@@ -6,8 +6,9 @@
 import { tabulatedGas } from "../physics/gasTable.js";
 import type { GasModel } from "../physics/nitrogen.js";
 import { realGas } from "../physics/nitrogen.js";
+import type { HangarAir } from "./air.js";
 import { ProfileContexts } from "./context.js";
-import type { Plan } from "./planFile.js";
+import type { HangarInput, Plan } from "./planFile.js";
 import type { BaseSamples } from "./samples.js";
 import { type SimInputs, type SimOutcome, simulateStayYear } from "./simulate.js";
 import { emptyOutcome } from "./stayRun.js";
@@ -52,6 +53,13 @@ export function simulator(plan: Plan, samples: BaseSamples[], opts: RunOptions):
   };
 }
 
+/** The air inside a plan's hangar, in SI, for the simulation. */
+export function hangarAir(h: HangarInput): HangarAir {
+  return h.kind === "heated"
+    ? { kind: "heated", heatedToK: h.heatedTo }
+    : { kind: "shelter", timeConstantS: h.timeConstant, offsetK: h.offset };
+}
+
 /** Inputs of the simulation of group `gi` of a base on its usable year `yi`. */
 export function sampleInputs(sim: Simulator, base: BaseSamples, gi: number, yi: number): SimInputs {
   const { plan } = sim;
@@ -63,9 +71,10 @@ export function sampleInputs(sim: Simulator, base: BaseSamples, gi: number, yi: 
     timeZone: base.climate.timeZone,
     days: base.days[yi]![gi]!,
     gasLossFactor: g.gasLossFactor,
-    hangarTempK: hangar ? hangar.temperature : null,
+    hangar: hangar ? hangarAir(hangar) : null,
     prechargeCheckDays: plan.operations.prechargeCheckDays,
     policy: plan.operations.outOfBand,
+    arrival: plan.operations.arrival,
   };
 }
 

@@ -1,10 +1,9 @@
 /**
  * One stay on one climate year as a small state object: accumulator temperature, gas amount, the
- * trapped charge of both configurations, and the steps that advance them (advance, grid hour, start,
- * preflight, service, discharge, recharge). What happens when is described in `simulate.ts`.
+ * trapped charge of both configurations, and the steps that advance them (advance with the air around
+ * the aircraft, settle the trapped charge and its thermal relief, grid hour, start, preflight, service,
+ * discharge, recharge). What happens when is described in `simulate.ts`.
  */
-import { tempAtUtcMs } from "../climate/hourly.js";
-import type { HourlySeries } from "../climate/types.js";
 import {
   type AmbientStep,
   type ChargedState,
@@ -21,25 +20,11 @@ import {
   trappedState,
 } from "../physics/accumulator.js";
 import { ZERO_CELSIUS_K as K0 } from "../units/index.js";
+import { AirAround, inHangarAt } from "./air.js";
 import { bandAt, type ProfileContext, prechargeLineAbsPa } from "./context.js";
-import { type DayPlan, HOUR_MS, localHourOf } from "./days.js";
+import { type DayPlan, HOUR_MS, hangarBreaks, localHourOf } from "./days.js";
+import { ReliefValve } from "./reliefValve.js";
 import type { SimInputs, SimOutcome } from "./simulate.js";
-
-function inHangarAt(day: DayPlan, utcMs: number): boolean {
-  for (const [a, b] of day.hangar) if (utcMs >= a && utcMs < b) return true;
-  return false;
-}
-
-/** Outdoor temperature (K) at an instant, linear between grid hours (the climate module's rule); NaN where missing. */
-function outdoorK(series: HourlySeries, utcMs: number): number {
-  return tempAtUtcMs(series, utcMs) + K0;
-}
-
-/** Ambient temperature (K) at an instant: the outdoor temperature, or the hangar's while inside. */
-function ambientK(inp: SimInputs, day: DayPlan, utcMs: number): number {
-  if (inp.hangarTempK !== null && inHangarAt(day, utcMs)) return inp.hangarTempK;
-  return outdoorK(inp.series, utcMs);
-}
 
 /** The last recharge of a day: what the next morning's overnight drop is measured from. */
 interface RechargeMark {
@@ -50,6 +35,7 @@ interface RechargeMark {
   utcMs: number;
 }
 
+/** An outcome with nothing recorded yet. */
 export function emptyOutcome(): SimOutcome {
   return {
     preflights: [],
@@ -63,6 +49,8 @@ export function emptyOutcome(): SimOutcome {
     checks: 0,
     handPumpStrokes: 0,
     startsWithoutAmbient: 0,
+    reliefs: [],
+    peakTrappedAbsPa: new Float64Array(13).fill(Number.NaN),
     accumulatorHours: 0,
     trace: [],
   };
@@ -75,14 +63,16 @@ export class StayRun {
   /** Gas loss of this aircraft, mol/s per unit. */
   private readonly lossMolS: number;
   /** The step the lag advances over (one object reused in the hot loop). */
-  private readonly step: AmbientStep = { dtS: 0, endK: 0 };
+  private readonly step: AmbientStep = { dtS: 0, startK: 0, endK: 0 };
   private readonly dischargeOut = new Float64Array(2);
   private readonly traceFrom: number;
   private readonly traceTo: number;
   /** Instant the state stands at, UTC ms. */
   private cur: number;
-  /** Last known ambient, K (held through missing hours). */
-  private lastAmbK: number;
+  /** The outdoor and hangar air around the aircraft. */
+  private readonly air: AirAround;
+  /** The air a technician would read now, the last known value held through missing hours, K. */
+  private heldAmbK: number;
   /** Accumulator (lagged) temperature, K. */
   private accK: number;
   /** Gas amount per unit, mol. */
@@ -91,6 +81,12 @@ export class StayRun {
   /** The other configuration's charge (see the header); equal to `charged` while altSame. */
   private chargedAlt: ChargedState;
   private altSame = true;
+  /** Arrived with the fluid side empty and not yet charged by the hand pump (no trapped charge). */
+  private uncharged: boolean;
+  /** The trapped state of `charged` at `cur`, settled after each step (relieved where the valve opens). */
+  private st: TrappedState = { gasPressureAbsPa: 0, gasVolumeM3: 0, fluidPressureAbsPa: 0 };
+  /** The thermal relief valve and its records. */
+  private readonly valve: ReliefValve;
   private lastCheckDay = 0;
   private lastRecharge: RechargeMark | null = null;
   private prevDay: DayPlan | null = null;
@@ -102,20 +98,19 @@ export class StayRun {
     const ctx = inp.ctx;
     const days = inp.days;
     this.ctx = ctx;
+    this.valve = new ReliefValve(ctx, this.out);
     this.lossMolS = ctx.gasLossMolS * inp.gasLossFactor;
     this.traceFrom = inp.trace?.fromUtcMs ?? Number.POSITIVE_INFINITY;
     this.traceTo = inp.trace ? this.traceFrom + inp.trace.hours * HOUR_MS : Number.NEGATIVE_INFINITY;
     // Initial state: serviced on arrival, charged at nominal system pressure at the first known ambient.
     this.cur = days[0]!.midnightUtcMs;
-    let ambK = ambientK(inp, days[0]!, this.cur);
-    for (let k = 1; !Number.isFinite(ambK) && k < 24 * days.length; k++) {
-      ambK = ambientK(inp, days[Math.min(days.length - 1, Math.floor(k / 24))]!, this.cur + k * HOUR_MS);
-    }
-    this.lastAmbK = Number.isFinite(ambK) ? ambK : ctx.refTempK;
-    this.accK = this.lastAmbK;
+    this.air = new AirAround(inp.series, inp.hangar, this.cur, 24 * days.length, ctx.refTempK);
+    this.heldAmbK = this.air.nowK(inp.hangar !== null && inHangarAt(days[0]!, this.cur));
+    this.accK = this.heldAmbK;
     this.amountMol = ctx.nominalMol;
     this.charged = this.chargedAt(ctx.systemNominalAbsPa);
     this.chargedAlt = this.charged;
+    this.uncharged = inp.arrival === "precharge-only";
   }
 
   /** The charged state of the current gas amount and temperature at a gas pressure. */
@@ -135,14 +130,13 @@ export class StayRun {
     const day = this.inp.days[di]!;
     this.prevDay = di > 0 ? this.inp.days[di - 1]! : null;
     // A 29 February fold or a skipped leap day breaks the calendar: the state carries over as it is.
-    if (this.prevDay !== null && this.prevDay.nextMidnightUtcMs !== day.midnightUtcMs)
+    if (this.prevDay !== null && this.prevDay.nextMidnightUtcMs !== day.midnightUtcMs) {
       this.cur = day.midnightUtcMs;
+      this.air.jumpTo(this.cur);
+    }
     let si = 0;
     let g = Math.ceil(day.midnightUtcMs / HOUR_MS) * HOUR_MS;
-    const breaks = day.hangar
-      .flat()
-      .filter((b) => b % HOUR_MS !== 0 && b > day.midnightUtcMs && b < day.nextMidnightUtcMs)
-      .sort((a, b) => a - b);
+    const breaks = hangarBreaks(day);
     let hb = 0;
     for (;;) {
       const nextStart = si < day.startsUtcMs.length ? day.startsUtcMs[si]! : Number.POSITIVE_INFINITY;
@@ -166,28 +160,61 @@ export class StayRun {
   }
 
   /**
-   * Advances lag and gas loss from `cur` to `t` with the ambient at `t` (the hangar's when the step's
-   * midpoint is in the hangar; steps never straddle a hangar boundary). Returns the ambient a
-   * technician reads at `t` (NaN if missing).
+   * Advances the air, the lag and the gas loss from `cur` to `t`, the air linear between its values at
+   * both ends of the step in the step's environment (the hangar's when the step's midpoint is in the
+   * hangar; steps never straddle a hangar boundary; `AirAround` holds the last known value through a
+   * gap). Returns the air a technician reads at `t` (NaN if missing).
    */
   private advance(day: DayPlan, t: number): number {
-    const { inp, prevDay } = this;
-    const amb = ambientK(inp, day, t);
+    const { inp, prevDay, air } = this;
+    const hangar = inp.hangar !== null;
     const mid = (this.cur + t) / 2;
-    const inHangar =
-      inp.hangarTempK !== null && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
-    const stepAmb = inHangar ? inp.hangarTempK! : outdoorK(inp.series, t);
-    if (Number.isFinite(stepAmb)) this.lastAmbK = stepAmb;
+    const stepInHangar = hangar && (inHangarAt(day, mid) || (prevDay !== null && inHangarAt(prevDay, mid)));
+    air.advance(t);
+    const nowInHangar = hangar && inHangarAt(day, t);
+    const amb = air.readK(nowInHangar);
+    this.heldAmbK = air.nowK(nowInHangar);
     const dtS = (t - this.cur) / 1000;
     const tauS = this.ctx.tauS;
     if (dtS > 0 || tauS === 0) {
       this.step.dtS = Math.max(dtS, 0);
-      this.step.endK = this.lastAmbK;
+      this.step.startK = air.stepStartK(stepInHangar);
+      this.step.endK = air.nowK(stepInHangar);
       this.accK = lagTempK(this.accK, this.step, tauS);
     }
     if (dtS > 0) this.amountMol = Math.max(this.amountMol - this.lossMolS * dtS, 1e-9);
     this.cur = t;
+    this.settle(day);
     return amb;
+  }
+
+  /**
+   * The trapped charge at the end of a step: solved once; where the fluid pressure exceeds the relief
+   * valve's, the valve lets fluid out and the relief state becomes the fluid's reference (both
+   * configurations; openings, fluid and the month's peak pressure recorded for the one fitted).
+   */
+  private settle(day: DayPlan): void {
+    if (this.uncharged) return;
+    const { model, geometry, fluid } = this.ctx;
+    const st = trappedState(model, geometry, fluid, this.charged, this.accK, this.amountMol, this.st);
+    const opened = this.valve.relieve(this.charged, st, this.accK, this.amountMol);
+    if (opened !== null) {
+      this.charged = opened.charge;
+      if (this.altSame) this.chargedAlt = opened.charge;
+      st.gasPressureAbsPa = opened.charge.gasPressureAbsPa;
+      st.gasVolumeM3 = opened.charge.gasVolumeM3;
+      st.fluidPressureAbsPa = opened.charge.fluidPressureAbsPa;
+    }
+    this.valve.note(day.month, this.cur, opened, st.fluidPressureAbsPa);
+    if (!this.altSame && this.ctx.reliefAbsPa !== null) {
+      const alt = this.valve.relieve(
+        this.chargedAlt,
+        this.trapped(this.chargedAlt),
+        this.accK,
+        this.amountMol,
+      );
+      if (alt !== null) this.chargedAlt = alt.charge;
+    }
   }
 
   /** Grid hour: what-if reading of the trapped charge against the band at ambient; the trace. */
@@ -195,11 +222,11 @@ export class StayRun {
     const { ctx, out } = this;
     const amb = this.advance(day, g);
     out.accumulatorHours += ctx.count;
-    const inTrace = g >= this.traceFrom && g <= this.traceTo;
-    if (!(Number.isFinite(amb) || inTrace)) return;
-    const st = this.trapped(this.charged);
+    const inTrace = g > this.traceFrom && g <= this.traceTo;
+    if (this.uncharged || !(Number.isFinite(amb) || inTrace)) return;
+    const { st } = this;
     const reading = readingPct(ctx.geometry, st.gasVolumeM3);
-    const ambForBand = Number.isFinite(amb) ? amb : this.lastAmbK;
+    const ambForBand = Number.isFinite(amb) ? amb : this.heldAmbK;
     const low = bandAt(ctx.bandTable, ambForBand, "low");
     const high = bandAt(ctx.bandTable, ambForBand, "high");
     if (Number.isFinite(amb)) {
@@ -207,28 +234,44 @@ export class StayRun {
       out.hourlyReadings[idx]!++;
       if (reading < low || reading > high) out.hourlyOutOfBand[idx]!++;
     }
-    if (inTrace) {
-      out.trace.push({
-        utcMs: g,
-        ambientC: ambForBand - K0,
-        accumulatorC: this.accK - K0,
-        gasKPaGauge: (st.gasPressureAbsPa - ctx.atmPa) / 1000,
-        readingPct: reading,
-        bandLowPct: low,
-        bandHighPct: high,
-      });
-    }
+    if (inTrace) this.tracePoint(g, ambForBand, st.gasPressureAbsPa, reading);
+  }
+
+  /** One point of the hourly trace: the air, the accumulator and its charge against the band at the air. */
+  private tracePoint(utcMs: number, ambK: number, gasPressureAbsPa: number, reading: number): void {
+    const { ctx } = this;
+    this.out.trace.push({
+      utcMs,
+      ambientC: ambK - K0,
+      accumulatorC: this.accK - K0,
+      gasKPaGauge: (gasPressureAbsPa - ctx.atmPa) / 1000,
+      readingPct: reading,
+      bandLowPct: bandAt(ctx.bandTable, ambK, "low"),
+      bandHighPct: bandAt(ctx.bandTable, ambK, "high"),
+    });
   }
 
   /** Start `si` of day `di` at `t`: the preflight first in the day, then discharge and recharge. */
   private start(day: DayPlan, di: number, si: number, t: number): void {
     const amb = this.advance(day, t);
-    const ambK = Number.isFinite(amb) ? amb : this.lastAmbK;
+    const ambK = Number.isFinite(amb) ? amb : this.heldAmbK;
     const counted = Number.isFinite(amb);
     if (!counted) this.out.startsWithoutAmbient++;
-    const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.trapped(this.charged);
+    if (this.uncharged) {
+      // Arrived with the fluid side empty: the hand pump charges it before the first start.
+      this.uncharged = false;
+      this.handPumpToSystem();
+      const { model, geometry, fluid } = this.ctx;
+      trappedState(model, geometry, fluid, this.charged, this.accK, this.amountMol, this.st);
+    }
+    const st = si === 0 ? this.preflight(day, di, t, ambK, counted) : this.st;
     const { endM3, endAltM3 } = this.discharge(day, ambK, counted, st);
     this.recharge(di, t, endM3, endAltM3);
+    // The overnight trace starts with the state just after the recharge it is measured from.
+    if (t === this.traceFrom) {
+      const c = this.charged;
+      this.tracePoint(t, ambK, c.gasPressureAbsPa, readingPct(this.ctx.geometry, c.gasVolumeM3));
+    }
   }
 
   /**
@@ -237,8 +280,7 @@ export class StayRun {
    * trapped state the start discharges from.
    */
   private preflight(day: DayPlan, di: number, t: number, ambK: number, counted: boolean): TrappedState {
-    const { ctx, inp, out } = this;
-    const st = this.trapped(this.charged);
+    const { ctx, inp, out, st } = this;
     const reading = readingPct(ctx.geometry, st.gasVolumeM3);
     const below = reading < bandAt(ctx.bandTable, ambK, "low");
     const above = reading > bandAt(ctx.bandTable, ambK, "high");
@@ -322,6 +364,7 @@ export class StayRun {
     this.charged = this.chargedAt(ctx.systemNominalAbsPa);
     this.chargedAlt = this.charged;
     this.altSame = true;
+    this.valve.recharged();
   }
 
   /** Per-unit discharge from a gas volume at the start: sets dischargeJ and dischargeEndM3. */
@@ -381,6 +424,7 @@ export class StayRun {
     const p = ctx.systemNominalAbsPa;
     const r = recharge(model, geometry, ctx.count, this.amountMol, this.accK, endM3, p, ctx.pump);
     this.charged = this.chargedAt(r.gasPressureAbsPa);
+    this.valve.recharged();
     if (this.altSame && r.reachedSystem && (r.timeS * ctx.altCount) / ctx.count <= ctx.altPump.timerS) {
       this.chargedAlt = this.charged;
     } else {

@@ -1,8 +1,8 @@
 /**
  * The overnight traces of one base: of all overnight drops in reading (last recharge of an evening to
  * the next morning's preflight, each group of stays once, every usable year), the median and the
- * largest are simulated again with an hourly trace from the evening's recharge, with local times in
- * the base's zone.
+ * largest are simulated again with an hourly trace that starts with the state just after the evening's
+ * last recharge, then every grid hour, with local times in the base's zone.
  */
 import { DateTime } from "luxon";
 import { HOUR_MS } from "./days.js";
@@ -12,7 +12,7 @@ import type { DropRecord } from "./simulate.js";
 import { simulateStayYear } from "./simulate.js";
 import { type BaseOutcomes, type Simulator, sampleInputs } from "./simulateSamples.js";
 
-/** Hours of a trace from the hour after the evening's last recharge. */
+/** Hours of a trace after the evening's last recharge (its first point is the state just after it). */
 export const TRACE_HOURS = 36;
 
 /** One overnight drop with the sample it comes from. */
@@ -41,7 +41,8 @@ function sortedDrops(base: BaseSamples, outcomes: BaseOutcomes): DropRef[] {
 
 function trace(sim: Simulator, base: BaseSamples, ref: DropRef | undefined, label: string): Trace | null {
   if (ref === undefined) return null;
-  const from = Math.ceil(ref.drop.rechargeUtcMs / HOUR_MS) * HOUR_MS;
+  // From the day's last start and its recharge: the first point is the state just after it.
+  const from = ref.drop.rechargeUtcMs;
   const o = simulateStayYear({
     ...sampleInputs(sim, base, ref.groupIndex, ref.yearIndex),
     trace: { fromUtcMs: from, hours: TRACE_HOURS },

@@ -4,7 +4,7 @@
  * for months, years, intervals and local times. Reads only the `Results` types.
  */
 import type { BaseResult, MonthRow, Results, StatusName } from "../plan/results.js";
-import { pct, showWithUnit, type UnitSystem, unitSystem } from "../units/index.js";
+import { pct, shownText, showWithUnit, type UnitSystem, unitSystem } from "../units/index.js";
 import type { Chart } from "./charts.js";
 
 export const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
@@ -108,17 +108,35 @@ export function baseAnchor(index: number): string {
 }
 
 /**
- * "hangar air at 59 °F from 19:00 to 06:30" from the plan's hangar assumptions of a base (keys
- * `bases.<name>.hangar.{in,out,temperature}`, values already in the plan's units), or null without one.
+ * Which air surrounds the aircraft in a base's hangar hours, from the plan's hangar assumptions of the
+ * base (keys `bases.<name>.hangar.{kind,heatedTo,timeConstant,offset,in,out,months}`), in the plan's
+ * units: "heated hangar air, the outside air or 59.0 °F where colder, from 19:00 to 06:30", "unheated
+ * shelter air, the outside air 6 h behind and +3.6 °F, from 20:00 to 06:00 in Nov, Dec"; null without one.
  */
 export function hangarText(results: Results, baseName: string): string | null {
   const get = (k: string) => results.assumptions.find((a) => a.key === `bases.${baseName}.hangar.${k}`);
+  const kind = get("kind")?.value;
   const from = get("in");
   const to = get("out");
-  const temp = get("temperature");
-  if (!from || !to || typeof temp?.value !== "number") return null;
-  const t = showWithUnit(unitSystem(results.units).temp, temp.value);
-  return `hangar air at ${t} from ${from.value} to ${to.value}`;
+  if (!from || !to || (kind !== "heated" && kind !== "shelter")) return null;
+  const u = unitSystem(results.units);
+  let air: string;
+  if (kind === "heated") {
+    const setPoint = get("heatedTo")?.value;
+    const t = typeof setPoint === "number" ? showWithUnit(u.temp, setPoint) : "its set point";
+    air = `heated hangar air, the outside air or ${t} where colder,`;
+  } else {
+    const lag = get("timeConstant");
+    const offset = get("offset")?.value;
+    const off =
+      typeof offset === "number" && offset !== 0
+        ? ` and ${offset > 0 ? "+" : ""}${showWithUnit(u.tempDelta, offset)}`
+        : "";
+    air = `unheated shelter air, the outside air ${lag ? shownText(lag, u) : "some hours"} behind${off},`;
+  }
+  const months = get("months")?.value;
+  const when = Array.isArray(months) ? ` in ${months.join(", ")}` : "";
+  return `${air} from ${from.value} to ${to.value}${when}`;
 }
 
 /** "2015–2017, 2019 (4 years)": runs of consecutive years joined, then the count; "none" when empty. */

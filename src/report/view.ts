@@ -7,8 +7,8 @@
  * actions from `sections/actions.ts`) and fixes the order of each base's sections (`BASE_SECTIONS`). Each section is one builder in `sections/<name>.ts` and one partial in
  * `templates/partials/<name>.hbs`; `shared.ts` holds what the sections share.
  */
-import type { Results, StationResult } from "../plan/results.js";
-import { pct, shownText, type UnitSystem, unitSystem } from "../units/index.js";
+import type { BaseResult, Results, StationResult } from "../plan/results.js";
+import { formatDisplay, pct, shownText, showWithUnit, type UnitSystem, unitSystem } from "../units/index.js";
 import { type ActionRowView, actionsSection } from "./sections/actions.js";
 import { climateSection } from "./sections/climate.js";
 import { type CoverageView, coverageSection } from "./sections/coverage.js";
@@ -45,6 +45,8 @@ export interface BaseView {
   stationList: string;
   yearsUsed: string;
   yearsSkipped: string;
+  /** The atmospheric pressure used at the base and where it comes from. */
+  atmosphere: string;
   sections: SectionView[];
 }
 
@@ -87,6 +89,18 @@ export interface ViewOptions {
   generatedAt: string;
 }
 
+/** "14.64 psia (100.9 kPa), the mean station pressure reported by 999701-99999" and the like. */
+function atmosphereText(base: BaseResult, u: UnitSystem): string {
+  const a = base.atmosphere;
+  const kPa = `${formatDisplay(a.pressureKPaAbsolute, 1)} kPa absolute`;
+  const value = u.id === "us" ? `${showWithUnit(u.pressureAbs, a.pressureKPaAbsolute)} (${kPa})` : kPa;
+  const source =
+    a.source === "station pressure"
+      ? `the mean station pressure reported by ${a.station}`
+      : `the ISO 2533 standard atmosphere at ${showWithUnit(u.length, a.elevationM)}, the elevation of ${a.station}`;
+  return `${value}, ${source}; gauge pressures are relative to it`;
+}
+
 function stationLabel(s: StationResult): string {
   return s.name ? `${s.id} (${s.name})` : s.id;
 }
@@ -103,6 +117,7 @@ async function buildBase(ctx: BaseContext): Promise<BaseView> {
     stationList: base.stations.map(stationLabel).join("; ") || "none",
     yearsUsed: yearsText(base.yearsUsed),
     yearsSkipped: yearsSkippedText(results, base),
+    atmosphere: atmosphereText(base, ctx.u),
     sections,
   };
 }

@@ -147,6 +147,7 @@ const DISPLAY_OF_KIND: Partial<Record<QuantityKind, keyof DisplayQuantities>> = 
   pressureDifference: "pressureDelta",
   pressureRate: "pressureRate",
   temperature: "temp",
+  temperatureDifference: "tempDelta",
   volume: "volume",
   mass: "mass",
   energy: "energy",

@@ -12,6 +12,7 @@ export type QuantityKind =
   | "pressureDifference"
   | "pressureRate"
   | "temperature"
+  | "temperatureDifference"
   | "volume"
   | "mass"
   | "energy"
@@ -52,6 +53,7 @@ export const JSON_UNITS: Record<QuantityKind, { unit: string; fromSi?: (si: numb
   pressureDifference: { unit: "kPa", fromSi: (pa) => pa / PA_PER_KPA },
   pressureRate: { unit: "kPa/month", fromSi: (paS) => (paS * S_PER_MONTH) / PA_PER_KPA },
   temperature: { unit: "°C", fromSi: kToC },
+  temperatureDifference: { unit: "K" },
   volume: { unit: "L", fromSi: (m3) => m3 / M3_PER_LITRE },
   mass: { unit: "kg" },
   energy: { unit: "J" },

@@ -2,10 +2,17 @@ import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "no
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { planNameFromFolder } from "../../src/cli/init.js";
+import { planNameFromFolder, starterPlanText } from "../../src/cli/init.js";
 import { main } from "../../src/cli/main.js";
-import { loadPlan } from "../../src/plan/planFile.js";
+import { chargedState, interpolateClamped, recharge, startDischarge } from "../../src/physics/accumulator.js";
+import { realGas } from "../../src/physics/nitrogen.js";
+import { profileContext } from "../../src/plan/context.js";
+import { loadPlan, parsePlanText } from "../../src/plan/planFile.js";
 import { parseScheduleText } from "../../src/plan/schedule.js";
+import { fToK } from "../../src/units/index.js";
+
+/** Standard sea-level atmosphere, Pa (ISO 2533). */
+const ATM_PA = 101325;
 
 describe("coldsoak init", () => {
   let dir: string;
@@ -76,5 +83,55 @@ describe("coldsoak init", () => {
     expect(planNameFromFolder("/tmp/été-2027")).toBe("ete-2027");
     expect(planNameFromFolder("/tmp/base/Øst")).toBe("st");
     expect(planNameFromFolder("/tmp/---")).toBe("my-plan");
+  });
+});
+
+describe("the starter plan's example accumulator is physically consistent", () => {
+  // Checked with the accumulator physics of docs/methods.md §3 (Span et al. 2000 real gas): the
+  // example pump refills after a full start within its timer at the coldest row of the energy table,
+  // and one accumulator meets the table down to the temperature the starter plan's comments state.
+  const text = starterPlanText("starter");
+  const plan = parsePlanText(text, "plan.yaml");
+  const profile = plan.profiles[0]!;
+  const ctx = profileContext(profile, realGas, ATM_PA, false, { exactDischarge: true });
+  const option = profileContext(profile, realGas, ATM_PA, true, { exactDischarge: true });
+  /** One unit charged to nominal system pressure at tempK, fully discharged: energy and end volume. */
+  const fullStart = (tempK: number) => {
+    const c = chargedState(realGas, ctx.geometry, ctx.fluid, ctx.nominalMol, tempK, ctx.systemNominalAbsPa);
+    return startDischarge(realGas, ctx.geometry, 1, ctx.nominalMol, tempK, c.gasVolumeM3, ctx.starter);
+  };
+
+  it("recharges after a full start within the timer at the coldest ambient of its energy table", () => {
+    const coldK = profile.startEnergy[0]!.ambient;
+    const end = fullStart(coldK).end.gasVolumeM3;
+    for (const c of [ctx, option]) {
+      const r = recharge(
+        realGas,
+        c.geometry,
+        c.count,
+        ctx.nominalMol,
+        coldK,
+        end,
+        ctx.systemNominalAbsPa,
+        c.pump,
+      );
+      expect(r.reachedSystem).toBe(true);
+      expect(r.timeS).toBeLessThan(c.pump.timerS);
+    }
+  });
+
+  it("meets its energy table with one accumulator down to the temperature its comments state, not 10 °F below", () => {
+    const stated = /meets this table down\s*#?\s*to (-?\d+) F/.exec(text);
+    expect(stated).not.toBeNull();
+    const limitK = fToK(Number(stated![1]));
+    const margin = (tempK: number) =>
+      fullStart(tempK).hydraulicEnergyJ - interpolateClamped(ctx.energyTable, tempK);
+    for (const k of [limitK, limitK + 20, limitK + 60, fToK(70)]) expect(margin(k)).toBeGreaterThan(0);
+    expect(margin(limitK - 10 / 1.8)).toBeLessThan(0);
+    // The option's two accumulators meet the coldest row.
+    const coldK = profile.startEnergy[0]!.ambient;
+    expect(option.optionCount * fullStart(coldK).hydraulicEnergyJ).toBeGreaterThan(
+      interpolateClamped(ctx.energyTable, coldK),
+    );
   });
 });

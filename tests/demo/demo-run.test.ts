@@ -65,6 +65,31 @@ describe("demo scenario, end to end (years 2019–2020)", () => {
     expect(results.assumptions.some((a) => a.origin === "demo assumption")).toBe(true);
   });
 
+  it("shows the atmosphere of each base, the peak trapped pressure and relief by month, and the hangar air", () => {
+    // The demo's generated records carry station pressure (MA1, src/demo/isdRecord.ts), so each base
+    // uses the mean station pressure of its station.
+    for (const b of results.bases) expect(b.atmosphere.source).toBe("station pressure");
+    expect(html.split("<dt>Atmosphere</dt>").length - 1).toBe(4);
+    expect(html).toContain("the mean station pressure reported by 999701-99999");
+    expect(html.split("Peak trapped pressure (psig)").length - 1).toBe(4);
+    expect(html).toContain("Thermal relief: utility relieves at 3400 psig.");
+    // The demo plan: a heated hangar at Veldmoor, an unheated shelter at Iskarra (sample-data).
+    expect(html).toContain(
+      "heated hangar air, the outside air or 59.0 °F where colder, from 19:00 to 06:30 in Oct",
+    );
+    expect(html).toContain(
+      "unheated shelter air, the outside air 6 h behind and +4.0 °F, from 20:00 to 06:00",
+    );
+  });
+
+  it("shows plan values as the user typed them", () => {
+    // The demo plan writes the bulk modulus as "1.4 GPa" (sample-data/demo-plan.yaml); the report shows
+    // that text, not a conversion (1.4 GPa = 203,053 psi, NIST SP 811).
+    expect(html).toContain("1.4 GPa");
+    expect(html).not.toContain("203,053");
+    expect(html).not.toContain("203053");
+  });
+
   it("produces every report section", () => {
     for (const id of ["caution-h", "fleet", "methods", "assumptions", "coverage", "tables"]) {
       expect(html, id).toContain(`id="${id}"`);

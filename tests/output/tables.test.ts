@@ -70,6 +70,9 @@ describe("result tables", () => {
       results.bases.reduce((n, b) => n + items(b).length, 0);
     expect(rows("bases")).toBe(results.bases.length);
     expect(rows("months")).toBe(perBase((b) => b.months));
+    expect(rows("trapped_charge")).toBe(perBase((b) => b.trappedCharge));
+    expect(rows("atmosphere")).toBe(results.bases.length);
+    expect(rows("base_curves")).toBe(perBase((b) => b.profileCurves.flatMap((p) => p.prechargeLine)));
     expect(rows("nitrogen_stays")).toBe(perBase((b) => b.nitrogen.stays));
     expect(rows("nitrogen_fleet")).toBe(results.bases.length + 1);
     expect(rows("nitrogen_timeline")).toBe(perBase((b) => b.nitrogen.timeline));

@@ -17,6 +17,7 @@ import {
   readingPct,
   recharge,
   startDischarge,
+  thermalRelief,
   trappedState,
 } from "../../src/physics/accumulator.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
@@ -303,6 +304,70 @@ describe("trapped charge", () => {
   });
 });
 
+describe("thermal relief", () => {
+  // Check values: Span et al. (2000) equation of state and the trapped-fluid model and relief rule of
+  // docs/methods.md §3, computed independently in 40-digit arithmetic by
+  // tests/physics/crosscheck/relief_check.py (mpmath, written from the reference coefficients; output in
+  // relief_check.out): 3645.82 psig, 39.38 mL, 2736.52 psig (2738.58 with the recharge state kept as
+  // reference), 4.413 kJ and 4.203 kJ. The unit: 1 L gas volume at 0 % fill (gas-side stop not
+  // reached), precharge 1450 psig at 70 °F, 0.2 L trapped line fluid, α = 8e-4 /K, K = 1.5 GPa.
+  const geometry: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.1e-3 };
+  const fluid = { alphaPerK: 8e-4, bulkModulusPa: 1.5e9, lineVolumeM3: 0.2e-3 };
+  const n = gasAmountMol(realGas, psigToAbs(1450), fToK(70), 1e-3);
+  const c = chargedState(realGas, geometry, fluid, n, cToK(0), psigToAbs(3000));
+  const relief = psigToAbs(3300);
+  const warm = trappedState(realGas, geometry, fluid, c, cToK(30), n);
+  const at30 = { c, tempK: cToK(30), amountMol: n, trapped: warm };
+  const relieved = thermalRelief(realGas, geometry, fluid, at30, relief)!;
+  const starter = { minUsefulAbsPa: psigToAbs(1000), returnAbsPa: ATM };
+
+  it("charged to 3000 psig at 0 °C and warmed to 30 °C: 3645.8 psig without relief", () => {
+    expect(absToPsig(warm.fluidPressureAbsPa)).toBeCloseTo(3645.8, 1);
+    expect(thermalRelief(realGas, geometry, fluid, at30, psigToAbs(3700))).toBeNull();
+  });
+
+  it("with relief at 3300 psig: 39.4 mL relieved at 30 °C, the pressure holds at the relief value", () => {
+    expect(relieved.relievedM3 * 1e6).toBeCloseTo(39.38, 1);
+    expect(relieved.charge.fluidPressureAbsPa).toBe(relief);
+    expect(relieved.charge.gasPressureAbsPa).toBe(relief);
+    // The closed volume is kept (docs/methods.md §3), and the relief state is a trapped solution.
+    expect(relieved.charge.gasVolumeM3 + relieved.charge.fluidVolumeM3).toBeCloseTo(
+      c.gasVolumeM3 + c.fluidVolumeM3,
+      15,
+    );
+    const again = trappedState(realGas, geometry, fluid, relieved.charge, cToK(30), n);
+    expect(absToPsig(again.gasPressureAbsPa)).toBeCloseTo(3300, 6);
+  });
+
+  it("cooled back to 0 °C from the relief state: 2736.5 psig instead of 3000; start energy 4.41 → 4.20 kJ", () => {
+    const cold = trappedState(realGas, geometry, fluid, relieved.charge, cToK(0), n);
+    expect(absToPsig(cold.gasPressureAbsPa)).toBeCloseTo(2736.5, 1);
+    // Isentropic start to 1000 psig, return at atmospheric pressure (docs/methods.md §3, "Start energy").
+    const before = startDischarge(realGas, geometry, 1, n, cToK(0), c.gasVolumeM3, starter);
+    const after = startDischarge(realGas, geometry, 1, n, cToK(0), cold.gasVolumeM3, starter);
+    expect(before.hydraulicEnergyJ / 1000).toBeCloseTo(4.413, 2);
+    expect(after.hydraulicEnergyJ / 1000).toBeCloseTo(4.203, 2);
+  });
+
+  it("on the gas-side stop the gas keeps Vmin below the relief pressure and the fluid holds at it", () => {
+    // Stop rule of docs/methods.md §3 ("Geometry and reading"): at 100 % the fluid rises above the gas.
+    const small: AccumulatorGeometry = { v0M3: 1e-3, vminM3: 0.6e-3 };
+    const full = chargedState(realGas, small, fluid, n, cToK(0), psigToAbs(3000));
+    expect(full.gasVolumeM3).toBe(small.vminM3);
+    const hot = trappedState(realGas, small, fluid, full, cToK(30), n);
+    const r = thermalRelief(
+      realGas,
+      small,
+      fluid,
+      { c: full, tempK: cToK(30), amountMol: n, trapped: hot },
+      relief,
+    )!;
+    expect(r.charge.gasVolumeM3).toBe(small.vminM3);
+    expect(r.charge.gasPressureAbsPa).toBeLessThan(relief);
+    expect(r.relievedM3).toBeGreaterThan(0);
+  });
+});
+
 describe("gas loss", () => {
   it("a pressure drop per month at the reference temperature becomes ΔP·V0/(R·T_ref) per month (ideal mode)", () => {
     // Ideal gas law (textbook); month = 365.2425/12 days, the mean Gregorian month (146 097 days in
@@ -316,15 +381,57 @@ describe("gas loss", () => {
 });
 
 describe("lagged temperature", () => {
-  it("exact first-order update; τ = 0 follows ambient; one τ reaches 1 − e⁻¹ of a step", () => {
-    // Brief, section 3: T ← Ta + (T − Ta)·exp(−Δt/τ); first-order step response (textbook).
-    expect(lagTempK(250, { dtS: 3600, endK: 280 }, 0)).toBe(280);
-    expect((lagTempK(270, { dtS: 7200, endK: 280 }, 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
-    // Exactness: two half steps equal one whole step.
-    const halfStep = { dtS: 1800, endK: 260 };
-    const half = lagTempK(lagTempK(300, halfStep, 5000), halfStep, 5000);
-    expect(half).toBeCloseTo(lagTempK(300, { dtS: 3600, endK: 260 }, 5000), 12);
-    expect(() => lagTempK(300, { dtS: 3600, endK: 260 }, -1)).toThrow(/tauS: -1/);
+  /** A held ambient over the step (start = end). */
+  const held = (dtS: number, k: number) => ({ dtS, startK: k, endK: k });
+
+  it("exact first-order update for a held ambient; τ = 0 follows ambient; one τ reaches 1 − e⁻¹ of a step", () => {
+    // First-order step response T ← Ta + (T − Ta)·exp(−Δt/τ) (textbook; docs/methods.md, "Accumulator
+    // temperature").
+    expect(lagTempK(250, { dtS: 3600, startK: 270, endK: 280 }, 0)).toBe(280);
+    expect((lagTempK(270, held(7200, 280), 7200) - 270) / 10).toBeCloseTo(1 - Math.exp(-1), 12);
+    expect(lagTempK(270, { dtS: 0, startK: 250, endK: 290 }, 7200)).toBe(270);
+    expect(() => lagTempK(300, held(3600, 260), -1)).toThrow(/tauS: -1/);
+  });
+
+  it("τ = 2 h, 0 °C, air falling linearly to −10 °C over 1 h: −2.1306 °C (holding the end ambient: −3.9347 °C)", () => {
+    // Computed by hand from the exact solution for a linear ambient (docs/methods.md, "Accumulator
+    // temperature"): r = −10 K/h, r·τ = −20 K, T = −10 + 20 + (0 − 0 − 20)·e^(−1/2) = −2.1306 °C;
+    // holding −10 °C over the step: −10 + 10·e^(−1/2) = −3.9347 °C.
+    const k0 = 273.15;
+    const ramp = lagTempK(k0, { dtS: 3600, startK: k0, endK: k0 - 10 }, 7200) - k0;
+    expect(ramp).toBeCloseTo(-2.1306, 4);
+    expect(ramp).toBeCloseTo(10 - 20 * Math.exp(-0.5), 12);
+    const heldEnd = lagTempK(k0, held(3600, k0 - 10), 7200) - k0;
+    expect(heldEnd).toBeCloseTo(-3.9347, 4);
+  });
+
+  it("is exact for a linear ambient: two half steps equal one whole step, whatever the slope", () => {
+    // Exactness of the closed-form solution (semigroup property of a linear ODE's flow).
+    const whole = lagTempK(300, { dtS: 3600, startK: 290, endK: 260 }, 5000);
+    const a = lagTempK(300, { dtS: 1800, startK: 290, endK: 275 }, 5000);
+    expect(lagTempK(a, { dtS: 1800, startK: 275, endK: 260 }, 5000)).toBeCloseTo(whole, 10);
+  });
+
+  it("on a steady ramp the accumulator trails the air by τ after 12 τ (to 1 s), by Δt·e^(−Δt/τ)/(1 − e^(−Δt/τ)) when the end ambient is held", () => {
+    // Exact ramp response (first-order linear ODE): from T = Ta, the lag (Ta − T)/r = τ·(1 − e^(−t/τ)),
+    // short of τ by τ·e^(−12) ≈ 0.04 s after 12 τ (τ = 2 h). Holding each step's end ambient is a
+    // recursion whose fixed point trails by Δt·e^(−Δt/τ)/(1 − e^(−Δt/τ)) = 1.54 h for τ = 2 h, Δt = 1 h
+    // (hand derivation: lag L solves L = (L + Δt)·e^(−Δt/τ)).
+    const tauS = 7200;
+    const rKS = -5 / 3600; // −5 K per hour
+    let ta = 280;
+    let exact = ta;
+    let heldEnd = ta;
+    for (let h = 0; h < 24; h++) {
+      const next = ta + rKS * 3600;
+      exact = lagTempK(exact, { dtS: 3600, startK: ta, endK: next }, tauS);
+      heldEnd = lagTempK(heldEnd, held(3600, next), tauS);
+      ta = next;
+    }
+    expect(Math.abs((ta - exact) / rKS - tauS)).toBeLessThan(1);
+    const e = Math.exp(-0.5);
+    expect((ta - heldEnd) / rKS / 3600).toBeCloseTo(e / (1 - e), 3);
+    expect(e / (1 - e)).toBeCloseTo(1.54, 2); // 1.54 h for τ = 2 h, Δt = 1 h (same derivation)
   });
 });
 

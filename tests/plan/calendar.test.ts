@@ -91,3 +91,31 @@ describe("stay windows on climate years (docs/methods.md §5)", () => {
     expect(results.warnings.some((w) => w.includes("2014 (48.4 %)"))).toBe(true);
   });
 });
+
+describe("hangar months (docs/methods.md §3, Hangars)", () => {
+  it("a hangar limited to some months: a night belongs to the month of its evening", () => {
+    // Definition (docs/methods.md §3): `months` limits the hangar; the night of 31 October goes with
+    // October, so an October-less hangar starts on the evening of 1 November.
+    const days = buildDays(stayDays("2027-10-31", "2027-11-03"), 2014, {
+      ...OPTS,
+      hangar: { inMin: 20 * 60, outMin: 6 * 60, months: new Set([11, 12]) },
+    });
+    const hours = (d: (typeof days)[number]) =>
+      d.hangar.map(([a, b]) => [(a - d.midnightUtcMs) / HOUR_MS, (b - d.midnightUtcMs) / HOUR_MS]);
+    expect(hours(days[0]!)).toEqual([]); // 31 October: neither its morning nor its evening
+    expect(hours(days[1]!)).toEqual([[20, 24]]); // 1 November: evening only (the night before was October's)
+    expect(hours(days[2]!)).toEqual([
+      [0, 6],
+      [20, 24],
+    ]);
+    // All year without `months`.
+    const all = buildDays(stayDays("2027-10-31", "2027-11-01"), 2014, {
+      ...OPTS,
+      hangar: { inMin: 20 * 60, outMin: 6 * 60 },
+    });
+    expect(hours(all[0]!)).toEqual([
+      [0, 6],
+      [20, 24],
+    ]);
+  });
+});

@@ -5,13 +5,14 @@ import { emptyQc } from "../../src/climate/qc.js";
 import type { HourlySeries, StationClimate } from "../../src/climate/types.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { realGas } from "../../src/physics/nitrogen.js";
+import type { HangarAir } from "../../src/plan/air.js";
 import { stayDays } from "../../src/plan/calendar.js";
 import { type ProfileContext, profileContext } from "../../src/plan/context.js";
 import { buildDays } from "../../src/plan/days.js";
 import type { BaseClimate } from "../../src/plan/engine.js";
 import { type Plan, parsePlanText } from "../../src/plan/planFile.js";
 import type { Stay } from "../../src/plan/schedule.js";
-import { type SimOutcome, simulateStayYear } from "../../src/plan/simulate.js";
+import { type ArrivalState, type SimOutcome, simulateStayYear } from "../../src/plan/simulate.js";
 
 const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
 
@@ -63,6 +64,12 @@ export function oneLitreUnit(t: Tree): void {
   delete t.bases[0].hangar;
 }
 
+/** A stay of the schedule at the fixture's base, with its profile and no cold-start option. */
+export function fixtureStay(aircraft: string, arrive: string, depart: string): Stay {
+  const rest = { base: "North Field", coldStartOption: false, profile: "standard", line: 2 };
+  return { aircraft, arrive, depart, ...rest };
+}
+
 /** A one-station climate whose hourly temperature is fn(utcMs), over [fromUtcMs, toUtcMs). */
 export function syntheticClimate(
   fn: (utcMs: number) => number,
@@ -90,7 +97,14 @@ export function syntheticClimate(
     meanStationPressureHpa: null,
     malformedExamples: [],
   };
-  return { stations: [station], series, timeZone: opts.timeZone ?? "UTC", atmPa: opts.atmPa ?? 101325 };
+  return {
+    stations: [station],
+    series,
+    timeZone: opts.timeZone ?? "UTC",
+    atmPa: opts.atmPa ?? 101325,
+    // 101 325 Pa is the ISO 2533 standard atmosphere at the synthetic station's 0 m.
+    atmSource: "standard atmosphere",
+  };
 }
 
 /**
@@ -103,14 +117,17 @@ export function simulateUtcStay(
   stay: { arrive: string; depart: string; climateYear: number },
   options: {
     ctx?: ProfileContext;
-    hangar?: { inMin: number; outMin: number; tempK: number };
+    hangar?: { inMin: number; outMin: number; air: HangarAir; months?: ReadonlySet<number> };
+    arrival?: ArrivalState;
   } = {},
 ): SimOutcome {
   const days = buildDays(stayDays(stay.arrive, stay.depart), stay.climateYear, {
     timeZone: "UTC",
     startMinutes: plan.operations.startTimes,
     flownWeekdays: new Set([1, 2, 3, 4, 5, 6, 7]),
-    hangar: options.hangar ? { inMin: options.hangar.inMin, outMin: options.hangar.outMin } : null,
+    hangar: options.hangar
+      ? { inMin: options.hangar.inMin, outMin: options.hangar.outMin, months: options.hangar.months ?? null }
+      : null,
   });
   return simulateStayYear({
     ctx: options.ctx ?? profileContext(plan.profiles[0]!, tabulatedGas(realGas), ATM_PA, false),
@@ -118,8 +135,9 @@ export function simulateUtcStay(
     timeZone: "UTC",
     days,
     gasLossFactor: 1,
-    hangarTempK: options.hangar?.tempK ?? null,
+    hangar: options.hangar?.air ?? null,
     prechargeCheckDays: 30,
     policy: "log",
+    arrival: options.arrival ?? "charged",
   });
 }

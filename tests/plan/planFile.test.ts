@@ -99,3 +99,68 @@ describe("plan file", () => {
     );
   });
 });
+
+describe("hangars in the plan file (docs/methods.md §3, Hangars)", () => {
+  const HANGAR =
+    'hangar: { kind: heated, heatedTo: "50 F", in: "20:00", out: "06:00", months: [Oct, Nov, Dec, Jan, Feb, Mar, Apr] }';
+  const line = text.split("\n").findIndex((l) => l.includes("hangar: {")) + 1;
+  const withHangar = (h: string) => text.replace(HANGAR, `hangar: ${h}`);
+
+  it("reads a heated hangar with its months, and a shelter with its defaults", () => {
+    expect(text).toContain(HANGAR);
+    const heated = parsePlanText(text, "plan.yaml").bases[0]!.hangar!;
+    expect(heated).toEqual({
+      kind: "heated",
+      heatedTo: 283.15, // 50 °F = 10 °C (°F scale definition)
+      in: 20 * 60,
+      out: 6 * 60,
+      months: [10, 11, 12, 1, 2, 3, 4],
+    });
+    const shelter = parsePlanText(withHangar('{ kind: shelter, in: "20:00", out: "06:00" }'), "plan.yaml");
+    // Defaults of docs/methods.md §3: a 6 h time constant, no offset, all year.
+    expect(shelter.bases[0]!.hangar).toEqual({
+      kind: "shelter",
+      timeConstant: 6 * 3600,
+      offset: 0,
+      in: 20 * 60,
+      out: 6 * 60,
+      months: null,
+    });
+    const offset = parsePlanText(
+      withHangar(
+        '{ kind: shelter, timeConstant: "4 h", offset: "9 F", in: "20:00", out: "06:00", months: [12, 1] }',
+      ),
+      "plan.yaml",
+    ).bases[0]!.hangar!;
+    // A difference of 9 °F is 5 K (NIST SP 811, Appendix B.8).
+    expect(offset).toMatchObject({ timeConstant: 4 * 3600, months: [12, 1] });
+    expect(offset.kind === "shelter" ? offset.offset : Number.NaN).toBeCloseTo(5, 12);
+  });
+
+  it("refuses the former fixed temperature with its line, naming the keys that replace it", () => {
+    expect(errorOf(withHangar('{ temperature: "50 F", in: "20:00", out: "06:00" }'))).toMatch(
+      new RegExp(
+        `^plan\\.yaml:${line}:bases\\[0\\]\\.hangar\\.temperature: a fixed hangar temperature is no longer read; write kind: heated with heatedTo .*kind: shelter .*timeConstant.*offset`,
+      ),
+    );
+  });
+
+  it("names what a hangar of each kind misses or does not take", () => {
+    expect(errorOf(withHangar('{ kind: heated, in: "20:00", out: "06:00" }'))).toMatch(
+      /^plan\.yaml:\d+:bases\[0\]\.hangar\.heatedTo: missing; a heated hangar needs its set point/,
+    );
+    expect(errorOf(withHangar('{ kind: shelter, heatedTo: "50 F", in: "20:00", out: "06:00" }'))).toMatch(
+      /bases\[0\]\.hangar\.heatedTo: belongs to kind: heated/,
+    );
+    expect(
+      errorOf(withHangar('{ kind: heated, heatedTo: "50 F", offset: "2 F", in: "20:00", out: "06:00" }')),
+    ).toMatch(/bases\[0\]\.hangar\.offset: belongs to kind: shelter/);
+    expect(errorOf(withHangar('{ kind: warm, in: "20:00", out: "06:00" }'))).toMatch(
+      /bases\[0\]\.hangar\.kind: expected one of "heated", "shelter"/,
+    );
+    expect(errorOf(withHangar('{ in: "20:00", out: "06:00" }'))).toMatch(/bases\[0\]\.hangar\.kind: missing/);
+    expect(errorOf(withHangar('{ kind: shelter, in: "20:00", out: "06:00", months: [Smarch] }'))).toMatch(
+      /bases\[0\]\.hangar\.months\[0\]: "Smarch" is not a month; expected Jan … Dec or a number 1–12/,
+    );
+  });
+});

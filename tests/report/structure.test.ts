@@ -209,7 +209,8 @@ describe("report structure", () => {
   });
 
   it("names the air around the aircraft in the overnight traces: hangar air where the plan has a hangar", () => {
-    // Fixture: Southgate (base 2) has a hangar 20:00–06:00 at 5 °C = 41.0 °F; Northfield (base 1) has none.
+    // Fixture: Southgate (base 2) has a hangar heated to 5 °C = 41.0 °F, 20:00–06:00 from November to
+    // February; Northfield (base 1) has none.
     const captions = (i: number) => {
       const sec = els.find((e) => e.name === "section" && e.attrs["id"] === `base-${i}`)!;
       const over = elements(inner(tokens, sec)).find((e) => e.attrs["data-section"] === "overnight")!;
@@ -223,7 +224,9 @@ describe("report structure", () => {
     expect(south).toHaveLength(2);
     for (const c of north) expect(c).toContain("temperature of the outside air");
     for (const c of south)
-      expect(c).toContain("hangar air at 41.0 °F from 20:00 to 06:00; outside air otherwise");
+      expect(c).toContain(
+        "heated hangar air, the outside air or 41.0 °F where colder, from 20:00 to 06:00 in Nov, Dec, Jan, Feb; outside air otherwise",
+      );
     expect(html).not.toContain("evening recharge");
   });
 

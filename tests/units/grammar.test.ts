@@ -78,10 +78,11 @@ describe("the README's quantity forms in the plan file and on the command line",
 
   for (const t of TEMPERATURES) {
     for (const form of spacings(t)) {
-      it(`"${form}": the plan's hangar temperature, precharge --at and band --from/--to read the same`, async () => {
+      it(`"${form}": the plan's hangar set point, precharge --at and band --from/--to read the same`, async () => {
         // Same value through every path (the °F/°C/K relations are tested in tests/units/factors).
-        const plan = planWith('temperature: "50 F"', `temperature: "${form}"`);
-        const tempK = plan.bases[0]!.hangar!.temperature;
+        const plan = planWith('heatedTo: "50 F"', `heatedTo: "${form}"`);
+        const hangar = plan.bases[0]!.hangar!;
+        const tempK = hangar.kind === "heated" ? hangar.heatedTo : Number.NaN;
         expect(prechargeAnswer("1450psig@70F", form).atTempK).toBe(tempK);
         const at = await runCli(["precharge", "--ref", "1450psig@70F", "--at", form, "--json"]);
         expect(at.code, at.err).toBe(0);

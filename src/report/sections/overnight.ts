@@ -37,7 +37,7 @@ async function traceFigure(
       yTitle: `Temperature (${u.temp.unit})`,
       lines: [
         {
-          name: hangar ? "Air (outside, or hangar)" : "Outside air",
+          name: hangar ? "Air around the aircraft (outside, or hangar)" : "Outside air",
           color: PALETTE.sky,
           dash: [6, 3],
           points: pts.map((p) => ({ x: p.hour, y: u.temp.convert(p.ambientC) })),

@@ -1,12 +1,13 @@
 /**
  * Report section "Precharge line and fill-reading band" of a base (partial `profile`): for each
  * profile flown at the base, the precharge line with its tolerance lines against the ideal gas and the
- * fill-reading band by temperature, as charts captioned as model estimates, never as a printable
- * servicing table (the numbers are in precharge_line.csv and band.csv). Reads `Results.profiles`
- * (`prechargeLine`, `band`), and `Results.stays` with `BaseResult.nitrogen.stays` to know which
- * profiles the base flies.
+ * fill-reading band by temperature, gauge pressures at the base's own atmosphere, as charts captioned as
+ * model estimates, never as a printable servicing table (the numbers are in precharge_line.csv,
+ * band.csv and base_curves.csv). Reads `BaseResult.profileCurves` (else `Results.profiles` with
+ * `Results.stays` and `BaseResult.nitrogen.stays` to know which profiles the base flies).
  */
 import type { BaseResult, PrechargeRow, ProfileResult, Results } from "../../plan/results.js";
+import { showWithUnit } from "../../units/index.js";
 import { PALETTE, xyChart } from "../charts.js";
 import type { BaseContext, Figure } from "../shared.js";
 
@@ -22,8 +23,12 @@ export interface ProfileSectionView {
   profiles: ProfileView[];
 }
 
-/** Profiles flown at a base (from the stays); all profiles when no stay names one that exists. */
+/**
+ * Profiles flown at a base, with their curves at the base's atmosphere (`BaseResult.profileCurves`);
+ * else, from the stays, the profile-level curves at 101.325 kPa (all profiles when no stay names one).
+ */
 function profilesForBase(results: Results, base: BaseResult): ProfileResult[] {
+  if (base.profileCurves.length > 0) return base.profileCurves;
   const names = new Set(results.stays.filter((s) => s.base === base.name).map((s) => s.profile));
   for (const s of base.nitrogen.stays) names.add(s.profile);
   const used = results.profiles.filter((p) => names.has(p.name));
@@ -76,7 +81,7 @@ async function profileView(
         },
       ],
     }),
-    `Precharge line of profile ${p.name} (piston on the fluid-side stop) with its tolerance lines, real gas against the ideal-gas model, in ${P}. ${NOT_SERVICING}`,
+    `Precharge line of profile ${p.name} (piston on the fluid-side stop) with its tolerance lines, real gas against the ideal-gas model, in ${P} above an atmosphere of ${showWithUnit(u.pressureAbs, p.atmosphereKPaAbsolute)}. ${NOT_SERVICING}`,
   );
   const band = figs.next(
     await xyChart({

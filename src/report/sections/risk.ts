@@ -3,11 +3,20 @@
  * (partial `risk`): fill readings and overnight drop at the first preflight, start energy with one and
  * two accumulators, the risk chart, the out-of-band share by local hour, and the status and cold-start
  * advice by month, every share that drives a status with its 90 % interval and its spread across
- * climate years. Reads `BaseResult.months` (figures, confidence, status), `outOfBandByHour`, `advice`,
- * `Results.thresholds` and the base's hangar assumptions (`Results.assumptions`).
+ * climate years; the trapped charge by month (peak trapped pressure, thermal relief). Reads
+ * `BaseResult.months` (figures, confidence, status), `outOfBandByHour`, `advice`, `trappedCharge`,
+ * `Results.thresholds`, the base's hangar assumptions and the profiles' relief pressures
+ * (`Results.assumptions`).
  */
-import type { AdviceRow, BaseResult, HourRow, MonthRow } from "../../plan/results.js";
-import { formatDisplay, pct, show, type UnitSystem } from "../../units/index.js";
+import type {
+  AdviceRow,
+  BaseResult,
+  HourRow,
+  MonthRow,
+  Results,
+  TrappedMonthRow,
+} from "../../plan/results.js";
+import { formatDisplay, pct, show, shownText, type UnitSystem } from "../../units/index.js";
 import { barChart, PALETTE, xyChart } from "../charts.js";
 import {
   type BaseContext,
@@ -47,6 +56,8 @@ export interface RiskView {
   hourFigure: Figure | null;
   hourNote: string;
   advice: AdviceView[];
+  trappedTable: TableRow[];
+  trappedNote: string;
 }
 
 /** A row of a table by month: the month, a count, then the month's values. */
@@ -84,6 +95,28 @@ function energyRow(m: MonthRow, u: UnitSystem): TableRow {
     stats(pct(m.energyMarginTwoP10Pct), pct(m.energyMarginTwoP50Pct)),
     stats(show(u.tempDelta, m.dailyRangeMeanC), show(u.tempDelta, m.dailyRangeP90C)),
   );
+}
+
+function trappedRow(r: TrappedMonthRow, u: UnitSystem): TableRow {
+  return {
+    cells: [
+      monthName(r.month),
+      show(u.pressure, r.peakTrappedKPaGauge),
+      formatDisplay(r.reliefEventsPerYear, 1),
+      show(u.volume, r.relievedLPerYear),
+      formatDisplay(r.reliefEvents, 0),
+    ],
+  };
+}
+
+/** Which profiles flown at the base have a thermal relief valve, and at what pressure (as written). */
+function reliefNote(results: Results, base: BaseResult, u: UnitSystem): string {
+  const profiles = [...new Set(results.stays.filter((s) => s.base === base.name).map((s) => s.profile))];
+  const parts = profiles.map((name) => {
+    const a = results.assumptions.find((x) => x.key === `profiles.${name}.reliefPressure`);
+    return a && a.kind !== "text" ? `${name} relieves at ${shownText(a, u)}` : `${name} has no relief valve`;
+  });
+  return parts.length > 0 ? `Thermal relief: ${parts.join("; ")}.` : "";
 }
 
 /** Risk chart by month: out-of-band shares and short-start shares, with the threshold; null without preflights. */
@@ -228,5 +261,10 @@ export async function riskSection(ctx: BaseContext): Promise<RiskView> {
     hourNote:
       hours.length > 0 ? "" : "No preflights with a reading in the years used, so no hourly breakdown.",
     advice: adviceRows(base, thresholds),
+    trappedTable: [...base.trappedCharge]
+      .sort((a, b) => a.month - b.month)
+      .filter((r) => r.peakTrappedKPaGauge !== null)
+      .map((r) => trappedRow(r, u)),
+    trappedNote: reliefNote(ctx.results, base, u),
   };
 }
