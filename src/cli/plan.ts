@@ -194,8 +194,9 @@ Output (in <out>/<plan name>/, replaced only after a successful run):
   results.json   everything the report shows (°C, kPa gauge, kg, normal m³, %; no wall-clock time)
   *.csv          one table each: bases, months, advice, out_of_band_by_hour, coldest_mornings,
                  climate_months, daily_range_histogram, nitrogen_stays, nitrogen_fleet,
-                 nitrogen_timeline, nitrogen_cylinder_gas, traces, stations, precharge_line, band,
-                 stays, stay_months, aircraft_actions, assumptions
+                 nitrogen_timeline, nitrogen_cylinder_gas, trapped_charge, traces, stations,
+                 atmosphere, precharge_line, band, base_curves, stays, stay_months, aircraft_actions,
+                 assumptions
   report.html    the self-contained planning report
 
 Schedule CSV: aircraft,base,arrive,depart[,cold_start_option][,profile]
