@@ -7,7 +7,7 @@
 import type { Command } from "commander";
 import { InputError } from "../errors.js";
 import { bandCurves } from "../plan/bandCurves.js";
-import { loadPlan } from "../plan/planFile.js";
+import { loadPlanFile } from "../plan/planFile.js";
 import {
   cToK,
   formatDisplay,
@@ -45,7 +45,7 @@ export async function bandCommand(
   planFile: string,
   opts: BandCliOptions,
 ): Promise<{ text: string; json: object }> {
-  const plan = await loadPlan(planFile);
+  const plan = await loadPlanFile(planFile);
   const profile =
     opts.profile === undefined ? plan.profiles[0]! : plan.profiles.find((p) => p.name === opts.profile);
   if (profile === undefined) {

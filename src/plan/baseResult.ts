@@ -11,7 +11,7 @@ import { profileCurves } from "./bandCurves.js";
 import { baseConfidence, type StayFigures } from "./confidence.js";
 import { baseDecisions, type DecisionThresholds } from "./decisions.js";
 import { baseStatistics } from "./monthStats.js";
-import type { Plan } from "./planFile.js";
+import type { PlanCore } from "./planFile.js";
 import type { AircraftAction, AtmosphereResult, BaseResult, StationResult } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
@@ -71,7 +71,7 @@ export interface AggregatedBase {
 }
 
 /** The plan's thresholds that decide statuses and actions. */
-export function decisionThresholds(plan: Plan): DecisionThresholds {
+export function decisionThresholds(plan: PlanCore): DecisionThresholds {
   return {
     shortStartsPct: plan.thresholds.shortStartsPct,
     outOfBandPct: plan.thresholds.outOfBandPct,

@@ -7,7 +7,7 @@
  * 1-in-30-year values (Gumbel, method of moments); the monthly climate of the whole record.
  */
 import { localClimatology } from "../climate/index.js";
-import type { Plan } from "./planFile.js";
+import type { PlanCore } from "./planFile.js";
 import type { BaseResult, HourRow, MonthStatistics } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
@@ -217,7 +217,7 @@ export type BaseStatistics = Pick<
 
 /** The statistics of one base from its outcomes; a warning counts starts without temperature data. */
 export function baseStatistics(
-  plan: Plan,
+  plan: PlanCore,
   base: BaseSamples,
   outcomes: BaseOutcomes,
   warnings: string[],
