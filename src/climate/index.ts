@@ -30,6 +30,6 @@ export {
 } from "./load.js";
 export { hourlyOffsetsMin, localDays, timeZoneFor } from "./localTime.js";
 export { TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "./qc.js";
-export { detectFormat, readClimateFile } from "./source.js";
+export { detectFormat, firstStation, readClimateFile } from "./source.js";
 export { isoUtc, type StationSummary, stationCoverage, stationSummary } from "./summary.js";
 export * from "./types.js";
