@@ -413,7 +413,20 @@ export interface NitrogenFleet extends NitrogenToShip {
   draws: number;
 }
 
-export interface BaseResult {
+/**
+ * The 1-in-10 and 1-in-30-year coldest mornings of a place (Gumbel fit of each year's coldest morning,
+ * docs/methods.md §6), °C, each with its 90 % bootstrap interval.
+ */
+export interface ColdestReturnLevels {
+  coldest1in10C: number | null;
+  coldest1in10CLo90: number | null;
+  coldest1in10CHi90: number | null;
+  coldest1in30C: number | null;
+  coldest1in30CLo90: number | null;
+  coldest1in30CHi90: number | null;
+}
+
+export interface BaseResult extends ColdestReturnLevels {
   name: string;
   stations: StationResult[];
   timeZone: string;
@@ -428,13 +441,6 @@ export interface BaseResult {
   outOfBandByHour: HourRow[];
   coldestMorningC: number | null;
   coldestMorningByYear: { year: number; tempC: number }[];
-  coldest1in10C: number | null;
-  coldest1in10CLo90: number | null;
-  coldest1in10CHi90: number | null;
-  /** 1-in-30-year coldest morning, same Gumbel fit (docs/methods.md §6), with its bootstrap interval. */
-  coldest1in30C: number | null;
-  coldest1in30CLo90: number | null;
-  coldest1in30CHi90: number | null;
   advice: AdviceRow[];
   traces: { typical: Trace | null; worst: Trace | null };
   nitrogen: NitrogenBase;
