@@ -72,7 +72,11 @@ export function summaryText(r: Results): string {
   return lines.join("\n");
 }
 
-function progressBar(label: string): { update: (done: number, total: number) => void; stop: () => void } {
+/** A progress bar on stderr (only on a terminal); with `eta`, the estimated time left too. */
+export function progressBar(
+  label: string,
+  eta = false,
+): { update: (done: number, total: number) => void; stop: () => void } {
   let bar: SingleBar | null = null;
   return {
     update(done, total) {
@@ -80,7 +84,7 @@ function progressBar(label: string): { update: (done: number, total: number) => 
       if (bar === null) {
         bar = new SingleBar({
           stream: process.stderr,
-          format: `${label} [{bar}] {value}/{total}`,
+          format: `${label} [{bar}] {value}/{total}${eta ? " | {eta_formatted} left" : ""}`,
           hideCursor: true,
         });
         bar.start(total, 0);

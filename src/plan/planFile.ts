@@ -31,6 +31,8 @@ const pressureAt = q(parsePressureAt);
 const pointPressure = q(parsePointPressure);
 const clock = q(parseClockMinutes);
 const NAME_RE = /^[A-Za-z0-9][A-Za-z0-9 _.-]*$/;
+/** What `coldsoak screen` adds to the plan's name for its output folder. */
+export const SCREEN_SUFFIX = "-screen";
 
 export const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"] as const;
 const weekdayName = z.string().transform((s, ctx) => {
@@ -251,7 +253,10 @@ export const planSchema = z
   .strictObject({
     name: z
       .string()
-      .regex(NAME_RE, "expected a name of letters, digits, spaces, - _ or . (it names the output folder)"),
+      .regex(NAME_RE, "expected a name of letters, digits, spaces, - _ or . (it names the output folder)")
+      .refine((n) => !n.endsWith(SCREEN_SUFFIX), {
+        message: `expected a name not ending in "${SCREEN_SUFFIX}" (coldsoak screen writes out/<plan name>${SCREEN_SUFFIX})`,
+      }),
     units: z.enum(["us", "si"]).default("us"),
     seed: z
       .number()
