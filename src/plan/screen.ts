@@ -4,7 +4,7 @@
  * without and with the cold-start option, through the planning engine's own steps — the samples of
  * `samples.ts`, the simulation of `simulateSamples.ts`, the statistics of `monthStats.ts` and
  * `confidence.ts`, the status rule `monthStatus` of `decisions.ts` — so that a screen of a station gives
- * what a plan with those two stays there gives (docs/methods.md, "Region screen").
+ * what a plan with those two stays there gives (docs/methods.md §8).
  */
 import type { HourlySeries, StationClimate } from "../climate/types.js";
 import { atmosphereOf, decisionThresholds, returnLevels, stationResult } from "./baseResult.js";

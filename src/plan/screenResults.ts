@@ -48,7 +48,7 @@ export interface BreakEvenMargin {
   reason: string | null;
 }
 
-/** A station's design temperatures (docs/methods.md, "Design temperatures"), as their module gives them. */
+/** A station's design temperatures, as the module computing them gives them. */
 export type DesignTemperatures = Record<string, unknown>;
 
 /** One station of the screen. */

@@ -7,8 +7,8 @@
  * A region (every station within 60° of their centre) is drawn in a Lambert azimuthal equal-area
  * projection centred on the stations, from the 1:50 m outlines, fitted to a 3° circle around each
  * station and clipped to the frame; a spread over more of the globe is drawn whole in the Equal Earth
- * projection (Šavrič, Patterson and Jenny 2018) from the 1:110 m outlines. Classes: ColorBrewer's
- * YlOrRd sequential scheme (Brewer, Harrower et al., colorbrewer2.org) for months with a need, the
+ * projection (Šavrič, Patterson and Jenny 2019) from the 1:110 m outlines. Classes: ColorBrewer's
+ * YlOrRd sequential scheme (Brewer, Hatchard and Harrower 2003) for months with a need, the
  * Okabe–Ito blue for none; the point's size grows with the months, so classes read in greyscale too.
  */
 import { readFileSync } from "node:fs";
@@ -176,19 +176,17 @@ function dropNearVertices(out: GeoStream): GeoStream {
 
 const f1 = (v: number) => (Math.round(v * 10) / 10).toString();
 
-/** The SVG of one station's mark at (x, y). */
+/** The SVG of one station's mark, placed at (x, y) by its group's translation. */
 function pointSvg(s: MapStation, x: number, y: number): string {
-  const title = `<title>${escapeXml(s.label)}</title>`;
-  if (s.state === "no-data") {
-    const d = 4;
-    return `<g class="pt pt-nodata">${title}<path d="M${f1(x - d)} ${f1(y - d)}L${f1(x + d)} ${f1(y + d)}M${f1(x - d)} ${f1(y + d)}L${f1(x + d)} ${f1(y - d)}" stroke="${NO_DATA_COLOR}" stroke-width="2"/></g>`;
-  }
+  const open = `<g class="pt${s.state === "no-data" ? " pt-nodata" : ""}" data-station="${escapeXml(s.id)}" transform="translate(${f1(x)} ${f1(y)})"><title>${escapeXml(s.label)}</title>`;
+  if (s.state === "no-data")
+    return `${open}<path d="M-4 -4L4 4M-4 4L4 -4" stroke="${NO_DATA_COLOR}" stroke-width="2"/></g>`;
   const c = mapClass(s.months);
   const paint =
     s.state === "low"
       ? `fill="#fff" stroke="${c.color}" stroke-width="2"`
       : `fill="${c.color}" stroke="#000" stroke-width="0.8"`;
-  return `<g class="pt">${title}<circle cx="${f1(x)}" cy="${f1(y)}" r="${c.radius}" ${paint}/></g>`;
+  return `${open}<circle r="${c.radius}" ${paint}/></g>`;
 }
 
 /**

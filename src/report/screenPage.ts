@@ -8,7 +8,14 @@
 import type { ScreenResults, ScreenStation } from "../plan/screenResults.js";
 import { formatDisplay, pct, show, showWithUnit, unitSystem } from "../units/index.js";
 import { generationTime, pageEnvironment, templateText } from "./index.js";
-import { MAP_CLASSES, type MapStation, mapClass, NO_DATA_COLOR, stationMap } from "./screenMap.js";
+import {
+  MAP_CLASSES,
+  type MapStation,
+  mapClass,
+  NO_DATA_COLOR,
+  type StationMap,
+  stationMap,
+} from "./screenMap.js";
 import { MONTHS, monthName, STATUS_LABEL, type Status, yearsShort } from "./shared.js";
 
 /** Risk order: more months needing the option, then more still short with it, then the larger short share, the colder 1-in-10 morning; stations without data last. */
@@ -37,7 +44,7 @@ function stationName(s: ScreenStation): string {
 }
 
 /** The map's view of a station: its tooltip says the months of need, or why it has none. */
-function mapStation(s: ScreenStation): MapStation {
+export function mapStation(s: ScreenStation): MapStation {
   const n = s.monthsNeedingOption.length;
   const state = s.yearsUsed.length === 0 ? "no-data" : s.tooFewYears ? "low" : "screened";
   const need =
@@ -54,6 +61,14 @@ function mapStation(s: ScreenStation): MapStation {
   };
 }
 
+/** The screen's map: every station on Natural Earth's outlines (`screenMap.ts`). */
+export function screenMap(r: ScreenResults): StationMap {
+  return stationMap(
+    r.stations.map(mapStation),
+    `Stations screened against profile ${r.profile}, coloured by the number of local months in which the cold-start option is needed`,
+  );
+}
+
 /** A small constant SVG swatch of a class of the map's key. */
 function swatch(fill: string, stroke: string, radius: number, hollow = false): string {
   const paint = hollow
@@ -68,8 +83,7 @@ const NO_DATA_SWATCH = `<svg class="swatch" viewBox="0 0 20 20" width="20" heigh
 function screenView(r: ScreenResults) {
   const u = unitSystem(r.units);
   const stations = [...r.stations].sort(riskOrder);
-  const mapTitle = `Stations screened against profile ${r.profile}, coloured by the number of local months in which the cold-start option is needed`;
-  const map = stationMap(r.stations.map(mapStation), mapTitle);
+  const map = screenMap(r);
   const margin = (s: ScreenStation, units: 1 | 2) => {
     const b = s.breakEven.find((x) => x.units === units);
     return b?.marginC === null || b === undefined ? "–" : showWithUnit(u.tempDelta, b.marginC);
