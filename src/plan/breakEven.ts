@@ -96,6 +96,25 @@ export function caseEnergyJ(p: EnergyProfile, c: EnergyCase, tempK: number, drop
     : trappedStartEnergyJ(p.model, units, p.fluid, n, tempK + dropK, tempK, sys);
 }
 
+/** Energies of every case at one temperature, in the order of `ENERGY_CASES`. */
+export interface EnergyRow {
+  tempK: number;
+  requiredJ: number;
+  energyJ: number[];
+}
+
+/**
+ * Energy of every case against temperature (at equilibrium, or after a drop of dropK) and the
+ * requirement, for the energy curves of the command line and the report.
+ */
+export function energyRows(p: EnergyProfile, tempsK: number[], dropK = 0): EnergyRow[] {
+  return tempsK.map((tempK) => ({
+    tempK,
+    requiredJ: requiredEnergyJ(p, tempK),
+    energyJ: ENERGY_CASES.map((c) => caseEnergyJ(p, c, tempK, dropK)),
+  }));
+}
+
 /** Bracket scan step, K: fine enough that no pair of crossings hides between two points. */
 const SCAN_STEP_K = 1;
 /** Bisection stops when the bracket's half-width is below this, K. */
