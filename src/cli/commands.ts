@@ -1,6 +1,7 @@
 import type { Command } from "commander";
 import { registerBand } from "./band.js";
 import { registerClimate } from "./climate.js";
+import { registerEnergy } from "./energy.js";
 import { registerInit } from "./init.js";
 import { registerPdf } from "./pdf.js";
 import { registerPlan } from "./plan.js";
@@ -17,5 +18,6 @@ export function registerCommands(program: Command): void {
   registerClimate(program);
   registerPrecharge(program);
   registerBand(program);
+  registerEnergy(program);
   registerPdf(program);
 }

@@ -9,6 +9,14 @@ export {
   monthlyClimate,
 } from "./climatology.js";
 export {
+  type DesignTemperatures,
+  type DesignTempOptions,
+  designTemperatures,
+  type HoursBelow,
+  type MonthDesignTemperature,
+  NO_YEAR_REASON,
+} from "./designTemps.js";
+export {
   emptySeries,
   filledHours,
   fillGaps,
