@@ -17,7 +17,7 @@ import {
   energyRows,
   equilibriumBreakEven,
 } from "../plan/breakEven.js";
-import { loadPlan, type ProfileInput } from "../plan/planFile.js";
+import { loadPlanFile, type ProfileInput } from "../plan/planFile.js";
 import {
   FAHRENHEIT_PER_KELVIN,
   formatMachine,
@@ -110,7 +110,7 @@ export async function energyCommand(
   planFile: string,
   opts: EnergyCliOptions,
 ): Promise<{ text: string; json: object }> {
-  const plan = await loadPlan(planFile);
+  const plan = await loadPlanFile(planFile);
   const profile = profileOption(plan, opts.profile);
   const range = temperatureRangeOption(plan, opts);
   const u = unitSystem(plan.units);

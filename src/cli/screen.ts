@@ -16,9 +16,10 @@ import { toCsv } from "../output/tables.js";
 import { SCREEN_SUFFIX } from "../plan/planFile.js";
 import { partialName } from "../plan/screenMerge.js";
 import type { ScreenResults } from "../plan/screenResults.js";
-import { runScreen } from "../plan/screenRun.js";
+import { readScreenPlan, runScreen } from "../plan/screenRun.js";
 import { parseShard } from "../plan/shard.js";
 import { renderScreenPage } from "../report/screenPage.js";
+import { profileOption } from "./options.js";
 import { writeOutputFolder } from "./outputFolder.js";
 import { progressBar } from "./plan.js";
 
@@ -73,9 +74,10 @@ export async function runScreenCommand(
   opts: ScreenCliOptions,
 ): Promise<{ written: string; results: ScreenResults; warnings: string[] }> {
   const shard = opts.shard === undefined ? null : parseShard(opts.shard);
+  const input = await readScreenPlan(planFile);
+  const profile = profileOption(input.plan, opts.profile).name;
   const bar = progressBar("stations", true);
-  const run = await runScreen(planFile, climate, {
-    profile: opts.profile,
+  const run = await runScreen(input, profile, climate, {
     shard,
     workers: workersOption(opts.workers),
     cacheDir: opts.cacheDir === undefined ? null : resolve(opts.cacheDir),

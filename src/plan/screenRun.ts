@@ -11,7 +11,6 @@
 import { createHash } from "node:crypto";
 import { basename, resolve } from "node:path";
 import { firstStation, listClimateFiles } from "../climate/index.js";
-import { inputError } from "../errors.js";
 import { readInputText } from "../fsutil.js";
 import { TOOL_VERSION } from "../version.js";
 import { type PlanFile, parsePlanFileText } from "./planFile.js";
@@ -21,9 +20,20 @@ import type { ScreenPartial, ScreenResults, ScreenSettings, ScreenStation } from
 import type { ScreenJob, UnitResult } from "./screenUnit.js";
 import { type Shard, shardOf } from "./shard.js";
 
+/** The plan of a screen: its file, its text (hashed into the results) and the plan read from it. */
+export interface ScreenPlan {
+  planFile: string;
+  planText: string;
+  plan: PlanFile;
+}
+
+/** Reads a screen's plan file (bases, schedule and nitrogen may be absent). */
+export async function readScreenPlan(planFile: string): Promise<ScreenPlan> {
+  const planText = await readInputText(planFile, "the plan file");
+  return { planFile, planText, plan: parsePlanFileText(planText, planFile) };
+}
+
 export interface ScreenRunOptions {
-  /** Profile screened; default the plan's first. */
-  profile?: string | undefined;
   /** Only the units of this shard; null for all. */
   shard: Shard | null;
   workers: number;
@@ -96,18 +106,6 @@ export function screenSettings(plan: PlanFile, planText: string, profile: string
   };
 }
 
-/** The profile screened: the one named, else the plan's first; an unknown name is an input error. */
-function profileOf(plan: PlanFile, name: string | undefined): string {
-  if (name === undefined) return plan.profiles[0]!.name;
-  if (plan.profiles.some((p) => p.name === name)) return name;
-  throw inputError(
-    "--profile",
-    undefined,
-    undefined,
-    `unknown profile "${name}"; the plan has ${plan.profiles.map((p) => `"${p.name}"`).join(", ")}`,
-  );
-}
-
 /** Groups of units that share a station (union of their indexes), each of two units or more. */
 function sharedStationGroups(results: UnitResult[]): number[][] {
   const parent = results.map((_r, i) => i);
@@ -157,17 +155,16 @@ async function screenAll(
 }
 
 /**
- * Screens every station in the climate files (those of one shard with `opts.shard`) against a profile
- * of the plan; the plan may lack bases, schedule and nitrogen.
+ * Screens every station in the climate files (those of one shard with `opts.shard`) against profile
+ * `profile` of the plan.
  */
 export async function runScreen(
-  planFile: string,
+  input: ScreenPlan,
+  profile: string,
   paths: string[],
   opts: ScreenRunOptions,
 ): Promise<ScreenRun> {
-  const planText = await readInputText(planFile, "the plan file");
-  const plan = parsePlanFileText(planText, planFile);
-  const profile = profileOf(plan, opts.profile);
+  const { plan, planFile, planText } = input;
   const files = await listClimateFiles(paths.map((p) => resolve(p)));
   const all = await stationUnits(files);
   const shard = opts.shard;

@@ -15,7 +15,7 @@ import type { MultiPolygon, Polygon, Position } from "geojson";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { parse, stringify } from "yaml";
 import type { ScreenResults } from "../../src/plan/screenResults.js";
-import { runScreen } from "../../src/plan/screenRun.js";
+import { readScreenPlan, runScreen } from "../../src/plan/screenRun.js";
 import { countryOutlines, type StationMap } from "../../src/report/screenMap.js";
 import { renderScreenPage, screenMap } from "../../src/report/screenPage.js";
 import { FIXTURE_TEXT } from "../plan/helpers.js";
@@ -99,9 +99,9 @@ describe("the screen's map of the real sample stations", () => {
     // the three stations with those months are screened.
     t.climate = { paths: ["unused"], minYearShare: 0.3, minYears: 1 };
     await writeFile(join(root, "plan.yaml"), stringify(t));
-    results = (
-      await runScreen(join(root, "plan.yaml"), [SAMPLES], { shard: null, workers: 1, cacheDir: null })
-    ).results as ScreenResults;
+    const input = await readScreenPlan(join(root, "plan.yaml"));
+    const run = await runScreen(input, "standard", [SAMPLES], { shard: null, workers: 1, cacheDir: null });
+    results = run.results as ScreenResults;
     map = screenMap(results);
     html = renderScreenPage(results);
   }, 300_000);
