@@ -6,8 +6,11 @@
  * `confidence.ts`, the status rule `monthStatus` of `decisions.ts` — so that a screen of a station gives
  * what a plan with those two stays there gives (docs/methods.md §8).
  */
+
+import type { DesignTemperatures } from "../climate/index.js";
 import type { HourlySeries, StationClimate } from "../climate/types.js";
 import { atmosphereOf, decisionThresholds, returnLevels, stationResult } from "./baseResult.js";
+import type { BreakEvenRow } from "./breakEven.js";
 import { baseConfidence } from "./confidence.js";
 import { type DecisionThresholds, monthStatus, needSeason, type StatusOutcome } from "./decisions.js";
 import { baseStatistics, monthlyColdestMornings } from "./monthStats.js";
@@ -16,13 +19,8 @@ import type { StayMonthRow } from "./results.js";
 import { baseClimate } from "./run.js";
 import { flownWeekdays, prepareSamples } from "./samples.js";
 import type { Stay } from "./schedule.js";
-import type {
-  BreakEvenMargin,
-  DesignTemperatures,
-  ScreenMonth,
-  ScreenStation,
-  ShareWithInterval,
-} from "./screenResults.js";
+import { nominalBreakEven } from "./screenExtras.js";
+import type { BreakEvenMargin, ScreenMonth, ScreenStation, ShareWithInterval } from "./screenResults.js";
 import { simulateBase, simulator } from "./simulateSamples.js";
 
 /**
@@ -36,25 +34,18 @@ export const SCREEN_REFERENCE_YEAR = 2001;
 export const SCREEN_AIRCRAFT = { without: "without-option", with: "with-option" } as const;
 
 /**
- * What the screen takes from beside the engine, per station: the design temperatures of its series and
- * the profile's equilibrium break-even temperatures at its atmosphere (`screenExtras.ts` provides them).
+ * What the screen takes from beside the engine, per station (`screenExtras.ts` provides them): the
+ * profile's equilibrium break-even temperatures at the station's atmosphere, and the design
+ * temperatures of its series (with the hours below those break-even temperatures).
  */
 export interface ScreenExtras {
-  /** Design temperatures of a station's series, or null with the reason. */
-  design(series: HourlySeries, timeZone: string): { value: DesignTemperatures | null; reason: string | null };
-  /** Break-even rows of the profile at atmospheric pressure `atmPa` (Pa absolute); null when not computed. */
-  breakEvenRows(atmPa: number): BreakEvenRow[] | null;
+  /** Break-even rows of the profile at atmospheric pressure `atmPa` (Pa absolute). */
+  breakEvenRows(atmPa: number): BreakEvenRow[];
+  /** Design temperatures of a station's series. */
+  design(series: HourlySeries, timeZone: string, breakEven: BreakEvenRow[]): DesignTemperatures;
 }
 
-/** One equilibrium break-even temperature of a profile: a number of units, precharge and system pressure lines. */
-export interface BreakEvenRow {
-  units: 1 | 2;
-  precharge: "low" | "nominal" | "high";
-  system: "low" | "nominal";
-  /** Ambient below which a charged start falls short, °C; null where there is none in the range searched. */
-  ambientC: number | null;
-  reason: string;
-}
+export type { BreakEvenRow };
 
 /**
  * The margins of a station's 1-in-10-year coldest morning over the break-even temperature with one
@@ -62,24 +53,24 @@ export interface BreakEvenRow {
  * (negative: mornings colder than the break-even come once in ten years or more often).
  *
  * @param coldest1in10C - the station's 1-in-10-year coldest morning, °C (null without one)
- * @param rows - the profile's break-even rows at the station's atmosphere
- * @example breakEvenMargins(-30, [{ units: 1, precharge: "nominal", system: "nominal", ambientC: -25, reason: "" }])
- *   // [{ units: 1, breakEvenC: -25, marginC: -5, reason: null }]
+ * @param rows - the profile's break-even rows at the station's atmosphere (`equilibriumBreakEven`)
+ * @example breakEvenMargins(-30, rows) // [{ units: 1, breakEvenC: -25, marginC: -5, reason: null }, …]
  */
 export function breakEvenMargins(coldest1in10C: number | null, rows: BreakEvenRow[]): BreakEvenMargin[] {
-  return rows
-    .filter((r) => r.precharge === "nominal" && r.system === "nominal")
-    .sort((a, b) => a.units - b.units)
-    .map((r) => {
-      const reason =
-        r.ambientC === null ? r.reason : coldest1in10C === null ? "no 1-in-10-year coldest morning" : null;
-      return {
-        units: r.units,
-        breakEvenC: r.ambientC,
-        marginC: reason === null ? coldest1in10C! - r.ambientC! : null,
-        reason,
-      };
-    });
+  return nominalBreakEven(rows).map((r) => {
+    const reason =
+      r.ambientC === null
+        ? `no break-even in the range searched (${r.reason})`
+        : coldest1in10C === null
+          ? "no 1-in-10-year coldest morning"
+          : null;
+    return {
+      units: r.units,
+      breakEvenC: r.ambientC,
+      marginC: reason === null ? coldest1in10C! - r.ambientC! : null,
+      reason,
+    };
+  });
 }
 
 /** The two whole-year stays of a station: without the option, then with it. */
@@ -188,7 +179,6 @@ export function screenStation(
     };
   });
   const rows = extras.breakEvenRows(base!.climate.atmPa);
-  const design = extras.design(base!.climate.series, base!.climate.timeZone);
   const needing = months.filter((m) => m.needsOption).map((m) => m.month);
   const season = needSeason(needing);
   return {
@@ -204,9 +194,8 @@ export function screenStation(
     fitBy: season?.fitBy ?? null,
     notNeededAfter: season?.notNeededAfter ?? null,
     monthsStillShort: months.filter((m) => m.statusWithOption === "act").map((m) => m.month),
-    breakEven: rows === null ? [] : breakEvenMargins(statistics.coldest1in10C, rows),
-    design: design.value,
-    designReason: design.reason,
+    breakEven: breakEvenMargins(statistics.coldest1in10C, rows),
+    design: extras.design(base!.climate.series, base!.climate.timeZone, rows),
     months,
     warnings,
   };

@@ -1,19 +1,34 @@
 /**
- * The screen's figures from beside the planning engine, per station: design temperatures of the
- * station's series and the profile's equilibrium break-even temperatures at the station's atmosphere
- * (`ScreenExtras` of `screen.ts`). This version of the tool computes neither: every station says so in
- * `designReason`, and its `breakEven` list is empty.
+ * The screen's figures from beside the planning engine, per station (`ScreenExtras` of `screen.ts`):
+ * the climate design temperatures of the station's series (`climate/designTemps.ts`, on the plan's
+ * years and share of hours, with the hours below the profile's break-even temperatures) and the
+ * profile's equilibrium break-even temperatures at the station's atmosphere (`breakEven.ts`, on the
+ * real-gas model over the energy range of the plan's units).
  */
+import { designTemperatures } from "../climate/index.js";
+import { realGas } from "../physics/nitrogen.js";
+import { defaultEnergyRangeK, equilibriumBreakEven } from "./breakEven.js";
 import type { PlanFile } from "./planFile.js";
-import type { ScreenExtras } from "./screen.js";
+import type { BreakEvenRow, ScreenExtras } from "./screen.js";
 
-/** The reason given where design temperatures are not computed. */
-export const DESIGN_NOT_COMPUTED = "design temperatures are not computed by this version of the tool";
+/** The break-even temperatures the margins and the hours below are taken at: nominal precharge and system pressure. */
+export function nominalBreakEven(rows: BreakEvenRow[]): BreakEvenRow[] {
+  return rows
+    .filter((r) => r.precharge === "nominal" && r.system === "nominal")
+    .sort((a, b) => a.units - b.units);
+}
 
-/** The extras of a screen of `plan` against profile `profile`. */
-export function screenExtras(_plan: PlanFile, _profile: string): ScreenExtras {
+/** The extras of a screen of `plan` against its profile named `profile`. */
+export function screenExtras(plan: PlanFile, profile: string): ScreenExtras {
+  const p = plan.profiles.find((x) => x.name === profile)!;
+  const range = defaultEnergyRangeK(plan.units);
   return {
-    design: () => ({ value: null, reason: DESIGN_NOT_COMPUTED }),
-    breakEvenRows: () => null,
+    breakEvenRows: (atmPa) => equilibriumBreakEven(p, atmPa, realGas, range),
+    design: (series, timeZone, rows) =>
+      designTemperatures(series, timeZone, {
+        years: plan.climate.years ?? null,
+        minYearShare: plan.climate.minYearShare,
+        coldThresholdsC: nominalBreakEven(rows).flatMap((r) => (r.ambientC === null ? [] : [r.ambientC])),
+      }),
   };
 }

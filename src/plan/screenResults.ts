@@ -4,6 +4,7 @@
  * CSV are written from it alone, and so is the merge of sharded runs. Units are fixed as in
  * `results.json`: °C, kPa absolute, %; `null` where there is nothing to count. No wall-clock time.
  */
+import type { DesignTemperatures, HoursBelow, MonthDesignTemperature } from "../climate/designTemps.js";
 import type { AtmosphereResult, ColdestReturnLevels, StationResult, StatusName, Units } from "./results.js";
 
 /** A share, % (null where nothing is counted), with its 90 % interval over climate years (docs/methods.md §6). */
@@ -48,8 +49,8 @@ export interface BreakEvenMargin {
   reason: string | null;
 }
 
-/** A station's design temperatures, as the module computing them gives them. */
-export type DesignTemperatures = Record<string, unknown>;
+/** Climate design temperatures of a station (`climate/designTemps.ts`), as `screen.json` holds them. */
+export type { DesignTemperatures, HoursBelow, MonthDesignTemperature };
 
 /** One station of the screen. */
 export interface ScreenStation extends ColdestReturnLevels {
@@ -71,11 +72,10 @@ export interface ScreenStation extends ColdestReturnLevels {
   notNeededAfter: number | null;
   /** Local months still short with the option fitted. */
   monthsStillShort: number[];
-  /** One and two accumulators, where the break-even is known; empty when not computed. */
+  /** One and two accumulators, nominal precharge and system pressure. */
   breakEven: BreakEvenMargin[];
-  /** Null when not computed or not available (`designReason` says why). */
-  design: DesignTemperatures | null;
-  designReason: string | null;
+  /** Climate design temperatures of the station's series, with the hours below the break-even temperatures. */
+  design: DesignTemperatures;
   months: ScreenMonth[];
   warnings: string[];
 }

@@ -8,6 +8,9 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { beforeAll, describe, expect, it } from "vitest";
 import { parse, stringify } from "yaml";
+import { designTemperatures } from "../../src/climate/designTemps.js";
+import { realGas } from "../../src/physics/nitrogen.js";
+import { defaultEnergyRangeK, equilibriumBreakEven } from "../../src/plan/breakEven.js";
 import { type BaseClimate, runPlan } from "../../src/plan/engine.js";
 import { type Plan, parsePlanFileText, parsePlanText } from "../../src/plan/planFile.js";
 import type { Results } from "../../src/plan/results.js";
@@ -109,11 +112,43 @@ describe("screen of the demo's stations = plans with one aircraft there all year
     }
   });
 
-  it("says where the extras are not computed", () => {
-    for (const s of screened) {
-      expect(s.breakEven).toEqual([]);
-      expect(s.design).toBeNull();
-      expect(s.designReason).toMatch(/not computed/);
-    }
+  it("gives the break-even margins and design temperatures of the engineer's modules at the station", () => {
+    // Margin = the station's 1-in-10-year coldest morning minus the equilibrium break-even temperature
+    // at nominal precharge and system pressure (docs/methods.md, "Break-even temperatures"); the design
+    // temperatures are those of the station's own series on the plan's years (docs/methods.md,
+    // "Climate design temperatures").
+    const file = parsePlanFileText(demoText(), DEMO);
+    const profile = file.profiles.find((p) => p.name === "utility")!;
+    plan.bases.forEach((b, i) => {
+      const s = screened[i]!;
+      const bc = climate.get(b.name)!;
+      const rows = equilibriumBreakEven(
+        profile,
+        without.bases[i]!.atmosphere.pressureKPaAbsolute * 1000,
+        realGas,
+        defaultEnergyRangeK(file.units),
+      );
+      const nominal = rows.filter((r) => r.precharge === "nominal" && r.system === "nominal");
+      expect(s.breakEven.map((m) => m.units)).toEqual([1, 2]);
+      for (const m of s.breakEven) {
+        const r = nominal.find((x) => x.units === m.units)!;
+        if (r.ambientC === null) {
+          expect([m.breakEvenC, m.marginC]).toEqual([null, null]);
+          expect(m.reason).toContain(r.reason);
+          continue;
+        }
+        expect(m.breakEvenC).toBeCloseTo(r.ambientC, 6);
+        if (s.coldest1in10C === null)
+          expect([m.marginC, m.reason]).toEqual([null, "no 1-in-10-year coldest morning"]);
+        else expect(m.marginC).toBeCloseTo(s.coldest1in10C - r.ambientC!, 6);
+      }
+      const design = designTemperatures(bc.series, bc.timeZone, {
+        years: { from: 2011, to: 2014 },
+        minYearShare: file.climate.minYearShare,
+        coldThresholdsC: nominal.flatMap((r) => (r.ambientC === null ? [] : [r.ambientC])),
+      });
+      expect(s.design).toEqual(design);
+      expect(s.design.years).toEqual([2011, 2012, 2013, 2014]);
+    });
   });
 });
