@@ -11,7 +11,6 @@ import type { Chart } from "./charts.js";
 import type { Status } from "./shared.js";
 import { buildView } from "./view.js";
 
-export { writePdf } from "./pdf.js";
 
 const TEMPLATE_DIR = new URL("../../templates/", import.meta.url);
 
@@ -66,6 +65,15 @@ function template(): Handlebars.TemplateDelegate {
     noEscape: false,
   });
   return compiled;
+}
+
+/**
+ * Prints a written report to PDF (`pdf.ts`); the browser driver is loaded on the first call only, so
+ * rendering the HTML never loads it.
+ */
+export async function writePdf(...args: Parameters<typeof import("./pdf.js").writePdf>) {
+  const pdf = await import("./pdf.js");
+  return pdf.writePdf(...args);
 }
 
 /** Renders the self-contained HTML planning report from the results alone. */

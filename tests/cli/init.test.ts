@@ -2,7 +2,7 @@ import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "no
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { planNameFromFolder } from "../../src/cli/init.js";
+import { planNameFromFolder } from "../../src/cli/initRun.js";
 import { main } from "../../src/cli/main.js";
 import { loadPlan } from "../../src/plan/planFile.js";
 import { parseScheduleText } from "../../src/plan/schedule.js";
