@@ -3,7 +3,7 @@
  * period, hours, completeness, quality-control counts, monthly local-time climatology and extremes
  * (docs/methods.md, "Climate data"). `--json` prints the same as JSON on stdout.
  */
-import { SingleBar } from "cli-progress";
+import type { SingleBar } from "cli-progress";
 import { DateTime } from "luxon";
 import {
   type ClimateOptions,
@@ -131,11 +131,11 @@ export function climateCsv(stations: StationSummary[], units: Units): string {
   return `${rows.join("\r\n")}\r\n`;
 }
 
-/** The `--json` document; temperatures always in °C. */
-export function climateJson(stations: StationClimate[]): unknown {
+/** The `--json` document of the stations and their summaries (in the same order); temperatures always in °C. */
+export function climateJson(stations: StationClimate[], summaries: StationSummary[]): unknown {
   return {
-    stations: stations.map((s) => ({
-      ...stationSummary(s),
+    stations: stations.map((s, i) => ({
+      ...summaries[i]!,
       callLetters: s.meta.callLetters,
       meanStationPressureHpa:
         s.meanStationPressureHpa === null ? null : Math.round(s.meanStationPressureHpa * 10) / 10,
@@ -146,14 +146,19 @@ export function climateJson(stations: StationClimate[]): unknown {
 export async function runClimate(paths: string[], opts: ClimateCliOptions): Promise<void> {
   const gapHours = parseGapHours(opts.gapHours);
   let bar: SingleBar | null = null;
+  // The progress bar's library is loaded only where a bar can be drawn.
+  const progress = process.stderr.isTTY ? await import("cli-progress") : null;
   const options: ClimateOptions = {
     gapHours,
     cacheDir: opts.cache ? opts.cacheDir : null,
     onWarning: (w) => process.stderr.write(`coldsoak: warning: ${w}\n`),
     onProgress: (done, total) => {
-      if (total < PROGRESS_MIN_FILES || !process.stderr.isTTY) return;
+      if (total < PROGRESS_MIN_FILES || progress === null) return;
       if (bar === null) {
-        bar = new SingleBar({ stream: process.stderr, format: "climate files [{bar}] {value}/{total}" });
+        bar = new progress.SingleBar({
+          stream: process.stderr,
+          format: "climate files [{bar}] {value}/{total}",
+        });
         bar.start(total, 0);
       }
       bar.update(done);
@@ -183,6 +188,6 @@ export async function runClimate(paths: string[], opts: ClimateCliOptions): Prom
   }
   const summaries = stations.map(stationSummary);
   if (opts.csv !== undefined) await writeFileAtomic(opts.csv, climateCsv(summaries, opts.units));
-  if (opts.json) process.stdout.write(`${JSON.stringify(climateJson(stations), null, 2)}\n`);
+  if (opts.json) process.stdout.write(`${JSON.stringify(climateJson(stations, summaries), null, 2)}\n`);
   else process.stdout.write(`${summaries.map((s) => formatStation(s, opts.units)).join("\n\n")}\n`);
 }

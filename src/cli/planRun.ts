@@ -4,7 +4,7 @@
  * only after every file is written (see outputFolder.ts).
  */
 import { join, resolve } from "node:path";
-import { SingleBar } from "cli-progress";
+import type { SingleBar } from "cli-progress";
 import { inputError } from "../errors.js";
 import { resultsJson, resultTables, toCsv } from "../output/tables.js";
 import { runPlan } from "../plan/engine.js";
@@ -65,13 +65,19 @@ export function summaryText(r: Results): string {
   return lines.join("\n");
 }
 
-function progressBar(label: string): { update: (done: number, total: number) => void; stop: () => void } {
+/** The progress bar library, loaded only where a bar can be drawn (stderr is a terminal). */
+type Bars = typeof import("cli-progress") | null;
+
+function progressBar(
+  bars: Bars,
+  label: string,
+): { update: (done: number, total: number) => void; stop: () => void } {
   let bar: SingleBar | null = null;
   return {
     update(done, total) {
-      if (!process.stderr.isTTY) return;
+      if (bars === null) return;
       if (bar === null) {
-        bar = new SingleBar({
+        bar = new bars.SingleBar({
           stream: process.stderr,
           format: `${label} [{bar}] {value}/{total}`,
           hideCursor: true,
@@ -128,7 +134,8 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
     plan.bases.map((b) => b.name),
     plan.profiles.map((p) => p.name),
   );
-  const files = progressBar("climate files");
+  const bars: Bars = process.stderr.isTTY ? await import("cli-progress") : null;
+  const files = progressBar(bars, "climate files");
   const climateWarnings: string[] = [];
   const cacheDir = cacheDirOf(plan, opts);
   const climate = await loadPlanClimate(plan, {
@@ -137,7 +144,7 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
     onWarning: (w) => climateWarnings.push(w),
   });
   files.stop();
-  const sims = progressBar("stay-years");
+  const sims = progressBar(bars, "stay-years");
   const { results } = runPlan(plan, stays, climate, { onProgress: sims.update });
   sims.stop();
   const out = new Map<string, string>();

@@ -4,6 +4,7 @@
  * through the cache.
  */
 import { readdir, realpath, stat } from "node:fs/promises";
+import { availableParallelism } from "node:os";
 import { basename, join, resolve } from "node:path";
 import { inputError } from "../errors.js";
 import { type FileKind, readFailure, specialFileKind } from "../fsutil.js";
@@ -14,7 +15,7 @@ import { readFilesInWorkers, workersAvailable } from "./pool.js";
 import { partsOfFile, qualityControl, type StationPart } from "./qc.js";
 import { MISSING_ELEV, type ParsedFile } from "./records.js";
 import { type ReadOptions, readClimateFile } from "./source.js";
-import { type HistoryEntry, readStationHistory } from "./stationHistory.js";
+import type { HistoryEntry } from "./stationHistory.js";
 import {
   type ClimateOptions,
   DEFAULT_CACHE_DIR,
@@ -23,7 +24,13 @@ import {
   type StationClimate,
 } from "./types.js";
 
-/** Below this many files the worker threads cost more than they save. */
+/**
+ * Whole files go to worker threads only on machines with at least this many cores and for at least
+ * MIN_FILES_FOR_WORKERS files. On fewer cores the main thread parses while libuv's thread pool
+ * decompresses the next files: both cores are busy without the start-up, module loading and compiler
+ * warm-up a worker thread pays (about as much CPU as parsing twenty station-years).
+ */
+const MIN_CORES_FOR_WORKERS = 4;
 const MIN_FILES_FOR_WORKERS = 4;
 
 /**
@@ -80,19 +87,37 @@ function refuseSpecialFile(path: string, st: FileKind): void {
     throw inputError(path, undefined, undefined, `is ${why}, not a regular file; expected a climate file`);
 }
 
-/** Reads the files (on worker threads when there are several and the compiled worker exists). */
+/**
+ * Reads the files, results in the order given. Several files are in flight at once (one more than the
+ * cores), so their decompression on libuv's thread pool runs ahead while this thread parses; on
+ * machines with many cores, whole files go to worker threads instead (when the compiled worker exists).
+ */
 export async function readClimateFiles(
   files: string[],
   options: ReadOptions,
   onProgress?: (done: number, total: number) => void,
 ): Promise<ParsedFile[]> {
-  if (files.length >= MIN_FILES_FOR_WORKERS && workersAvailable())
-    return readFilesInWorkers(files, options, undefined, (d) => onProgress?.(d, files.length));
-  const out: ParsedFile[] = [];
-  for (const f of files) {
-    out.push(await readClimateFile(f, options));
-    onProgress?.(out.length, files.length);
-  }
+  const cores = availableParallelism();
+  if (cores >= MIN_CORES_FOR_WORKERS && files.length >= MIN_FILES_FOR_WORKERS && workersAvailable())
+    return readFilesInWorkers(files, options, cores, (d) => onProgress?.(d, files.length));
+  const out: ParsedFile[] = new Array(files.length);
+  // The first failing file in the given order is the one reported, as if read one after another.
+  const failures: { index: number; err: unknown }[] = [];
+  let next = 0;
+  let done = 0;
+  const reader = async () => {
+    while (next < files.length && failures.length === 0) {
+      const i = next++;
+      try {
+        out[i] = await readClimateFile(files[i]!, options);
+        onProgress?.(++done, files.length);
+      } catch (err) {
+        failures.push({ index: i, err });
+      }
+    }
+  };
+  await Promise.all(Array.from({ length: Math.min(files.length, cores + 1) }, reader));
+  if (failures.length > 0) throw failures.reduce((a, b) => (b.index < a.index ? b : a)).err;
   return out;
 }
 
@@ -258,7 +283,10 @@ export async function loadClimateSelection(
   let selection = options.cacheDir !== null && key !== null ? await readCache(options.cacheDir, key) : null;
   if (selection !== null) options.onProgress?.(files.length, files.length);
   else {
-    const history = historyPath ? await readStationHistory(historyPath) : null;
+    // The station list's CSV reader is loaded only when a station list is given.
+    const history = historyPath
+      ? await (await import("./stationHistory.js")).readStationHistory(historyPath)
+      : null;
     const parsed = await readClimateFiles(
       files,
       { stationIdOverride: options.stationIdOverride },
