@@ -12,9 +12,10 @@ import { loadPlan, type Plan } from "../plan/planFile.js";
 import type { Results } from "../plan/results.js";
 import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
-import { renderReport, writePdf } from "../report/index.js";
+import { renderReport, startChartWorkers, writePdf } from "../report/index.js";
 import { formatDisplay, pct, showWithUnit, unitSystem } from "../units/index.js";
 import { writeOutputFolder } from "./outputFolder.js";
+import { noteRunStat } from "./runStats.js";
 
 export interface PlanCliOptions {
   schedule?: string;
@@ -114,6 +115,8 @@ export interface PlanRun {
 
 /** Runs a plan file end to end; returns the output folder and the results. */
 export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Promise<PlanRun> {
+  // The chart workers load the chart library while the plan is read and simulated.
+  startChartWorkers();
   const plan: Plan = await loadPlan(planFile);
   const scheduleFile =
     opts.schedule !== undefined
@@ -145,7 +148,9 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
   });
   files.stop();
   const sims = progressBar(bars, "stay-years");
-  const { results } = runPlan(plan, stays, climate, { onProgress: sims.update });
+  const { results, stats } = runPlan(plan, stays, climate, { onProgress: sims.update });
+  noteRunStat("simulationS", stats.simulationS);
+  noteRunStat("accumulatorHours", stats.accumulatorHours);
   sims.stop();
   const out = new Map<string, string>();
   out.set("results.json", resultsJson(results));
