@@ -69,9 +69,16 @@ export async function withChartBatch<T>(build: () => Promise<T>): Promise<T> {
 /** Renderings in this thread, one after the other (each waits for the one before). */
 let inThread: Promise<unknown> = Promise.resolve();
 
-/** The SVG markup of a spec: on a chart worker where they exist, else in this thread. */
+/**
+ * The SVG markup of a spec: on a chart worker where they exist, else (or when the worker fails, e.g. out
+ * of its memory) in this thread.
+ */
 function renderSpec(spec: Spec): Promise<string> {
-  if (chartWorkersAvailable()) return renderOnWorker(spec);
+  if (chartWorkersAvailable()) return renderOnWorker(spec).catch(() => renderInThread(spec));
+  return renderInThread(spec);
+}
+
+function renderInThread(spec: Spec): Promise<string> {
   const svg = inThread.then(async () => (await import("./chartRender.js")).specToSvg(spec));
   inThread = svg.catch(() => undefined);
   return svg;

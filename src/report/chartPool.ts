@@ -58,8 +58,16 @@ function dispatch(): void {
   }
 }
 
+/**
+ * Heap limits of a chart worker, MB: a chart's own data is small and vega's code and caches stay well
+ * inside them, while V8's default limits let a worker's heap grow to about twice the memory it needs
+ * before collecting. A worker that still runs out fails alone: its charts are drawn in the main thread
+ * (chartBatch.ts).
+ */
+const CHART_WORKER_LIMITS = { maxYoungGenerationSizeMb: 8, maxOldGenerationSizeMb: 48 };
+
 function spawn(): Slot {
-  const slot: Slot = { worker: new Worker(WORKER_URL), job: null };
+  const slot: Slot = { worker: new Worker(WORKER_URL, { resourceLimits: CHART_WORKER_LIMITS }), job: null };
   slot.worker.on("message", (r: { id: number; svg?: string; error?: string }) => {
     const job = slot.job;
     if (job === null || job.id !== r.id) return;
