@@ -15,7 +15,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { gunzipSync, gzipSync } from "node:zlib";
-import { buildStations } from "../climate/load.js";
+import { buildStations } from "../climate/build.js";
 import { readFilesInWorkers, workersAvailable } from "../climate/pool.js";
 import { readChunks, readClimateFile } from "../climate/source.js";
 import { type Figure, figureOf, REPEATS } from "./harness.js";

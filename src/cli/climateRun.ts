@@ -5,14 +5,9 @@
  */
 import type { SingleBar } from "cli-progress";
 import { DateTime } from "luxon";
-import {
-  type ClimateOptions,
-  DROP_REASONS,
-  loadClimate,
-  type StationClimate,
-  type StationSummary,
-  stationSummary,
-} from "../climate/index.js";
+import { loadClimate } from "../climate/load.js";
+import { type StationSummary, stationSummary } from "../climate/summary.js";
+import { type ClimateOptions, DROP_REASONS, type StationClimate } from "../climate/types.js";
 import { InputError } from "../errors.js";
 import { writeFileAtomic } from "../fsutil.js";
 import { formatDisplay, pct, show, type Units, unitSystem } from "../units/index.js";
@@ -151,6 +146,7 @@ export async function runClimate(paths: string[], opts: ClimateCliOptions): Prom
   const options: ClimateOptions = {
     gapHours,
     cacheDir: opts.cache ? opts.cacheDir : null,
+    summarize: true,
     onWarning: (w) => process.stderr.write(`coldsoak: warning: ${w}\n`),
     onProgress: (done, total) => {
       if (total < PROGRESS_MIN_FILES || progress === null) return;

@@ -15,7 +15,7 @@ import { readFile, stat } from "node:fs/promises";
 import { endianness } from "node:os";
 import { join } from "node:path";
 import { writeFileAtomic } from "../fsutil.js";
-import { DROP_REASONS, type StationClimate } from "./types.js";
+import { DROP_REASONS, type MonthClimate, type StationClimate } from "./types.js";
 
 /** Bump whenever a reader or a rule changes what a file turns into. */
 export const READER_VERSION = "climate-reader-2";
@@ -78,6 +78,8 @@ interface CachedStation {
   extremes: StationClimate["extremes"];
   meanStationPressureHpa: number | null;
   malformedExamples: string[];
+  /** The monthly climatology, when it was computed before the entry was written. */
+  months?: MonthClimate[];
 }
 
 interface CacheBody {
@@ -130,6 +132,20 @@ function asExtremes(v: unknown): CachedStation["extremes"] | undefined {
   return { minC, minUtc, maxC, maxUtc };
 }
 
+/** Twelve months 1–12, each figure a number or null; undefined when absent or of another shape. */
+function asMonths(v: unknown): MonthClimate[] | undefined {
+  if (!Array.isArray(v) || v.length !== 12) return undefined;
+  const figure = (x: unknown) => x === null || isNumber(x);
+  const months: MonthClimate[] = [];
+  for (const [i, m] of v.entries()) {
+    if (!isObject(m) || m["month"] !== i + 1) return undefined;
+    const { minC, meanC, maxC, meanDailyRangeC, p90DailyRangeC } = m;
+    if (![minC, meanC, maxC, meanDailyRangeC, p90DailyRangeC].every(figure)) return undefined;
+    months.push({ month: i + 1, minC, meanC, maxC, meanDailyRangeC, p90DailyRangeC } as MonthClimate);
+  }
+  return months;
+}
+
 function asStation(v: unknown): CachedStation | null {
   if (!isObject(v)) return null;
   const meta = asMeta(v["meta"]);
@@ -140,7 +156,10 @@ function asStation(v: unknown): CachedStation | null {
   if (!isCount(hours) || !isCount(tempOffset) || !isCount(filledOffset)) return null;
   if (!(meanStationPressureHpa === null || isNumber(meanStationPressureHpa)) || !isStrings(malformedExamples))
     return null;
+  const months = asMonths(v["months"]);
+  if (v["months"] !== undefined && months === undefined) return null;
   return {
+    ...(months ? { months } : {}),
     meta,
     startUtcMs,
     hours,
@@ -210,6 +229,7 @@ function encode({ stations, skipped }: CachedSelection): { body: string; data: B
       extremes: s.extremes,
       meanStationPressureHpa: s.meanStationPressureHpa,
       malformedExamples: s.malformedExamples,
+      ...(s.months ? { months: s.months } : {}),
     })),
     skipped,
   });
@@ -246,6 +266,7 @@ function decode(body: string, data: Buffer): CachedSelection | null {
       extremes: s.extremes,
       meanStationPressureHpa: s.meanStationPressureHpa,
       malformedExamples: s.malformedExamples,
+      ...(s.months ? { months: s.months } : {}),
     });
   }
   return { stations: out, skipped };

@@ -3,12 +3,21 @@
  * daylight saving from luxon (never by hand), and the local calendar day and month of every grid hour
  * (the climatology built on them is `climatology.ts`).
  */
-import tzLookup from "@photostructure/tz-lookup";
+import { createRequire } from "node:module";
 import { IANAZone } from "luxon";
 import { HOUR_MS, type HourlySeries } from "./types.js";
 
-/** IANA time zone at a point (degrees); throws on coordinates outside ±90°/±180°. */
+let tzLookup: ((lat: number, lon: number) => string) | null = null;
+
+/**
+ * IANA time zone at a point (degrees); throws on coordinates outside ±90°/±180°. The zone map is
+ * loaded on the first call (a station read from the cache already has its zone).
+ */
 export function timeZoneFor(lat: number, lon: number): string {
+  tzLookup ??= createRequire(import.meta.url)("@photostructure/tz-lookup") as (
+    lat: number,
+    lon: number,
+  ) => string;
   return tzLookup(lat, lon);
 }
 
