@@ -1,33 +1,8 @@
 /**
- * `coldsoak screen-merge <partial files...> [--out dir]`: merges the partials of a sharded screen
- * (`screen-part-k-of-n.json`, every shard once) into `out/<plan name>-screen/`, the same folder the
- * unsharded screen writes (README, "Scale past one machine"). Partials of another plan file, profile,
- * setting or tool version, a missing or repeated shard, a station in two shards: exit 2.
+ * `coldsoak screen-merge`: the command's definition (arguments, options, help). Its work,
+ * `screenMergeRun.ts`, is loaded only when the command runs.
  */
-import { join } from "node:path";
 import type { Command } from "commander";
-import { readInputText } from "../fsutil.js";
-import { mergePartials, parsePartial } from "../plan/screenMerge.js";
-import type { ScreenResults } from "../plan/screenResults.js";
-import { screenSummary, writeScreenFolder } from "./screen.js";
-
-/** Largest partial read (a partial holds some 10 kB per station). */
-const MAX_PARTIAL_BYTES = 512 * 1024 * 1024;
-
-/** Reads and merges the partials, writes the screen's folder; returns it and the merged results. */
-export async function runScreenMerge(
-  files: string[],
-  opts: { out: string },
-): Promise<{ folder: string; results: ScreenResults }> {
-  const parts = [];
-  for (const file of files)
-    parts.push({
-      file,
-      partial: parsePartial(await readInputText(file, "the partial", MAX_PARTIAL_BYTES), file),
-    });
-  const results = mergePartials(parts);
-  return { folder: await writeScreenFolder(opts.out, results), results };
-}
 
 export function registerScreenMerge(program: Command): void {
   program
@@ -45,7 +20,7 @@ Example:
   coldsoak screen-merge parts/screen-part-*-of-50.json --out results`,
     )
     .action(async (files: string[], opts: { out: string }) => {
-      const { folder, results } = await runScreenMerge(files, opts);
-      process.stdout.write(`${screenSummary(results)}\n${join(folder, "screen.html")}\n`);
+      const { screenMergeAction } = await import("./screenMergeRun.js");
+      await screenMergeAction(files, opts);
     });
 }

@@ -27,7 +27,7 @@ import {
 import type { FeatureCollection, GeometryObject, MultiPoint, MultiPolygon, Polygon } from "geojson";
 import { feature, mesh } from "topojson-client";
 import type { GeometryCollection, Topology } from "topojson-specification";
-import { escapeXml } from "./charts.js";
+import { escapeXml } from "./chartBatch.js";
 
 /** Outline resolutions of the atlas: 1:50 m for regions, 1:110 m for the whole globe. */
 export type AtlasScale = "50m" | "110m";
