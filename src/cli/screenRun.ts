@@ -17,6 +17,7 @@ import { partialName } from "../plan/screenMerge.js";
 import type { ScreenResults } from "../plan/screenResults.js";
 import { readScreenPlan, runScreen } from "../plan/screenRun.js";
 import { parseShard } from "../plan/shard.js";
+import { warmAtlas } from "../report/screenMap.js";
 import { renderScreenPage } from "../report/screenPage.js";
 import { profileOption } from "./options.js";
 import { writeOutputFolder } from "./outputFolder.js";
@@ -76,6 +77,8 @@ export async function runScreenCommand(
   const input = await readScreenPlan(planFile);
   const profile = profileOption(input.plan, opts.profile).name;
   const bar = progressBar(await loadBars(), "stations", true);
+  // The map's outlines are read while the files are named and the workers screen (not for a shard).
+  const warm = shard === null ? setTimeout(warmAtlas, 0) : null;
   const run = await runScreen(input, profile, climate, {
     shard,
     workers: workersOption(opts.workers),
@@ -83,6 +86,7 @@ export async function runScreenCommand(
     onProgress: bar.update,
   });
   bar.stop();
+  if (warm !== null) clearTimeout(warm);
   if (shard === null)
     return {
       written: await writeScreenFolder(opts.out, run.results),

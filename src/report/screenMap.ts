@@ -46,6 +46,40 @@ export function atlas(scale: AtlasScale): Topology {
   return topo;
 }
 
+/** The drawn layers of the atlas at one scale: land (filled), coastlines and borders, as geometry. */
+interface AtlasLayers {
+  landFill: GeoJSON.FeatureCollection;
+  coast: GeoJSON.MultiLineString;
+  borders: GeoJSON.MultiLineString;
+}
+
+const layers = new Map<AtlasScale, AtlasLayers>();
+
+/** The layers of the atlas at one scale (converted from TopoJSON once per process). */
+function atlasLayers(scale: AtlasScale): AtlasLayers {
+  let l = layers.get(scale);
+  if (l === undefined) {
+    const topo = atlas(scale);
+    const countries = topo.objects["countries"] as GeometryCollection;
+    l = {
+      landFill: feature(topo, countries) as GeoJSON.FeatureCollection,
+      coast: mesh(topo, countries, (a, b) => a === b),
+      borders: mesh(topo, countries, (a, b) => a !== b),
+    };
+    layers.set(scale, l);
+  }
+  return l;
+}
+
+/**
+ * Reads and converts the atlas at both scales ahead of the first map, so that a screen does it while
+ * its workers run rather than after them. Maps are the same with or without it.
+ */
+export function warmAtlas(): void {
+  atlasLayers("50m");
+  atlasLayers("110m");
+}
+
 /** Every country outline of the atlas at one scale, named as Natural Earth names them. */
 export function countryOutlines(
   scale: AtlasScale,
@@ -196,12 +230,11 @@ function pointSvg(s: MapStation, x: number, y: number): string {
 export function stationMap(stations: MapStation[], title: string, id = "screen-map"): StationMap {
   const coords = stations.map((s) => [s.lon, s.lat] as [number, number]);
   const { projection, scale } = projectionFor(coords);
-  const topo = atlas(scale);
+  const layer = atlasLayers(scale);
   const path = geoPath({ stream: (out) => projection.stream(dropNearVertices(out)) }).digits(1);
-  const countries = topo.objects["countries"] as GeometryCollection;
-  const land = path(mesh(topo, countries, (a, b) => a === b)) ?? "";
-  const landFill = path(feature(topo, countries)) ?? "";
-  const borders = path(mesh(topo, countries, (a, b) => a !== b)) ?? "";
+  const land = path(layer.coast) ?? "";
+  const landFill = path(layer.landFill) ?? "";
+  const borders = path(layer.borders) ?? "";
   const points: StationMap["points"] = [];
   const order = stations
     .map((s, i) => ({ s, i }))
