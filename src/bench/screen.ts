@@ -4,12 +4,14 @@
  * generator (sample-data/climate/999702-99999-2011.gz, a cold continental invented station, full ISD
  * format; the real samples in ../shared/isd-samples hold January to April only, too little for a
  * usable year) with the station id moved to invented ids (ISD positions 5–15) and the year moved
- * (16–19), every station five years.
+ * (16–19).
  *
- * - Throughput: the same 60 station-years with `--workers 1` and `--workers 2`, in A/B pairs side by
- *   side (harness.ts); station-years per second of the whole command, and the speed-up of each pair.
+ * - Throughput: 10 stations × 10 years with `--workers 1` and `--workers 2`, in A/B pairs side by
+ *   side (harness.ts); station-years per second of the whole command (start-up, naming the files and
+ *   writing the page included), and the speed-up of each pair.
  * - Memory: peak RSS (COLDSOAK_RUN_STATS, all threads) of screens of 50 and of 200 station-years
- *   (10 and 40 stations), two workers: flat when stations are streamed through the workers.
+ *   (10 and 40 stations of five years), two workers: flat when stations are streamed through the
+ *   workers.
  */
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -33,11 +35,12 @@ const CLI = fileURLToPath(new URL("../cli/main.js", import.meta.url));
 const SOURCE = "999702-99999-2011.gz";
 const SOURCE_FILE = fileURLToPath(new URL(`../../sample-data/climate/${SOURCE}`, import.meta.url));
 
-/** Years per generated station, and the first of them. */
-const YEARS = 5;
+/** The first generated year. */
 const FIRST_YEAR = 1990;
-/** Stations of the throughput case (60 station-years: enough units to keep two workers busy). */
-const THROUGHPUT_STATIONS = 12;
+/** The throughput case: stations (an even number of equal units for two workers) and years each. */
+const THROUGHPUT = { stations: 10, years: 10 };
+/** Years per station in the memory cases. */
+const MEMORY_YEARS = 5;
 /** Station-years of the two memory cases. */
 const MEMORY_STATION_YEARS = [50, 200] as const;
 /** Runs of each memory case (peak memory varies little from run to run). */
@@ -47,17 +50,17 @@ const MEMORY_RUNS = 2;
 const stationId = (i: number) => ({ usaf: String(998_000 + i), wban: "99999" });
 
 /**
- * Writes `stations` × YEARS generated station-years into `dir` (one gzip file each, named as ISD names
- * them); returns the source's description.
+ * Writes `stations` × `years` generated station-years (from FIRST_YEAR) into `dir`, one gzip file each,
+ * named as ISD names them; returns the source's description.
  */
-export function screenClimate(dir: string, stations: number): string {
+export function screenClimate(dir: string, stations: number, years: number): string {
   mkdirSync(dir, { recursive: true });
   const text = gunzipSync(readFileSync(SOURCE_FILE)).toString("latin1");
   const year = text.slice(15, 19);
   const at = new RegExp(`^(.{4}).{11}${year}`, "gm");
   for (let i = 0; i < stations; i++) {
     const { usaf, wban } = stationId(i);
-    for (let y = FIRST_YEAR; y < FIRST_YEAR + YEARS; y++) {
+    for (let y = FIRST_YEAR; y < FIRST_YEAR + years; y++) {
       const moved = text.replace(at, (_m, head: string) => `${head}${usaf}${wban}${y}`);
       writeFileSync(
         join(dir, `${usaf}-${wban}-${y}.gz`),
@@ -65,11 +68,11 @@ export function screenClimate(dir: string, stations: number): string {
       );
     }
   }
-  return `the demo's generated ${SOURCE}, copied to ${stations} invented station ids × ${FIRST_YEAR}–${FIRST_YEAR + YEARS - 1}`;
+  return `the demo's generated ${SOURCE}, copied to ${stations} invented station ids × ${FIRST_YEAR}–${FIRST_YEAR + years - 1}`;
 }
 
-/** The demo plan as a screen plan (no bases, schedule or nitrogen) on the generated years. */
-export function screenBenchPlan(dir: string): string {
+/** The demo plan as a screen plan (no bases, schedule or nitrogen) on `years` generated years. */
+export function screenBenchPlan(dir: string, years: number): string {
   const plan = parse(readFileSync(DEMO_PLAN, "utf8")) as Record<string, unknown> & {
     climate: Record<string, unknown>;
   };
@@ -78,11 +81,11 @@ export function screenBenchPlan(dir: string): string {
   delete plan["nitrogen"];
   delete plan.climate["stationHistory"];
   delete plan.climate["cacheDir"];
-  plan["name"] = "bench-region";
+  plan["name"] = `bench-region-${years}`;
   plan.climate["paths"] = ["climate"]; // not read: the screen takes its climate from the command line
-  plan.climate["years"] = { from: FIRST_YEAR, to: FIRST_YEAR + YEARS - 1 };
-  plan.climate["minYears"] = YEARS;
-  const file = join(dir, "region.yaml");
+  plan.climate["years"] = { from: FIRST_YEAR, to: FIRST_YEAR + years - 1 };
+  plan.climate["minYears"] = Math.min(years, 5);
+  const file = join(dir, `region-${years}.yaml`);
   writeFileSync(file, JSON.stringify(plan)); // JSON is YAML
   return file;
 }
@@ -105,10 +108,10 @@ export async function benchScreen(pairs = REPEATS): Promise<Record<string, Figur
   const stats = join(dir, "run-stats.json");
   const figures: Record<string, Figure> = {};
   try {
-    const plan = screenBenchPlan(dir);
+    const plan = screenBenchPlan(dir, THROUGHPUT.years);
     const climate = join(dir, "throughput");
-    line(`screen inputs: ${screenClimate(climate, THROUGHPUT_STATIONS)}`);
-    const stationYears = THROUGHPUT_STATIONS * YEARS;
+    line(`screen inputs: ${screenClimate(climate, THROUGHPUT.stations, THROUGHPUT.years)}`);
+    const stationYears = THROUGHPUT.stations * THROUGHPUT.years;
     const out = join(dir, "out");
     const r = await paired(
       screen("screen, 1 worker", plan, climate, out, 1),
@@ -124,12 +127,13 @@ export async function benchScreen(pairs = REPEATS): Promise<Record<string, Figur
     line(`  2 workers / 1 worker (speed-up per pair)   ${showFigure(figures["screenSpeedup2Workers"]!)}`);
 
     const rss: Record<number, number[]> = {};
+    const memoryPlan = screenBenchPlan(dir, MEMORY_YEARS);
     for (const n of MEMORY_STATION_YEARS) {
       const folder = join(dir, `memory-${n}`);
-      screenClimate(folder, n / YEARS);
+      screenClimate(folder, n / MEMORY_YEARS, MEMORY_YEARS);
       const runs: RunResult[] = [];
       for (let i = 0; i < MEMORY_RUNS; i++)
-        runs.push(await runOnce(screen(`screen of ${n} station-years`, plan, folder, out, 2), stats));
+        runs.push(await runOnce(screen(`screen of ${n} station-years`, memoryPlan, folder, out, 2), stats));
       rss[n] = runs.map(mib);
       figures[`screen${n}StationYearsPeakRssMiB`] = figureOf(rss[n]!);
       rmSync(folder, { recursive: true, force: true });
