@@ -32,40 +32,14 @@ const DAY_MS = 86_400_000;
 export const OFFSET_PROBE_HOURS = 96;
 
 /**
- * UTC offset in minutes of every grid hour. Luxon (the IANA time zone database) is the source of every
- * offset: it is asked at every OFFSET_PROBE_HOURS-th hour, and between two probes that differ the hour
- * of each change is found by bisection, asking luxon again; the hours between are filled from the
- * answers: about one hour in ninety is asked, instead of every hour.
+ * UTC offset in minutes of every grid hour, from the zone's clock (`zoneClockFor`: luxon asked at
+ * probes OFFSET_PROBE_HOURS apart, and by bisection at each change): about one hour in ninety is
+ * asked of luxon, instead of every hour.
  */
 export function hourlyOffsetsMin(series: HourlySeries, timeZone: string): Int16Array {
-  const zone = IANAZone.create(timeZone);
-  if (!zone.isValid) throw new Error(`unknown time zone ${timeZone}`);
-  const n = series.tempC.length;
-  const out = new Int16Array(n);
-  if (n === 0) return out;
-  const offsetAt = (i: number) => zone.offset(series.startUtcMs + i * HOUR_MS);
-  /** Fills hours [lo, hi) knowing the offsets at lo and hi (at most one change in a probe step). */
-  const fill = (lo: number, offLo: number, hi: number, offHi: number): void => {
-    while (offLo !== offHi && hi - lo > 1) {
-      const mid = lo + ((hi - lo) >> 1);
-      const offMid = offsetAt(mid);
-      fill(lo, offLo, mid, offMid);
-      lo = mid;
-      offLo = offMid;
-    }
-    if (offLo === offHi) out.fill(offLo, lo, hi);
-    else out[lo] = offLo;
-  };
-  let lo = 0;
-  let offLo = offsetAt(0);
-  while (lo < n - 1) {
-    const hi = Math.min(n - 1, lo + OFFSET_PROBE_HOURS);
-    const offHi = offsetAt(hi);
-    fill(lo, offLo, hi, offHi);
-    lo = hi;
-    offLo = offHi;
-  }
-  out[n - 1] = offLo;
+  const clock = zoneClockFor(timeZone);
+  const out = new Int16Array(series.tempC.length);
+  for (let i = 0; i < out.length; i++) out[i] = clock.offsetMinAt(series.startUtcMs + i * HOUR_MS);
   return out;
 }
 
