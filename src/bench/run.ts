@@ -1,9 +1,10 @@
 #!/usr/bin/env node
 /**
  * `npm run bench`: runs every area's benchmark that exists (`benchClimate` from ./climate.js,
- * `benchPhysics` from ./physics.js, `benchPlan` from ./plan.js), the climate cache, and the whole
+ * `benchPhysics` from ./physics.js, `benchPlan` from ./plan.js), the climate cache, the whole
  * commands (`benchCommands`, ./commands.js: spawned processes in A/B pairs against a reference run
- * side by side), prints every figure as its median and range against the project's targets (README,
+ * side by side) and the region screen (`benchScreen`, ./screen.js: one and two workers side by side,
+ * peak memory as stations grow), prints every figure as its median and range against the project's targets (README,
  * Tests and benchmarks) and writes them, with the machine and its load average at the start, to
  * out/bench.json as { median, min, max, n }.
  *
@@ -39,6 +40,8 @@ export const TARGETS = [
   { key: "plan8BasesWarmPeakRssMiB", limit: 300 * MB_IN_MIB, atLeast: false },
   { key: "plan8BasesColdPeakRssMiB", limit: 400 * MB_IN_MIB, atLeast: false },
   { key: "climateTwentyFilesPeakRssMiB", limit: 200 * MB_IN_MIB, atLeast: false },
+  { key: "screenSpeedup2Workers", limit: 1.7, atLeast: true },
+  { key: "screenPeakRss200Over50", limit: 1.2, atLeast: false },
 ] as const;
 
 type Figures = Record<string, Figure>;
@@ -156,6 +159,7 @@ export async function runBench(): Promise<number> {
     areas.push({ area: "climate cache", status: "failed", message: String(err), figures: {} });
   }
   areas.push(await runArea("whole commands", "./commands.js", "benchCommands"));
+  areas.push(await runArea("region screen", "./screen.js", "benchScreen"));
 
   const figures: Figures = {};
   for (const a of areas) Object.assign(figures, a.figures);

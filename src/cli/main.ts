@@ -23,6 +23,7 @@ Examples:
   coldsoak climate data/isd --units si                 summarise ISD climate files per station
   coldsoak precharge --ref 1450psig@70F --at 50F       precharge at another temperature
   coldsoak band sample-data/demo-plan.yaml             precharge line and fill-reading band table
+  coldsoak energy sample-data/demo-plan.yaml           start energy and break-even temperatures
   coldsoak pdf out/demo/report.html                    print a report to PDF
 
 Run 'coldsoak <command> --help' for each command's options.

@@ -4,7 +4,6 @@
  * only after every file is written (see outputFolder.ts).
  */
 import { join, resolve } from "node:path";
-import type { SingleBar } from "cli-progress";
 import { inputError } from "../errors.js";
 import { resultsJson, resultTables, toCsv } from "../output/tables.js";
 import { runPlan } from "../plan/engine.js";
@@ -15,6 +14,7 @@ import { loadSchedule } from "../plan/schedule.js";
 import { renderReport, startChartWorkers, writePdf } from "../report/index.js";
 import { formatDisplay, pct, showWithUnit, unitSystem } from "../units/index.js";
 import { writeOutputFolder } from "./outputFolder.js";
+import { loadBars, progressBar } from "./progress.js";
 import { noteRunStat } from "./runStats.js";
 
 export interface PlanCliOptions {
@@ -72,34 +72,6 @@ export function summaryText(r: Results): string {
   return lines.join("\n");
 }
 
-/** The progress bar library, loaded only where a bar can be drawn (stderr is a terminal). */
-type Bars = typeof import("cli-progress") | null;
-
-function progressBar(
-  bars: Bars,
-  label: string,
-): { update: (done: number, total: number) => void; stop: () => void } {
-  let bar: SingleBar | null = null;
-  return {
-    update(done, total) {
-      if (bars === null) return;
-      if (bar === null) {
-        bar = new bars.SingleBar({
-          stream: process.stderr,
-          format: `${label} [{bar}] {value}/{total}`,
-          hideCursor: true,
-        });
-        bar.start(total, 0);
-      }
-      bar.update(done);
-    },
-    stop() {
-      (bar as SingleBar | null)?.stop();
-      bar = null;
-    },
-  };
-}
-
 /**
  * The climate cache of a run: none with --no-cache; else --cache-dir, else the plan's
  * `climate.cacheDir` (undefined: the loader takes it from the plan), else `<out>/.cache/climate`,
@@ -143,7 +115,7 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
     plan.bases.map((b) => b.name),
     plan.profiles.map((p) => p.name),
   );
-  const bars: Bars = process.stderr.isTTY ? await import("cli-progress") : null;
+  const bars = await loadBars();
   const files = progressBar(bars, "climate files");
   const climateWarnings: string[] = [];
   const cacheDir = cacheDirOf(plan, opts);

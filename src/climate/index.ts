@@ -11,6 +11,14 @@ export {
   monthlyClimate,
 } from "./climatology.js";
 export {
+  type DesignTemperatures,
+  type DesignTempOptions,
+  designTemperatures,
+  type HoursBelow,
+  type MonthDesignTemperature,
+  NO_YEAR_REASON,
+} from "./designTemps.js";
+export {
   emptySeries,
   filledHours,
   fillGaps,
@@ -24,6 +32,6 @@ export {
 export { climateOptions, listClimateFiles, loadClimate, loadClimateSelection } from "./load.js";
 export { hourlyOffsetsMin, localDays, timeZoneFor } from "./localTime.js";
 export { TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "./qc.js";
-export { detectFormat, readClimateFile } from "./source.js";
+export { detectFormat, firstStation, readClimateFile } from "./source.js";
 export { isoUtc, type StationSummary, stationCoverage, stationSummary } from "./summary.js";
 export * from "./types.js";

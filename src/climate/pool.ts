@@ -12,8 +12,9 @@ import type { ReadOptions } from "./source.js";
 
 const WORKER_URL = new URL("./worker.js", import.meta.url);
 
+/** True on the main thread when the compiled worker exists (a worker thread reads its files itself). */
 export function workersAvailable(): boolean {
-  return import.meta.url.endsWith(".js") && existsSync(fileURLToPath(WORKER_URL));
+  return isMainThread && import.meta.url.endsWith(".js") && existsSync(fileURLToPath(WORKER_URL));
 }
 
 type Reply = {

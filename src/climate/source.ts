@@ -227,6 +227,29 @@ async function readFrom(
   return file;
 }
 
+/**
+ * The station of a file's first record, read from its first chunk only (the layout detected as
+ * `readClimateFile` does, the lines parsed by the same readers), or null when that chunk holds no
+ * readable record. NOAA's archive keeps one station per file, so this names the file's station without
+ * reading it whole; a file of several stations is named by its first.
+ */
+export async function firstStation(path: string, options: ReadOptions = {}): Promise<string | null> {
+  const it = readChunks(path);
+  try {
+    const r = await it.next();
+    const head = r.done ? Buffer.alloc(0) : r.value;
+    const format = detectFormat(head);
+    if (format === null) return null;
+    const file = emptyParsedFile(path, format, 1024);
+    const reader = createLineReader(file, format, options);
+    const complete = head.lastIndexOf(10) + 1;
+    feedLines(reader, complete > 0 ? head.subarray(0, complete) : head);
+    return file.stations[0] ?? null;
+  } finally {
+    await it.return(undefined);
+  }
+}
+
 /** Most records the columns are sized for up front (more still fit: the columns grow). */
 const MAX_PRESIZED_RECORDS = 1 << 22;
 

@@ -10,12 +10,14 @@
 import type {
   AircraftAction,
   BaseResult,
+  ColdestReturnLevels,
   MonthConfidence,
   NitrogenBase,
   NitrogenFleet,
   NitrogenFlows,
   ProfileResult,
   Results,
+  StationResult,
   StayResult,
 } from "../plan/results.js";
 import { formatMachine, shownText, unitSystem } from "../units/index.js";
@@ -42,9 +44,9 @@ export function toCsv(t: Table): string {
 }
 
 /** A column: its CSV header (unit in the name) and how to read its cell from a row's source. */
-type Column<T> = [header: string, value: (row: T) => Cell];
+export type Column<T> = [header: string, value: (row: T) => Cell];
 
-function table<T>(name: string, rows: T[], columns: Column<T>[]): Table {
+export function table<T>(name: string, rows: T[], columns: Column<T>[]): Table {
   return { name, columns: columns.map((c) => c[0]), rows: rows.map((row) => columns.map((c) => c[1](row))) };
 }
 
@@ -89,6 +91,46 @@ function stayColumns<T>(
   ];
 }
 
+/** The coldest mornings of a place: the coldest, the 1-in-10 and 1-in-30-year values with their 90 % intervals. */
+export function coldestColumns<T>(get: (row: T) => ColdestMornings): Column<T>[] {
+  return [
+    ["coldest_morning_c", (row) => get(row).coldestMorningC],
+    ["coldest_1in10_c", (row) => get(row).coldest1in10C],
+    ["coldest_1in10_c_lo90", (row) => get(row).coldest1in10CLo90],
+    ["coldest_1in10_c_hi90", (row) => get(row).coldest1in10CHi90],
+    ["coldest_1in30_c", (row) => get(row).coldest1in30C],
+    ["coldest_1in30_c_lo90", (row) => get(row).coldest1in30CLo90],
+    ["coldest_1in30_c_hi90", (row) => get(row).coldest1in30CHi90],
+  ];
+}
+
+/** The columns of a station: identity, coverage of its record and its quality-control counts. */
+export function stationColumns<T>(get: (row: T) => StationResult): Column<T>[] {
+  return [
+    ["station", (row) => get(row).id],
+    ["name", (row) => get(row).name],
+    ["lat", (row) => get(row).lat],
+    ["lon", (row) => get(row).lon],
+    ["elevation_m", (row) => get(row).elevationM],
+    ["time_zone", (row) => get(row).timeZone],
+    ["first_utc", (row) => get(row).firstUtc],
+    ["last_utc", (row) => get(row).lastUtc],
+    ["hours", (row) => get(row).hours],
+    ["filled_hours", (row) => get(row).filledHours],
+    ["completeness", (row) => get(row).completeness],
+    ["qc_read", (row) => get(row).qc.read],
+    ["qc_kept", (row) => get(row).qc.kept],
+    ["qc_malformed", (row) => get(row).qc.dropped.malformed],
+    ["qc_summary", (row) => get(row).qc.dropped.summary],
+    ["qc_other_site", (row) => get(row).qc.dropped.otherSite],
+    ["qc_missing", (row) => get(row).qc.dropped.missing],
+    ["qc_range", (row) => get(row).qc.dropped.range],
+    ["qc_erroneous", (row) => get(row).qc.dropped.erroneous],
+    ["qc_suspect", (row) => get(row).qc.dropped.suspect],
+    ["qc_duplicate", (row) => get(row).qc.dropped.duplicate],
+  ];
+}
+
 /** The flows of the one nitrogen vocabulary, in order, as columns `<flow>_kg_mean`. */
 const FLOWS: [keyof NitrogenFlows, string][] = [
   ["drawn", "drawn"],
@@ -103,6 +145,9 @@ const FLOWS: [keyof NitrogenFlows, string][] = [
 function flowColumns<T>(flows: (row: T) => NitrogenFlows): Column<T>[] {
   return FLOWS.map(([key, name]) => [`${name}_kg_mean`, (row: T) => flows(row)[key]]);
 }
+
+/** What the coldest-morning columns read. */
+type ColdestMornings = Pick<BaseResult, "coldestMorningC"> & ColdestReturnLevels;
 
 /** One row of nitrogen_fleet.csv: a base, or the fleet (its cylinders and carts sum the bases'). */
 interface FleetRow {
@@ -138,13 +183,7 @@ export function resultTables(r: Results): Table[] {
       ["time_zone", (b) => b.timeZone],
       ["years_used", (b) => b.yearsUsed.join(" ")],
       ["years_skipped", (b) => b.yearsSkipped.map((y) => y.year).join(" ")],
-      ["coldest_morning_c", (b) => b.coldestMorningC],
-      ["coldest_1in10_c", (b) => b.coldest1in10C],
-      ["coldest_1in10_c_lo90", (b) => b.coldest1in10CLo90],
-      ["coldest_1in10_c_hi90", (b) => b.coldest1in10CHi90],
-      ["coldest_1in30_c", (b) => b.coldest1in30C],
-      ["coldest_1in30_c_lo90", (b) => b.coldest1in30CLo90],
-      ["coldest_1in30_c_hi90", (b) => b.coldest1in30CHi90],
+      ...coldestColumns((b: BaseResult) => b),
       ["nitrogen_kg_p50", (b) => b.nitrogen.kgP50],
       ["nitrogen_kg_p90", (b) => b.nitrogen.kgP90],
       ["nitrogen_kg_p95", (b) => b.nitrogen.kgP95],
@@ -364,30 +403,7 @@ export function resultTables(r: Results): Table[] {
     table(
       "stations",
       perBase(r, (b) => b.stations),
-      [
-        baseName,
-        ["station", ({ x }) => x.id],
-        ["name", ({ x }) => x.name],
-        ["lat", ({ x }) => x.lat],
-        ["lon", ({ x }) => x.lon],
-        ["elevation_m", ({ x }) => x.elevationM],
-        ["time_zone", ({ x }) => x.timeZone],
-        ["first_utc", ({ x }) => x.firstUtc],
-        ["last_utc", ({ x }) => x.lastUtc],
-        ["hours", ({ x }) => x.hours],
-        ["filled_hours", ({ x }) => x.filledHours],
-        ["completeness", ({ x }) => x.completeness],
-        ["qc_read", ({ x }) => x.qc.read],
-        ["qc_kept", ({ x }) => x.qc.kept],
-        ["qc_malformed", ({ x }) => x.qc.dropped.malformed],
-        ["qc_summary", ({ x }) => x.qc.dropped.summary],
-        ["qc_other_site", ({ x }) => x.qc.dropped.otherSite],
-        ["qc_missing", ({ x }) => x.qc.dropped.missing],
-        ["qc_range", ({ x }) => x.qc.dropped.range],
-        ["qc_erroneous", ({ x }) => x.qc.dropped.erroneous],
-        ["qc_suspect", ({ x }) => x.qc.dropped.suspect],
-        ["qc_duplicate", ({ x }) => x.qc.dropped.duplicate],
-      ],
+      [baseName, ...stationColumns(({ x }: { x: StationResult }) => x)],
     ),
     table("atmosphere", r.bases, [
       ["base", (b) => b.name],
@@ -505,6 +521,11 @@ export function resultTables(r: Results): Table[] {
 
 /** results.json text: fixed key order (as built), numbers with at most 6 decimals, no wall-clock time. */
 export function resultsJson(r: Results): string {
+  return machineJson(r);
+}
+
+/** JSON text for programs: key order as built, numbers with at most 6 decimals (`formatMachine`), two-space indent. */
+export function machineJson(r: object): string {
   return `${JSON.stringify(
     r,
     (_k, v) =>

@@ -8,18 +8,25 @@ import { stationCoverage } from "../climate/index.js";
 import type { StationClimate } from "../climate/types.js";
 import { PA_PER_KPA } from "../units/index.js";
 import { profileCurves } from "./bandCurves.js";
-import { baseConfidence, type StayFigures } from "./confidence.js";
+import { type BaseConfidence, baseConfidence, type StayFigures } from "./confidence.js";
 import { baseDecisions, type DecisionThresholds } from "./decisions.js";
-import { baseStatistics } from "./monthStats.js";
-import type { Plan } from "./planFile.js";
-import type { AircraftAction, AtmosphereResult, BaseResult, StationResult } from "./results.js";
+import { type BaseStatistics, baseStatistics } from "./monthStats.js";
+import type { PlanCore } from "./planFile.js";
+import type {
+  AircraftAction,
+  AtmosphereResult,
+  BaseResult,
+  ColdestReturnLevels,
+  StationResult,
+} from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 import { baseNitrogen } from "./supplyPlan.js";
 import { overnightTraces } from "./traces.js";
 import { trappedChargeMonths } from "./trappedStats.js";
 
-function stationResult(s: StationClimate): StationResult {
+/** A station's identity and coverage as results.json gives it. */
+export function stationResult(s: StationClimate): StationResult {
   const c = stationCoverage(s);
   return { ...c, firstUtc: c.firstUtc ?? "", lastUtc: c.lastUtc ?? "" };
 }
@@ -71,7 +78,7 @@ export interface AggregatedBase {
 }
 
 /** The plan's thresholds that decide statuses and actions. */
-export function decisionThresholds(plan: Plan): DecisionThresholds {
+export function decisionThresholds(plan: PlanCore): DecisionThresholds {
   return {
     shortStartsPct: plan.thresholds.shortStartsPct,
     outOfBandPct: plan.thresholds.outOfBandPct,
@@ -80,13 +87,25 @@ export function decisionThresholds(plan: Plan): DecisionThresholds {
 }
 
 /** The atmospheric pressure used at a base, its source and the primary station it comes from. */
-function atmosphereOf(base: BaseSamples): AtmosphereResult {
+export function atmosphereOf(base: BaseSamples): AtmosphereResult {
   const primary = base.climate.stations[0]?.meta;
   return {
     pressureKPaAbsolute: base.climate.atmPa / PA_PER_KPA,
     source: base.climate.atmSource,
     station: primary?.id ?? "",
     elevationM: primary?.elevationM ?? 0,
+  };
+}
+
+/** The 1-in-10 and 1-in-30-year coldest mornings of a base with their intervals. */
+export function returnLevels(statistics: BaseStatistics, conf: BaseConfidence): ColdestReturnLevels {
+  return {
+    coldest1in10C: statistics.coldest1in10C,
+    coldest1in10CLo90: conf.coldest.coldest1in10CLo90,
+    coldest1in10CHi90: conf.coldest.coldest1in10CHi90,
+    coldest1in30C: statistics.coldest1in30C,
+    coldest1in30CLo90: conf.coldest.coldest1in30CLo90,
+    coldest1in30CHi90: conf.coldest.coldest1in30CHi90,
   };
 }
 
@@ -131,12 +150,7 @@ export function aggregateBase(
     outOfBandByHour: statistics.outOfBandByHour,
     coldestMorningC: statistics.coldestMorningC,
     coldestMorningByYear: statistics.coldestMorningByYear,
-    coldest1in10C: statistics.coldest1in10C,
-    coldest1in10CLo90: conf.coldest.coldest1in10CLo90,
-    coldest1in10CHi90: conf.coldest.coldest1in10CHi90,
-    coldest1in30C: statistics.coldest1in30C,
-    coldest1in30CLo90: conf.coldest.coldest1in30CLo90,
-    coldest1in30CHi90: conf.coldest.coldest1in30CHi90,
+    ...returnLevels(statistics, conf),
     advice: decided.advice,
     traces: overnightTraces(sim, base, outcomes),
     nitrogen: nitrogenOf(sim, base, outcomes, warnings),

@@ -9,7 +9,7 @@
  */
 import { bootstrapResamples, statisticInterval } from "./bootstrap.js";
 import { RETURN_PERIODS_YEARS } from "./monthStats.js";
-import type { Plan } from "./planFile.js";
+import type { PlanCore } from "./planFile.js";
 import type { BaseResult, MonthConfidence, StayMonthRow, StayResult } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
@@ -57,7 +57,7 @@ function stayMonths(base: BaseSamples, gi: number): { month: number; realMonth: 
 }
 
 /** The figures of one group of identical stays on its own usable years. */
-function groupFigures(plan: Plan, base: BaseSamples, counts: CountTable, gi: number): StayFigures {
+function groupFigures(plan: PlanCore, base: BaseSamples, counts: CountTable, gi: number): StayFigures {
   const usable = base.years.flatMap((_y, yi) => (base.usable[yi]![gi] ? [yi] : []));
   const table = usable.map((yi) => counts[yi]!);
   const first = base.stays[base.groups[gi]!.stays[0]!]!;
@@ -81,7 +81,7 @@ function groupFigures(plan: Plan, base: BaseSamples, counts: CountTable, gi: num
 }
 
 /** Bootstrap intervals of the Gumbel return levels of the annual minima (°C). */
-function coldestConfidence(plan: Plan, baseName: string, minimaC: number[]): ColdestConfidence {
+function coldestConfidence(plan: PlanCore, baseName: string, minimaC: number[]): ColdestConfidence {
   const resamples = bootstrapResamples(plan.seed, `bootstrap:${baseName}:coldest`, minimaC.length);
   const at = (years: number) =>
     statisticInterval(minimaC, resamples, (s) => gumbelMinimumReturnLevel(s, years));
@@ -97,7 +97,7 @@ function coldestConfidence(plan: Plan, baseName: string, minimaC: number[]): Col
 
 /** The confidence of one base's figures; `minimaC` are the coldest mornings of its years. */
 export function baseConfidence(
-  plan: Plan,
+  plan: PlanCore,
   base: BaseSamples,
   outcomes: BaseOutcomes,
   minimaC: number[],

@@ -127,6 +127,49 @@ export function bandInputsOf(profile: ProfileInput, atmPa: number): BandInputs {
   };
 }
 
+/** V0 and Vmin of a profile, m³. */
+export function geometryOf(profile: ProfileInput): AccumulatorGeometry {
+  return { v0M3: profile.accumulator.gasVolumeEmpty, vminM3: profile.accumulator.gasVolumeFull };
+}
+
+/** The trapped fluid of a profile: expansion (1/K), bulk modulus (Pa), line volume (m³). */
+export function fluidOf(profile: ProfileInput): FluidProps {
+  return {
+    alphaPerK: profile.fluid.expansionPerK,
+    bulkModulusPa: profile.fluid.bulkModulus,
+    lineVolumeM3: profile.fluid.lineVolume,
+  };
+}
+
+/** The starter of a profile at atmPa: minimum useful and return pressures, Pa absolute. */
+export function starterOf(profile: ProfileInput, atmPa: number): StarterSpec {
+  return {
+    minUsefulAbsPa: absPa(profile.starter.minUsefulPressure, atmPa),
+    returnAbsPa: absPa(profile.starter.returnPressure, atmPa),
+    isothermal: profile.starter.expansion === "isothermal",
+  };
+}
+
+/**
+ * Gas amounts per unit (mol) at atmPa: nominal through the precharge reference, low and high through
+ * the reference ∓ its tolerance, all at the reference temperature with the piston on the V0 stop.
+ */
+export function prechargeAmountsMol(
+  profile: ProfileInput,
+  model: GasModel,
+  atmPa: number,
+): { nominalMol: number; lowMol: number; highMol: number } {
+  const v0M3 = profile.accumulator.gasVolumeEmpty;
+  const ref = profile.precharge.reference;
+  const refAbs = absPa(ref.pressure, atmPa);
+  const tol = profile.precharge.tolerance;
+  return {
+    nominalMol: gasAmountMol(model, refAbs, ref.tempK, v0M3),
+    lowMol: gasAmountMol(model, Math.max(refAbs - tol, 1), ref.tempK, v0M3),
+    highMol: gasAmountMol(model, refAbs + tol, ref.tempK, v0M3),
+  };
+}
+
 /** Options of `profileContext`. */
 export interface ContextOptions {
   /** Exact physics at every start instead of the interpolated discharge grid. */
@@ -143,21 +186,14 @@ export function profileContext(
   coldStartOption: boolean,
   options: ContextOptions = {},
 ): ProfileContext {
-  const geometry = { v0M3: profile.accumulator.gasVolumeEmpty, vminM3: profile.accumulator.gasVolumeFull };
+  const geometry = geometryOf(profile);
   const ref = profile.precharge.reference;
   const refAbs = absPa(ref.pressure, atmPa);
-  const tol = profile.precharge.tolerance;
-  const nominalMol = gasAmountMol(model, refAbs, ref.tempK, geometry.v0M3);
-  const lowMol = gasAmountMol(model, Math.max(refAbs - tol, 1), ref.tempK, geometry.v0M3);
-  const highMol = gasAmountMol(model, refAbs + tol, ref.tempK, geometry.v0M3);
+  const { nominalMol, lowMol, highMol } = prechargeAmountsMol(profile, model, atmPa);
   const band = bandInputsOf(profile, atmPa);
   const bandTable = options.tablesOf?.bandTable ?? buildBandTable(model, geometry, band);
   const count = coldStartOption ? profile.coldStartOption.count : 1;
-  const starter = {
-    minUsefulAbsPa: absPa(profile.starter.minUsefulPressure, atmPa),
-    returnAbsPa: absPa(profile.starter.returnPressure, atmPa),
-    isothermal: profile.starter.expansion === "isothermal",
-  };
+  const starter = starterOf(profile, atmPa);
   const pumpCurve = profile.pump.curve.map((r) => ({ gaugePa: gaugePa(r.pressure, atmPa), flowM3S: r.flow }));
   const pumpOne: PumpSpec = { curve: pumpCurve, timerS: profile.pump.timer, atmPa };
   const pumpOption: PumpSpec = { curve: pumpCurve, timerS: profile.coldStartOption.timer, atmPa };
@@ -168,11 +204,7 @@ export function profileContext(
     name: profile.name,
     model,
     geometry,
-    fluid: {
-      alphaPerK: profile.fluid.expansionPerK,
-      bulkModulusPa: profile.fluid.bulkModulus,
-      lineVolumeM3: profile.fluid.lineVolume,
-    },
+    fluid: fluidOf(profile),
     atmPa,
     nominalMol,
     lowMol,

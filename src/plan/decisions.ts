@@ -317,3 +317,30 @@ export function baseDecisions(
     actions: stays.map((s) => aircraftAction(s, s.months, t)),
   };
 }
+
+/**
+ * The season of a need over the calendar's twelve months, read as a cycle: it begins after the longest
+ * run of months without the need and ends before it (the first such run in calendar order when runs tie),
+ * so that a winter need of November to March gives "fit by November, not needed after March". Null
+ * without any month; all twelve give January to December.
+ *
+ * @param months - local months (1–12) in which the need holds
+ * @example needSeason([1, 2, 3, 11, 12]) // { fitBy: 11, notNeededAfter: 3 }
+ */
+export function needSeason(months: readonly number[]): { fitBy: number; notNeededAfter: number } | null {
+  const needed = new Set(months);
+  if (needed.size === 0) return null;
+  if (needed.size === 12) return { fitBy: 1, notNeededAfter: 12 };
+  let gapStart = 0;
+  let gapLength = 0;
+  for (let m = 1; m <= 12; m++) {
+    if (needed.has(m) || !needed.has(m === 1 ? 12 : m - 1)) continue; // a run of free months starts here
+    let n = 0;
+    while (!needed.has(((m - 1 + n) % 12) + 1)) n++;
+    if (n > gapLength) [gapStart, gapLength] = [m, n];
+  }
+  return {
+    fitBy: ((gapStart - 1 + gapLength) % 12) + 1,
+    notNeededAfter: gapStart === 1 ? 12 : gapStart - 1,
+  };
+}

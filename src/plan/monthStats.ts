@@ -7,7 +7,7 @@
  * 1-in-30-year values (Gumbel, method of moments); the monthly climate of the whole record.
  */
 import { localClimatology } from "../climate/index.js";
-import type { Plan } from "./planFile.js";
+import type { PlanCore } from "./planFile.js";
 import type { BaseResult, HourRow, MonthStatistics } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
@@ -217,7 +217,7 @@ export type BaseStatistics = Pick<
 
 /** The statistics of one base from its outcomes; a warning counts starts without temperature data. */
 export function baseStatistics(
-  plan: Plan,
+  plan: PlanCore,
   base: BaseSamples,
   outcomes: BaseOutcomes,
   warnings: string[],
@@ -252,4 +252,34 @@ export function baseStatistics(
     coldest1in10C: gumbelMinimumReturnLevel(minima, RETURN_PERIODS_YEARS.oneIn10),
     coldest1in30C: gumbelMinimumReturnLevel(minima, RETURN_PERIODS_YEARS.oneIn30),
   };
+}
+
+/** The coldest morning of one local month over a base's years and its 1-in-10-year value. */
+export interface MonthColdest {
+  month: number;
+  /** Coldest preflight ambient of the month over every usable year, °C; null without preflights. */
+  coldestMorningC: number | null;
+  /** 1-in-10-year coldest morning of the month (Gumbel on each year's coldest morning of it), °C. */
+  coldest1in10C: number | null;
+}
+
+/**
+ * The coldest morning of each local month (1–12) and its 1-in-10-year value: each year's coldest
+ * preflight ambient in that month, then their minimum and the same Gumbel return level as the year's
+ * (`gumbelMinimumReturnLevel`, docs/methods.md §6). Every group's preflights count (they share the
+ * weather of a year).
+ */
+export function monthlyColdestMornings(base: BaseSamples, outcomes: BaseOutcomes): MonthColdest[] {
+  const byMonth = Array.from({ length: 13 }, () => [] as number[]);
+  for (let yi = 0; yi < base.years.length; yi++) {
+    const coldest = new Array<number>(13).fill(Number.POSITIVE_INFINITY);
+    for (const o of outcomes[yi]!)
+      for (const r of o.preflights) coldest[r.month] = Math.min(coldest[r.month]!, r.ambientC);
+    for (let m = 1; m <= 12; m++) if (Number.isFinite(coldest[m]!)) byMonth[m]!.push(coldest[m]!);
+  }
+  return byMonth.slice(1).map((minima, i) => ({
+    month: i + 1,
+    coldestMorningC: minima.length > 0 ? Math.min(...minima) : null,
+    coldest1in10C: gumbelMinimumReturnLevel(minima, RETURN_PERIODS_YEARS.oneIn10),
+  }));
 }

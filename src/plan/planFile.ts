@@ -31,6 +31,8 @@ const pressureAt = q(parsePressureAt);
 const pointPressure = q(parsePointPressure);
 const clock = q(parseClockMinutes);
 const NAME_RE = /^[A-Za-z0-9][A-Za-z0-9 _.-]*$/;
+/** What `coldsoak screen` adds to the plan's name for its output folder. */
+export const SCREEN_SUFFIX = "-screen";
 
 export const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"] as const;
 const weekdayName = z.string().transform((s, ctx) => {
@@ -251,7 +253,10 @@ export const planSchema = z
   .strictObject({
     name: z
       .string()
-      .regex(NAME_RE, "expected a name of letters, digits, spaces, - _ or . (it names the output folder)"),
+      .regex(NAME_RE, "expected a name of letters, digits, spaces, - _ or . (it names the output folder)")
+      .refine((n) => !n.endsWith(SCREEN_SUFFIX), {
+        message: `expected a name not ending in "${SCREEN_SUFFIX}" (coldsoak screen writes out/<plan name>${SCREEN_SUFFIX})`,
+      }),
     units: z.enum(["us", "si"]).default("us"),
     seed: z
       .number()
@@ -276,10 +281,12 @@ export const planSchema = z
       cacheDir: z.string().min(1).optional(),
       stationHistory: z.string().min(1).optional(),
     }),
-    bases: z.array(baseSchema).min(1),
+    // Optional in the file: `coldsoak screen` reads a plan without bases, schedule or nitrogen; `plan`
+    // refuses one without them (requirePlanSections).
+    bases: z.array(baseSchema).min(1).optional(),
     profiles: z.array(profileSchema).min(1),
     operations: operationsSchema,
-    nitrogen: nitrogenSchema,
+    nitrogen: nitrogenSchema.optional(),
     thresholds: z
       .strictObject({
         shortStartsPct: z.number().min(0).max(100).default(1),
@@ -296,10 +303,10 @@ export const planSchema = z
         names.add(it.name);
       });
     };
-    seen(p.bases, "bases");
+    seen(p.bases ?? [], "bases");
     seen(p.profiles, "profiles");
-    const baseNames = new Set(p.bases.map((b) => b.name));
-    const stock = p.nitrogen.stock;
+    const baseNames = new Set((p.bases ?? []).map((b) => b.name));
+    const stock = p.nitrogen?.stock;
     for (const key of ["cylinders", "resupplyEvery"] as const) {
       const v = stock?.[key];
       if (typeof v !== "object" || v === null) continue;
@@ -314,14 +321,16 @@ export const planSchema = z
     }
   });
 
-export type PlanInput = z.output<typeof planSchema>;
-export type ProfileInput = PlanInput["profiles"][number];
-export type BaseInput = PlanInput["bases"][number];
+/** A plan file as validated: `bases` and `nitrogen` may be absent (a plan for `coldsoak screen`). */
+export type PlanFileInput = z.output<typeof planSchema>;
+export type ProfileInput = PlanFileInput["profiles"][number];
+export type BaseInput = NonNullable<PlanFileInput["bases"]>[number];
 export type HangarInput = NonNullable<BaseInput["hangar"]>;
+export type NitrogenInput = NonNullable<PlanFileInput["nitrogen"]>;
 export type { PointPressure };
 
-/** A validated plan, with the file it came from and a way to point back at its lines. */
-export interface Plan extends PlanInput {
+/** Where a validated plan came from, and a way to point back at its lines. */
+interface PlanSource {
   file: string;
   dir: string;
   /** Line of a YAML path (the nearest existing parent when absent), 1-based. */
@@ -333,6 +342,42 @@ export interface Plan extends PlanInput {
    * by ", "), or null when the file does not set it.
    */
   written(path: (string | number)[]): string | null;
+}
+
+/** A validated plan file, with or without bases and nitrogen. */
+export interface PlanFile extends PlanFileInput, PlanSource {}
+
+/** What the simulation and its statistics read of a plan: every section but the nitrogen logistics. */
+export interface PlanCore extends Omit<PlanFile, "bases" | "nitrogen"> {
+  bases: BaseInput[];
+}
+
+/** A plan the planning engine runs: with its bases and its nitrogen logistics. */
+export interface Plan extends PlanCore {
+  nitrogen: NitrogenInput;
+}
+
+/** The sections `coldsoak plan` needs beyond those every plan file has. */
+const PLAN_SECTIONS = [
+  ["bases", "a list of bases, each with its name and climate stations"],
+  ["nitrogen", "the nitrogen section (cylinder, transferDifferential, hoseVolume, cylindersPerCart)"],
+] as const;
+
+/**
+ * The plan with the sections the planning engine needs; a missing one is refused at the line of the
+ * plan's first key (`plan.yaml:6:bases: missing; …`), saying that only `coldsoak screen` reads a plan without it.
+ */
+export function requirePlanSections(p: PlanFile): Plan {
+  for (const [key, expected] of PLAN_SECTIONS) {
+    if (p[key] === undefined)
+      throw inputError(
+        p.file,
+        p.lineOf([key]),
+        key,
+        `missing; expected ${expected} (only "coldsoak screen" reads a plan without it)`,
+      );
+  }
+  return p as Plan;
 }
 
 /** "profiles[0].precharge.reference" */
@@ -413,6 +458,11 @@ function refuseFormerKeys(raw: unknown, file: string, lineOf: (path: (string | n
 
 /** Parses and validates plan text; throws InputError `file:line:yaml.path: message`. */
 export function parsePlanText(text: string, file: string): Plan {
+  return requirePlanSections(parsePlanFileText(text, file));
+}
+
+/** parsePlanText for a plan that may lack bases and nitrogen (`coldsoak screen`, `coldsoak band`). */
+export function parsePlanFileText(text: string, file: string): PlanFile {
   const lc = new LineCounter();
   const doc = parseDocument(text, { lineCounter: lc, prettyErrors: false, uniqueKeys: true });
   const yamlError = doc.errors[0];
@@ -448,8 +498,13 @@ export function parsePlanText(text: string, file: string): Plan {
   };
 }
 
-/** Reads and validates a plan file. */
+/** Reads and validates a plan file for the planning engine (bases and nitrogen required). */
 export async function loadPlan(file: string): Promise<Plan> {
+  return requirePlanSections(await loadPlanFile(file));
+}
+
+/** Reads and validates a plan file that may lack bases and nitrogen. */
+export async function loadPlanFile(file: string): Promise<PlanFile> {
   const text = await readInputText(file, "the plan file");
-  return parsePlanText(text, file);
+  return parsePlanFileText(text, file);
 }

@@ -83,6 +83,37 @@ export interface BandRow {
   idealReadingNominalPct: number;
 }
 
+/** The gas amount of an energy case: on the low tolerance line, the reference, or the high line. */
+export type PrechargeLine = "low" | "nominal" | "high";
+/** The system pressure an energy case is charged to. */
+export type SystemLine = "low" | "nominal";
+/** Why a break-even temperature is null: no crossing of the requirement lies in the range. */
+export type BreakEvenReason = "short everywhere" | "never short";
+
+/**
+ * A break-even temperature (docs/methods.md, "Break-even temperatures"): the ambient below which one
+ * energy case falls short of the profile's requirement, found by root finding on the real-gas model
+ * over the range of `energyRangeC`; null with the reason where no crossing lies in the range.
+ */
+export interface BreakEvenRow {
+  /** One accumulator, or the cold-start option ("two": its count of units on its timer). */
+  units: 1 | 2;
+  /** Units in parallel: 1, or the option's count. */
+  count: number;
+  precharge: PrechargeLine;
+  system: SystemLine;
+  ambientC: number | null;
+  reason: BreakEvenReason | null;
+}
+
+/** An after-drop break-even of a base: charged at the afternoon temperature, trapped, cooled by the drop. */
+export interface DesignPointRow extends BreakEvenRow {
+  profile: string;
+  /** The base's typical (median) or P90 overnight drop of the accumulator temperature. */
+  drop: "typical" | "p90";
+  dropC: number;
+}
+
 export interface ProfileResult {
   name: string;
   /**
@@ -413,7 +444,20 @@ export interface NitrogenFleet extends NitrogenToShip {
   draws: number;
 }
 
-export interface BaseResult {
+/**
+ * The 1-in-10 and 1-in-30-year coldest mornings of a place (Gumbel fit of each year's coldest morning,
+ * docs/methods.md §6), °C, each with its 90 % bootstrap interval.
+ */
+export interface ColdestReturnLevels {
+  coldest1in10C: number | null;
+  coldest1in10CLo90: number | null;
+  coldest1in10CHi90: number | null;
+  coldest1in30C: number | null;
+  coldest1in30CLo90: number | null;
+  coldest1in30CHi90: number | null;
+}
+
+export interface BaseResult extends ColdestReturnLevels {
   name: string;
   stations: StationResult[];
   timeZone: string;
@@ -428,13 +472,6 @@ export interface BaseResult {
   outOfBandByHour: HourRow[];
   coldestMorningC: number | null;
   coldestMorningByYear: { year: number; tempC: number }[];
-  coldest1in10C: number | null;
-  coldest1in10CLo90: number | null;
-  coldest1in10CHi90: number | null;
-  /** 1-in-30-year coldest morning, same Gumbel fit (docs/methods.md §6), with its bootstrap interval. */
-  coldest1in30C: number | null;
-  coldest1in30CLo90: number | null;
-  coldest1in30CHi90: number | null;
   advice: AdviceRow[];
   traces: { typical: Trace | null; worst: Trace | null };
   nitrogen: NitrogenBase;

@@ -88,13 +88,21 @@ export async function loadPlanClimate(
       }
       return s;
     });
-    const primary = list[0]!;
-    out.set(base.name, {
-      stations: list,
-      series: mergeByPriority(list),
-      timeZone: primary.meta.timeZone,
-      ...stationAtmosphere(primary),
-    });
+    out.set(base.name, baseClimate(list));
   });
   return out;
+}
+
+/**
+ * The climate of a base from its stations in priority order: the series merged by priority, the
+ * primary station's zone and atmosphere.
+ */
+export function baseClimate(stations: StationClimate[]): BaseClimate {
+  const primary = stations[0]!;
+  return {
+    stations,
+    series: mergeByPriority(stations),
+    timeZone: primary.meta.timeZone,
+    ...stationAtmosphere(primary),
+  };
 }

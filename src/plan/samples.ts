@@ -13,7 +13,7 @@
 import type { HourlySeries, StationClimate } from "../climate/types.js";
 import { type CivilDate, isoWeekday, MONTH_NAMES, stayDays } from "./calendar.js";
 import { buildDays, type DayOptions, type DayPlan, HOUR_MS } from "./days.js";
-import type { Plan } from "./planFile.js";
+import type { PlanCore } from "./planFile.js";
 import { drawWeekdays, gasLossFactor } from "./random.js";
 import type { Stay } from "./schedule.js";
 
@@ -102,18 +102,18 @@ export interface GasLossDraw {
 }
 
 /** The weekdays flown (ISO, Monday 1): the plan's list, or a count drawn from the seed. */
-export function flownWeekdays(plan: Plan): number[] {
+export function flownWeekdays(plan: PlanCore): number[] {
   const w = plan.operations.weekdays;
   return typeof w === "number" ? drawWeekdays(plan.seed, w) : [...w].sort((a, b) => a - b);
 }
 
-function stayGasLossFactor(plan: Plan, stay: Stay): number {
+function stayGasLossFactor(plan: PlanCore, stay: Stay): number {
   const profile = plan.profiles.find((p) => p.name === stay.profile)!;
   return gasLossFactor(plan.seed, stay.aircraft, profile.gasLoss.spread);
 }
 
 /** The gas-loss multiplier of every aircraft and profile of the schedule, in order of first stay. */
-export function gasLossDraws(plan: Plan, stays: Stay[]): GasLossDraw[] {
+export function gasLossDraws(plan: PlanCore, stays: Stay[]): GasLossDraw[] {
   const profilesOf = new Map<string, Set<string>>();
   const draws: GasLossDraw[] = [];
   for (const s of stays) {
@@ -138,7 +138,7 @@ function windowSignature(realDays: CivilDate[], refYear: number, withWeekday: bo
 
 /** Groups of identical stays, in order of their first stay. */
 function groupStays(
-  plan: Plan,
+  plan: PlanCore,
   stays: Stay[],
   refYear: number,
   allFlown: boolean,
@@ -241,7 +241,7 @@ function windowGap(
  * have a value (docs/methods.md §4), and it is a sample of the base when it counts for any window.
  */
 function usableYears(
-  plan: Plan,
+  plan: PlanCore,
   climate: BaseClimate,
   groups: StayGroup[],
   refYear: number,
@@ -313,7 +313,7 @@ function windowLabel(stays: Stay[], g: StayGroup): string {
 }
 
 function yearWarnings(
-  plan: Plan,
+  plan: PlanCore,
   name: string,
   stays: Stay[],
   groups: StayGroup[],
@@ -348,7 +348,7 @@ function yearWarnings(
 
 /** The samples of every base of the plan; warnings about too few or skipped years go to `warnings`. */
 export function prepareSamples(
-  plan: Plan,
+  plan: PlanCore,
   stays: Stay[],
   climate: Map<string, BaseClimate>,
   weekdays: number[],

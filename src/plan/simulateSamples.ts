@@ -8,7 +8,7 @@ import type { GasModel } from "../physics/nitrogen.js";
 import { realGas } from "../physics/nitrogen.js";
 import type { HangarAir } from "./air.js";
 import { ProfileContexts } from "./context.js";
-import type { HangarInput, Plan } from "./planFile.js";
+import type { HangarInput, Plan, PlanCore } from "./planFile.js";
 import type { BaseSamples } from "./samples.js";
 import { type SimInputs, type SimOutcome, simulateStayYear } from "./simulate.js";
 import { emptyOutcome } from "./stayRun.js";
@@ -26,9 +26,9 @@ export interface RunStats {
   simulationS: number;
 }
 
-/** What every simulation of one run shares. */
-export interface Simulator {
-  plan: Plan;
+/** What every simulation of one run shares (the nitrogen steps read a whole `Plan`, the screen a `PlanCore`). */
+export interface Simulator<P extends PlanCore = Plan> {
+  plan: P;
   /** The interpolation table of the reference nitrogen equation used in the hot loop. */
   model: GasModel;
   contexts: ProfileContexts;
@@ -41,7 +41,11 @@ export interface Simulator {
 /** The outcome of each group on each usable year of a base: `outcomes[yearIndex][groupIndex]`. */
 export type BaseOutcomes = SimOutcome[][];
 
-export function simulator(plan: Plan, samples: BaseSamples[], opts: RunOptions): Simulator {
+export function simulator<P extends PlanCore>(
+  plan: P,
+  samples: BaseSamples[],
+  opts: RunOptions,
+): Simulator<P> {
   const model = tabulatedGas(realGas);
   return {
     plan,
@@ -61,7 +65,7 @@ export function hangarAir(h: HangarInput): HangarAir {
 }
 
 /** Inputs of the simulation of group `gi` of a base on its usable year `yi`. */
-export function sampleInputs(sim: Simulator, base: BaseSamples, gi: number, yi: number): SimInputs {
+export function sampleInputs(sim: Simulator<PlanCore>, base: BaseSamples, gi: number, yi: number): SimInputs {
   const { plan } = sim;
   const g = base.groups[gi]!;
   const hangar = plan.bases[base.baseIndex]!.hangar;
@@ -82,7 +86,7 @@ export function sampleInputs(sim: Simulator, base: BaseSamples, gi: number, yi: 
  * Simulates every group of a base on every year usable for its window, group by group; a window not
  * usable on a year gets an empty outcome (no records).
  */
-export function simulateBase(sim: Simulator, base: BaseSamples): BaseOutcomes {
+export function simulateBase(sim: Simulator<PlanCore>, base: BaseSamples): BaseOutcomes {
   const outcomes: BaseOutcomes = base.years.map(() => []);
   for (let gi = 0; gi < base.groups.length; gi++) {
     for (let yi = 0; yi < base.years.length; yi++) {

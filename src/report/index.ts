@@ -68,12 +68,24 @@ export function generationTime(
   return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
 }
 
-let compiled: Handlebars.TemplateDelegate | null = null;
-let css = "";
+/** The status mark of a status (outlined at low confidence) as inline SVG: constant markup only. */
+export function statusMark(status: Status, lowConfidence = false): string {
+  return MARKS.get(lowConfidence ? `${status}-low` : status) ?? MARKS.get("no-stay")!;
+}
 
-/** Compiles the templates once per process, in an isolated handlebars environment. */
-function template(): Handlebars.TemplateDelegate {
-  if (compiled) return compiled;
+/** The text of a file of `templates/` (CSS, a page template). */
+export function templateText(name: string): string {
+  return readFileSync(new URL(name, TEMPLATE_DIR), "utf8");
+}
+
+let environment: typeof Handlebars | null = null;
+
+/**
+ * The isolated handlebars environment of the pages (built once per process): every partial of
+ * `templates/partials/` and the helpers `chartSvg` and `mark`.
+ */
+export function pageEnvironment(): typeof Handlebars {
+  if (environment) return environment;
   const hb = Handlebars.create();
   const partials = new URL("partials/", TEMPLATE_DIR);
   for (const file of readdirSync(partials).sort()) {
@@ -81,17 +93,24 @@ function template(): Handlebars.TemplateDelegate {
     hb.registerPartial(file.slice(0, -4), readFileSync(new URL(file, partials), "utf8"));
   }
   // The chart SVG is rendered by vega from data it escapes, with our escaped <title>: placed as is.
-  hb.registerHelper("chartSvg", (chart: Chart) => new hb.SafeString(chart.svg));
+  hb.registerHelper("chartSvg", (chart: Pick<Chart, "svg">) => new hb.SafeString(chart.svg));
   // {{mark status}} or {{mark status lowConfidence}}: the last argument of a helper is handlebars' options.
   hb.registerHelper("mark", (status: Status, ...rest: unknown[]) => {
     const low = rest.length > 1 && rest[0] === true;
-    return new hb.SafeString(MARKS.get(low ? `${status}-low` : status) ?? MARKS.get("no-stay")!);
+    return new hb.SafeString(statusMark(status, low));
   });
-  css = readFileSync(new URL("report.css", TEMPLATE_DIR), "utf8");
-  compiled = hb.compile(readFileSync(new URL("report.hbs", TEMPLATE_DIR), "utf8"), {
-    strict: true,
-    noEscape: false,
-  });
+  environment = hb;
+  return hb;
+}
+
+let compiled: Handlebars.TemplateDelegate | null = null;
+let css = "";
+
+/** Compiles the report's template once per process. */
+function template(): Handlebars.TemplateDelegate {
+  if (compiled) return compiled;
+  css = templateText("report.css");
+  compiled = pageEnvironment().compile(templateText("report.hbs"), { strict: true, noEscape: false });
   return compiled;
 }
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { runCli } from "./runCli.js";
 
-const COMMANDS = ["init", "plan", "climate", "precharge", "band", "pdf"];
+const COMMANDS = ["init", "plan", "climate", "precharge", "band", "energy", "pdf"];
 
 describe("command line", () => {
   // Exit codes: README, Outputs (0 success, 2 input or usage error).

@@ -174,7 +174,7 @@ describe("coldsoak plan", () => {
             delete t.nitrogen;
           }),
         SCHEDULE,
-        /plan\.yaml:\d+:nitrogen: missing; expected an object/,
+        /plan\.yaml:\d+:nitrogen: missing; expected the nitrogen section .*only "coldsoak screen" reads a plan without it/,
       ],
       [
         "a station not in the climate data",

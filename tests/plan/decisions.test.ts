@@ -4,7 +4,12 @@
  * constructed.
  */
 import { describe, expect, it } from "vitest";
-import { aircraftAction, type DecisionThresholds, monthStatus } from "../../src/plan/decisions.js";
+import {
+  aircraftAction,
+  type DecisionThresholds,
+  monthStatus,
+  needSeason,
+} from "../../src/plan/decisions.js";
 import { runPlan } from "../../src/plan/engine.js";
 import type { StayMonthRow } from "../../src/plan/results.js";
 import type { Stay } from "../../src/plan/schedule.js";
@@ -332,5 +337,24 @@ describe("a base with covered and uncovered stays (docs/methods.md §4, §6)", (
     // D1: 20 February – 9 March, 9 of 18 days present on each year: 50 %.
     expect(line).toContain("2015: window 2015-02-20 to 2015-03-09, 50.0 % of hours present (D1)");
     expect(line).toContain("no year covers C1 2027-03-02 to 2027-03-20: lacks Mar");
+  });
+});
+
+describe("season of a need over the calendar (docs/methods.md §8)", () => {
+  // Definitions: the season is the cycle of months outside the longest run without the need.
+  it("reads a winter across the new year as one season", () => {
+    expect(needSeason([1, 2, 3, 11, 12])).toEqual({ fitBy: 11, notNeededAfter: 3 });
+    expect(needSeason([12, 1])).toEqual({ fitBy: 12, notNeededAfter: 1 });
+    expect(needSeason([2])).toEqual({ fitBy: 2, notNeededAfter: 2 });
+  });
+
+  it("keeps a short break inside the season and takes the first of equal breaks", () => {
+    expect(needSeason([1, 3, 11, 12])).toEqual({ fitBy: 11, notNeededAfter: 3 });
+    expect(needSeason([1, 7])).toEqual({ fitBy: 7, notNeededAfter: 1 });
+  });
+
+  it("gives none without a month and the calendar year with all twelve", () => {
+    expect(needSeason([])).toBeNull();
+    expect(needSeason([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12])).toEqual({ fitBy: 1, notNeededAfter: 12 });
   });
 });

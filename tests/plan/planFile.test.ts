@@ -1,6 +1,6 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { parsePlanText } from "../../src/plan/planFile.js";
+import { parsePlanFileText, parsePlanText } from "../../src/plan/planFile.js";
 import { M3_PER_IN3, PA_PER_PSI } from "../../src/units/index.js";
 
 const FIXTURE = new URL("../fixtures/plan/minimal-plan.yaml", import.meta.url);
@@ -96,6 +96,34 @@ describe("plan file", () => {
     );
     expect(errorOf(nitrogen('  stock: { cylinders: 2, resupplyEvery: "12 h" }\n'))).toBe(
       `plan.yaml:${line}:nitrogen.stock.resupplyEvery: expected an interval of at least one day`,
+    );
+  });
+});
+
+describe("a plan file for the screen (no bases, schedule or nitrogen)", () => {
+  const bases = /\nbases:\n(?: {2}[^\n]*\n)+/;
+  const nitrogen = /\nnitrogen:\n(?: {2}[^\n]*\n)+/;
+  const screenOnly = text
+    .replace(bases, "\n")
+    .replace(nitrogen, "\n")
+    .replace(/\nschedule:[^\n]*/, "");
+
+  it("is valid for the screen, with its profiles, operations, thresholds and climate settings", () => {
+    expect(screenOnly).not.toMatch(/^(bases|nitrogen|schedule):/m);
+    const p = parsePlanFileText(screenOnly, "plan.yaml");
+    expect(p.bases).toBeUndefined();
+    expect(p.nitrogen).toBeUndefined();
+    expect(p.profiles.map((x) => x.name)).toEqual(["standard"]);
+    expect(p.climate.minYears).toBe(1);
+  });
+
+  it("is refused by the planning engine at the plan's first key, naming the missing section", () => {
+    const first = text.split("\n").findIndex((l) => l.startsWith("name:")) + 1;
+    expect(errorOf(screenOnly)).toBe(
+      `plan.yaml:${first}:bases: missing; expected a list of bases, each with its name and climate stations (only "coldsoak screen" reads a plan without it)`,
+    );
+    expect(errorOf(text.replace(nitrogen, "\n"))).toMatch(
+      /^plan\.yaml:\d+:nitrogen: missing; expected the nitrogen section .*only "coldsoak screen" reads a plan without it\)$/,
     );
   });
 });

@@ -11,7 +11,9 @@ import {
 } from "../../src/report/browser.js";
 import { renderReport } from "../../src/report/index.js";
 import { PDF_FOOTER_CAUTION, PDF_FOOTER_TEMPLATE, writePdf } from "../../src/report/pdf.js";
+import { renderScreenPage } from "../../src/report/screenPage.js";
 import { makeResults } from "../fixtures/report/results.js";
+import { makeScreenResults } from "../fixtures/report/screenResults.js";
 import { readPng } from "./png.js";
 
 // Opens the report in the system Chromium (headless, no network). Where no browser exists this
@@ -251,5 +253,70 @@ describe("PDF without a browser, and pdf command errors", () => {
       false,
     );
     expect(chromiumAvailable({ COLDSOAK_CHROMIUM: fileURLToPath(import.meta.url) })).toBe(false);
+  });
+});
+
+describe.skipIf(SKIP)("screen page in a real browser", () => {
+  let launched: LaunchedBrowser;
+  let page = "";
+  let hostile = "";
+
+  beforeAll(async () => {
+    expect(HAVE_BROWSER, `CI needs Chromium at ${chromiumPath()}`).toBe(true);
+    vi.stubEnv("SOURCE_DATE_EPOCH", "1700000000");
+    mkdirSync(OUT, { recursive: true });
+    page = `${OUT}screen.html`;
+    hostile = `${OUT}screen-hostile.html`;
+    writeFileSync(page, renderScreenPage(makeScreenResults({ units: "us" })));
+    writeFileSync(hostile, renderScreenPage(makeScreenResults({ hostile: true })));
+    launched = await launchChromium();
+  });
+  afterAll(async () => {
+    vi.unstubAllEnvs();
+    await launched?.close();
+  });
+
+  it("opens without console errors or network requests, sizes the map and saves a screenshot", async () => {
+    const v = await visit(launched, page);
+    expect(v.consoleErrors).toEqual([]);
+    expect(v.blocked).toEqual([]);
+    const sizes = (await v.page.evaluate(
+      `[...document.querySelectorAll("figure.chart svg")].map((e) => { const r = e.getBoundingClientRect(); return [r.width, r.height]; })`,
+    )) as [number, number][];
+    expect(sizes.length).toBe(1); // the map
+    for (const [w, h] of sizes) {
+      expect(w).toBeGreaterThan(300);
+      expect(h).toBeGreaterThan(150);
+    }
+    // One point per station, and one row per station in the table (sorted by risk: the coldest first).
+    expect(await v.page.evaluate(`document.querySelectorAll("figure.chart svg g.pt").length`)).toBe(5);
+    const rows = (await v.page.evaluate(
+      `[...document.querySelectorAll("table.screen tbody th")].map((th) => th.firstChild.textContent)`,
+    )) as string[];
+    expect(rows).toEqual(["NORTH RIDGE", "LAKE PLAIN", "RIVER FORK", "COAST POINT", "DRY HILL"]);
+    await v.page.screenshot({ path: `${OUT}screen.png`, fullPage: true });
+    expect(statSync(`${OUT}screen.png`).size).toBeGreaterThan(50_000);
+    await v.page.emulateMediaType("print");
+    const printWidth = (await v.page.evaluate(
+      `document.querySelector("figure.chart svg").getBoundingClientRect().width`,
+    )) as number;
+    expect(printWidth).toBeGreaterThan(300);
+    await v.page.close();
+  });
+
+  it("parses the hostile page into no script or img element and fires no dialog", async () => {
+    const v = await visit(launched, hostile);
+    const counts = (await v.page.evaluate(
+      `[document.querySelectorAll("script").length, document.querySelectorAll("img").length, [...document.querySelectorAll("*")].filter((e) => [...e.attributes].some((a) => a.name.startsWith("on"))).length]`,
+    )) as number[];
+    expect(counts).toEqual([0, 0, 0]);
+    expect([v.dialogs, v.blocked, v.consoleErrors]).toEqual([[], [], []]);
+    const tooltip = (await v.page.evaluate(
+      `document.querySelector("g.pt[data-station='999901-99999'] title").textContent`,
+    )) as string;
+    expect(tooltip).toMatch(
+      /^<script>alert\(1\)<\/script>"><img src=x onerror=alert\(1\)> \(999901-99999\): 5 months/,
+    );
+    await v.page.close();
   });
 });

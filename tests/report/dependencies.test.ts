@@ -3,9 +3,10 @@ import { dirname, join, relative, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 
-// The report and the output files are written from `results.json` alone: from the plan they may
-// import only the `Results` types (plan/results.ts, type-only), and nothing from the climate code or
-// the CLI. Checked on the source text of every module in src/report and src/output.
+// The report and the output files are written from `results.json` (and the screen's pages and tables
+// from `screen.json`) alone: from the plan they may import only the contract types (plan/results.ts,
+// plan/screenResults.ts, type-only), and nothing from the climate code or the CLI. Checked on the
+// source text of every module in src/report and src/output.
 
 const SRC = fileURLToPath(new URL("../../src/", import.meta.url));
 
@@ -42,9 +43,11 @@ describe("report and output dependencies", () => {
     expect(all.some((i) => i.file.startsWith("report/sections/"))).toBe(true);
   });
 
-  it("import from the plan only the Results types, type-only", () => {
+  it("import from the plan only the contract types, type-only", () => {
+    const contracts = new Set(["plan/results", "plan/screenResults"]);
     const plan = all.filter((i) => i.target.startsWith("plan/"));
-    expect(plan.filter((i) => i.target !== "plan/results" || !i.typeOnly)).toEqual([]);
+    expect(plan.filter((i) => !contracts.has(i.target) || !i.typeOnly)).toEqual([]);
+    expect(all.some((i) => i.target === "plan/screenResults")).toBe(true);
   });
 
   it("import nothing from the climate code or the CLI", () => {
