@@ -13,6 +13,7 @@ import { loadPlan, type Plan } from "../plan/planFile.js";
 import type { Results } from "../plan/results.js";
 import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
+import { whatIfNames, withWhatIf } from "../plan/whatIfRun.js";
 import { renderReport, writePdf } from "../report/index.js";
 import { formatDisplay, pct, showWithUnit, unitSystem } from "../units/index.js";
 import { writeOutputFolder } from "./outputFolder.js";
@@ -24,6 +25,7 @@ export interface PlanCliOptions {
   cache: boolean;
   cacheDir?: string;
   pdf?: boolean;
+  whatIf?: boolean;
 }
 
 const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
@@ -145,8 +147,12 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
   });
   files.stop();
   const sims = progressBar("stay-years");
-  const { results } = runPlan(plan, stays, climate, { onProgress: sims.update });
+  const plain = runPlan(plan, stays, climate, { onProgress: sims.update }).results;
   sims.stop();
+  const variants = progressBar("what-if runs");
+  const names = whatIfNames(plan, opts.whatIf === true);
+  const results = await withWhatIf(plan, stays, climate, plain, names, { onProgress: variants.update });
+  variants.stop();
   const out = new Map<string, string>();
   out.set("results.json", resultsJson(results));
   for (const t of resultTables(results)) out.set(`${t.name}.csv`, toCsv(t));
@@ -179,6 +185,10 @@ export function registerPlan(program: Command): void {
     .option("--out <dir>", "output root folder; results go to <dir>/<plan name>/", "out")
     .option("--json", "print results.json on stdout instead of the summary")
     .option(
+      "--what-if",
+      "also run every what-if variant over the same climate (the plan's whatIf: list, when it has one, names them)",
+    )
+    .option(
       "--pdf",
       "also print the report to report.pdf through the system Chromium (skipped, with a note, when none)",
     )
@@ -196,7 +206,8 @@ Output (in <out>/<plan name>/, replaced only after a successful run):
                  climate_months, daily_range_histogram, nitrogen_stays, nitrogen_fleet,
                  nitrogen_timeline, nitrogen_cylinder_gas, trapped_charge, traces, stations,
                  atmosphere, precharge_line, band, base_curves, stays, stay_months, aircraft_actions,
-                 assumptions
+                 assumptions, break_even, energy_curve, design_point, design_temperatures,
+                 design_months, hours_below, what_if (with what-if variants)
   report.html    the self-contained planning report
 
 Schedule CSV: aircraft,base,arrive,depart[,cold_start_option][,profile]
@@ -206,6 +217,7 @@ Examples:
   coldsoak plan sample-data/demo-plan.yaml
   coldsoak plan plan.yaml --schedule winter.csv --out results
   coldsoak plan plan.yaml --json > results.json
+  coldsoak plan sample-data/demo-plan.yaml --what-if
 
 Planning estimates, not maintenance data: service from the approved maintenance data and the
 manufacturer's instructions, follow local rules, and take high-pressure gas precautions.`,

@@ -19,6 +19,7 @@ import type {
   StayResult,
 } from "../plan/results.js";
 import { formatMachine, shownText, unitSystem } from "../units/index.js";
+import { designTables } from "./designTables.js";
 
 export type Cell = string | number | boolean | null;
 export interface Table {
@@ -42,9 +43,9 @@ export function toCsv(t: Table): string {
 }
 
 /** A column: its CSV header (unit in the name) and how to read its cell from a row's source. */
-type Column<T> = [header: string, value: (row: T) => Cell];
+export type Column<T> = [header: string, value: (row: T) => Cell];
 
-function table<T>(name: string, rows: T[], columns: Column<T>[]): Table {
+export function table<T>(name: string, rows: T[], columns: Column<T>[]): Table {
   return { name, columns: columns.map((c) => c[0]), rows: rows.map((row) => columns.map((c) => c[1](row))) };
 }
 
@@ -500,6 +501,7 @@ export function resultTables(r: Results): Table[] {
       ["at_temp_c", (a) => a.atTempC ?? null],
       ["origin", (a) => a.origin],
     ]),
+    ...designTables(r),
   ];
 }
 
