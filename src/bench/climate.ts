@@ -2,7 +2,8 @@
  * Benchmark of the climate reader: the full pipeline (gunzip, parse, quality control, site rule,
  * hourly grid, gap filling) on ≥ 50 MB of ISD text built from the real samples, against decompression
  * alone of the same file through the same stream setup and chunk size; then several files on worker
- * threads against the same single-stream decompression. Warm-up, then the median of 5 runs each.
+ * threads against the same single-stream decompression. A warm-up round, then 5 rounds in which every
+ * job runs once; each figure is the median and range over the rounds (ratios taken round by round).
  * A file this large is parsed on a worker thread while the main thread decompresses it (source.ts),
  * so the reader's time is about the decompression's plus the build (QC, site rule, grid) after it.
  *
@@ -14,12 +15,12 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { gunzipSync, gzipSync } from "node:zlib";
-import { buildStations } from "../climate/load.js";
+import { buildStations } from "../climate/build.js";
 import { readFilesInWorkers, workersAvailable } from "../climate/pool.js";
 import { readChunks, readClimateFile } from "../climate/source.js";
+import { type Figure, figureOf, REPEATS } from "./harness.js";
 
 const TARGET_BYTES = 50 * 1024 * 1024;
-const RUNS = 5;
 const PARALLEL_FILES = 4;
 const THREADS = 2;
 
@@ -56,24 +57,23 @@ function buildCopies(target: number): string[] {
 }
 
 function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)]!;
+  return figureOf(xs).median;
 }
 
 /**
- * Runs each job once to warm up, then RUNS rounds in which every job runs once (interleaved, so that a
- * change in machine load touches all of them alike); returns each job's median seconds.
+ * Runs each job once to warm up, then REPEATS rounds in which every job runs once (interleaved, so
+ * that a change in machine load touches all of them alike); returns each job's seconds, round by round.
  */
-async function timeInterleaved(jobs: (() => Promise<unknown>)[]): Promise<number[]> {
+async function timeInterleaved(jobs: (() => Promise<unknown>)[]): Promise<number[][]> {
   for (const job of jobs) await job();
   const times: number[][] = jobs.map(() => []);
-  for (let r = 0; r < RUNS; r++)
+  for (let r = 0; r < REPEATS; r++)
     for (let j = 0; j < jobs.length; j++) {
       const t0 = process.hrtime.bigint();
       await jobs[j]!();
       times[j]!.push(Number(process.hrtime.bigint() - t0) / 1e9);
     }
-  return times.map(median);
+  return times;
 }
 
 async function decompressOnly(path: string): Promise<number> {
@@ -82,7 +82,7 @@ async function decompressOnly(path: string): Promise<number> {
   return n;
 }
 
-export async function benchClimate(): Promise<Record<string, number>> {
+export async function benchClimate(): Promise<Record<string, Figure>> {
   const dir = mkdtempSync(join(tmpdir(), "coldsoak-bench-climate-"));
   try {
     const copies = buildCopies(TARGET_BYTES);
@@ -119,30 +119,36 @@ export async function benchClimate(): Promise<Record<string, number>> {
     ];
     if (parallel) jobs.push(async () => buildStations(await readFilesInWorkers(parts, {}, THREADS), 3));
     const [tDecompress, tReader, tParallel] = await timeInterleaved(jobs);
-    const decompressMBps = mb / tDecompress!;
-    const readerMBps = mb / tReader!;
-    console.log(`  gunzip only          ${decompressMBps.toFixed(1)} MB/s (median of ${RUNS})`);
+    const rate = (ts: number[]) => figureOf(ts.map((t) => mb / t));
+    const decompressMBps = rate(tDecompress!);
+    const readerMBps = rate(tReader!);
+    // Throughput ratios round by round: the reader's MB/s over decompression's in the same round.
+    const vsDecompress = (ts: number[]) => figureOf(ts.map((t, r) => tDecompress![r]! / t));
+    const readerVsDecompress = vsDecompress(tReader!);
+    const show = (f: Figure, digits = 1) =>
+      `${f.median.toFixed(digits)} (${f.min.toFixed(digits)}–${f.max.toFixed(digits)})`;
+    console.log(`  gunzip only          ${show(decompressMBps)} MB/s (median and range of ${REPEATS})`);
     console.log(
-      `  reader, one file     ${readerMBps.toFixed(1)} MB/s (gunzip + parse + QC + site rule + hourly grid)`,
+      `  reader, one file     ${show(readerMBps)} MB/s (gunzip + parse + QC + site rule + hourly grid)`,
     );
     console.log(
-      `    of which read ${median(readMs.slice(1)).toFixed(0)} ms, build ${median(buildMs.slice(1)).toFixed(0)} ms; gunzip alone ${(tDecompress! * 1000).toFixed(0)} ms (medians)`,
+      `    of which read ${median(readMs.slice(1)).toFixed(0)} ms, build ${median(buildMs.slice(1)).toFixed(0)} ms; gunzip alone ${(decompressMBps.median > 0 ? (mb / decompressMBps.median) * 1000 : 0).toFixed(0)} ms (medians)`,
     );
-    console.log(`  reader / gunzip      ${(readerMBps / decompressMBps).toFixed(2)} (target >= 0.7)`);
-    const parallelMBps = parallel ? mb / tParallel! : Number.NaN;
-    if (parallel)
-      console.log(
-        `  reader, ${PARALLEL_FILES} files on ${THREADS} worker threads ${parallelMBps.toFixed(1)} MB/s; / single gunzip ${(parallelMBps / decompressMBps).toFixed(2)} (target >= 1.0)`,
-      );
-    else console.log("  parallel run skipped: the compiled worker (dist/climate/worker.js) is not present");
-    return {
-      textMB: mb,
+    console.log(`  reader / gunzip      ${show(readerVsDecompress, 2)} (target >= 0.7)`);
+    const figures: Record<string, Figure> = {
+      textMB: figureOf([mb]),
       readerMBps,
       decompressMBps,
-      readerVsDecompress: readerMBps / decompressMBps,
-      parallelMBps,
-      parallelVsDecompress: parallelMBps / decompressMBps,
+      readerVsDecompress,
     };
+    if (parallel) {
+      figures["parallelMBps"] = rate(tParallel!);
+      figures["parallelVsDecompress"] = vsDecompress(tParallel!);
+      console.log(
+        `  reader, ${PARALLEL_FILES} files on ${THREADS} worker threads ${show(figures["parallelMBps"]!)} MB/s; / single gunzip ${show(figures["parallelVsDecompress"]!, 2)}`,
+      );
+    } else console.log("  parallel run skipped: the compiled worker (dist/climate/worker.js) is not present");
+    return figures;
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

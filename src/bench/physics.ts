@@ -17,8 +17,9 @@ import {
 import { tabulatedGas } from "../physics/gasTable.js";
 import { type GasModel, realGas } from "../physics/nitrogen.js";
 import { STANDARD_ATMOSPHERE_PA } from "../units/index.js";
+import { type Figure, figureOf, REPEATS, showFigure } from "./harness.js";
 
-const MIN_RUN_MS = 400;
+const MIN_RUN_MS = 200;
 
 /** Runs `batch` (which does `n` operations) until MIN_RUN_MS has passed; returns operations per second. */
 function rate(batch: () => number): number {
@@ -62,8 +63,8 @@ function trappedBatch(model: GasModel): () => number {
   };
 }
 
-export async function benchPhysics(): Promise<Record<string, number>> {
-  const table = tabulatedGas(realGas);
+/** One round of every rate and its ratios. */
+function physicsRound(table: GasModel): Record<string, number> {
   const R = 8.31451;
 
   const baselineIdealPerSecond = rate(() => {
@@ -139,16 +140,31 @@ export async function benchPhysics(): Promise<Record<string, number>> {
     trappedTableVsBaseline: trappedSolvesPerSecondTable / baselineIdealPerSecond,
     trappedTableVsTarget: trappedSolvesPerSecondTable / 500000,
   };
-  const fmt = (x: number) => (x >= 100 ? Math.round(x).toLocaleString("en-US") : x.toFixed(3));
+  return figures;
+}
+
+/**
+ * Every rate once to warm up, then REPEATS rounds of all of them; each figure is the median and range
+ * over the rounds, ratios taken within a round.
+ */
+export async function benchPhysics(): Promise<Record<string, Figure>> {
+  const table = tabulatedGas(realGas);
+  physicsRound(table);
+  const rounds: Record<string, number>[] = [];
+  for (let r = 0; r < REPEATS; r++) rounds.push(physicsRound(table));
+  const figures = Object.fromEntries(
+    Object.keys(rounds[0]!).map((k) => [k, figureOf(rounds.map((x) => x[k]!))]),
+  ) as Record<string, Figure>;
+  const fig = (k: string) => showFigure(figures[k]!, 3);
   const lines = [
-    "physics:",
-    `  baseline ideal-gas closed form     ${fmt(baselineIdealPerSecond)} /s`,
-    `  density from pressure, full        ${fmt(densityCallsPerSecond)} /s`,
-    `  density from pressure, table       ${fmt(densityCallsPerSecondTable)} /s  (×${fmt(figures.tableSpeedupDensity)})`,
-    `  trapped-state solves, full         ${fmt(trappedSolvesPerSecondFull)} /s`,
-    `  trapped-state solves, table        ${fmt(trappedSolvesPerSecondTable)} /s  (×${fmt(figures.tableSpeedupTrapped)}; ${fmt(figures.trappedTableVsTarget)} × the 500,000/s target)`,
-    `  start discharges, full / table     ${fmt(startsPerSecondFull)} / ${fmt(startsPerSecondTable)} /s`,
-    `  recharges, full / table            ${fmt(rechargesPerSecondFull)} / ${fmt(rechargesPerSecondTable)} /s`,
+    `physics (median and range of ${REPEATS} rounds):`,
+    `  baseline ideal-gas closed form     ${fig("baselineIdealPerSecond")} /s`,
+    `  density from pressure, full        ${fig("densityCallsPerSecond")} /s`,
+    `  density from pressure, table       ${fig("densityCallsPerSecondTable")} /s  (×${fig("tableSpeedupDensity")})`,
+    `  trapped-state solves, full         ${fig("trappedSolvesPerSecondFull")} /s`,
+    `  trapped-state solves, table        ${fig("trappedSolvesPerSecondTable")} /s  (×${fig("tableSpeedupTrapped")}; ${fig("trappedTableVsTarget")} × the 500,000/s target)`,
+    `  start discharges, full / table     ${fig("startsPerSecondFull")} / ${fig("startsPerSecondTable")} /s`,
+    `  recharges, full / table            ${fig("rechargesPerSecondFull")} / ${fig("rechargesPerSecondTable")} /s`,
   ];
   process.stdout.write(`${lines.join("\n")}\n`);
   if (sink === 42) process.stdout.write("\n");

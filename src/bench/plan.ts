@@ -1,7 +1,7 @@
 /**
  * Benchmark of the planning engine: accumulator-hours simulated per second on one core, and
  * the wall time of a plan of 10 bases × 30 years × 180-day stays on generated ISD-Lite climate files,
- * with an empty climate cache and with a warm one. Also exports the synthetic-climate writer the
+ * with an empty climate cache and with a warm one; each a warm-up, then the median and range of 5. Also exports the synthetic-climate writer the
  * plan tests use (invented stations 999801-99999 … in a temporary folder).
  */
 import { mkdtemp, rm, writeFile } from "node:fs/promises";
@@ -12,6 +12,7 @@ import { runPlan } from "../plan/engine.js";
 import { parsePlanText } from "../plan/planFile.js";
 import { loadPlanClimate } from "../plan/run.js";
 import type { Stay } from "../plan/schedule.js";
+import { type Figure, figureOf, REPEATS, repeated, showFigure } from "./harness.js";
 
 export interface SyntheticStation {
   id: string; // "USAF-WBAN", invented
@@ -120,7 +121,7 @@ nitrogen:
 `;
 }
 
-export async function benchPlan(): Promise<Record<string, number>> {
+export async function benchPlan(): Promise<Record<string, Figure>> {
   const root = await mkdtemp(join(tmpdir(), "coldsoak-bench-plan-"));
   try {
     const nBases = 10;
@@ -137,7 +138,7 @@ export async function benchPlan(): Promise<Record<string, number>> {
     const climateDir = join(root, "climate");
     await import("node:fs/promises").then((fs) => fs.mkdir(climateDir));
     const yearList = Array.from({ length: years[1] - years[0] + 1 }, (_, i) => years[0] + i);
-    let t = performance.now();
+    const t = performance.now();
     await writeSyntheticIsdLite(climateDir, stations, yearList);
     const genS = (performance.now() - t) / 1000;
     const bases = stations.map((s, i) => ({ name: `Base ${i + 1}`, station: s.id }));
@@ -159,44 +160,57 @@ export async function benchPlan(): Promise<Record<string, number>> {
     // Throughput on one base (climate already loaded).
     const oneBase = { ...plan, bases: plan.bases.slice(0, 1) } as typeof plan;
     const climate1 = await loadPlanClimate(oneBase, { cacheDir: null });
-    t = performance.now();
-    const one = runPlan(oneBase, stays.slice(0, 1), climate1);
-    const oneS = (performance.now() - t) / 1000;
-    const perSecond = one.stats.accumulatorHours / one.stats.simulationS;
+    const engineRates: number[] = [];
+    let hours = 0;
+    const simHoursPerSecond = await repeated(() => {
+      const t0 = performance.now();
+      const one = runPlan(oneBase, stays.slice(0, 1), climate1);
+      engineRates.push(one.stats.accumulatorHours / ((performance.now() - t0) / 1000));
+      hours = one.stats.accumulatorHours;
+      return one.stats.accumulatorHours / one.stats.simulationS;
+    });
+    const engineHoursPerSecond = figureOf(engineRates.slice(1));
     console.log(
-      `plan: ${one.stats.accumulatorHours} accumulator-hours (1 base, ${one.stats.stayYearsSimulated} stay-years): hour-by-hour loop ${one.stats.simulationS.toFixed(2)} s = ${(perSecond / 1e6).toFixed(3)} M accumulator-hours/s (target ≥ 0.5 M); whole engine ${oneS.toFixed(2)} s`,
+      `plan: ${hours} accumulator-hours per run (1 base): hour-by-hour loop ${showFigure(simHoursPerSecond, 0)} accumulator-hours/s (target ≥ 500,000); whole engine ${showFigure(engineHoursPerSecond, 0)} /s`,
     );
 
-    // Whole plan: cold cache, then warm cache.
-    const wall = async () => {
-      const t0 = performance.now();
-      const climate = await loadPlanClimate(plan);
-      const t1 = performance.now();
-      const r = runPlan(plan, stays, climate);
-      const t2 = performance.now();
-      return { loadS: (t1 - t0) / 1000, simS: (t2 - t1) / 1000, hours: r.stats.accumulatorHours };
+    // Whole plan: an empty cache (a fresh folder each time), then the filled one.
+    const loads: number[][] = [[], []];
+    const sims: number[][] = [[], []];
+    for (let i = 0; i <= REPEATS; i++) {
+      const cacheDir = join(root, `cache-${i}`);
+      for (const k of [0, 1]) {
+        // k = 0: the folder is empty; k = 1: the first load filled it.
+        const t0 = performance.now();
+        const climate = await loadPlanClimate(plan, { cacheDir });
+        const t1 = performance.now();
+        runPlan(plan, stays, climate);
+        const t2 = performance.now();
+        if (i === 0) continue; // warm-up
+        loads[k]!.push((t1 - t0) / 1000);
+        sims[k]!.push((t2 - t1) / 1000);
+      }
+    }
+    const total = (k: number) => figureOf(loads[k]!.map((l, i) => l + sims[k]![i]!));
+    const figures: Record<string, Figure> = {
+      simHoursPerSecond,
+      engineHoursPerSecond,
+      planColdCacheS: total(0),
+      planWarmCacheS: total(1),
+      planColdClimateS: figureOf(loads[0]!),
+      planWarmClimateS: figureOf(loads[1]!),
+      planSimulationS: figureOf(sims[1]!),
+      coldOverWarmRatio: figureOf(
+        loads[0]!.map((l, i) => (l + sims[0]![i]!) / (loads[1]![i]! + sims[1]![i]!)),
+      ),
     };
-    const cold = await wall();
-    const warm = await wall();
     console.log(
       `plan: generated ${nBases} stations × ${yearList.length} years of ISD-Lite in ${genS.toFixed(1)} s`,
     );
     console.log(
-      `plan: 10 bases × 30 years × 180 days, empty cache: ${(cold.loadS + cold.simS).toFixed(2)} s (climate ${cold.loadS.toFixed(2)} s, simulation ${cold.simS.toFixed(2)} s)`,
+      `plan: 10 bases × 30 years × 180 days, empty cache ${showFigure(figures["planColdCacheS"]!)} s (climate ${showFigure(figures["planColdClimateS"]!)} s); warm cache ${showFigure(figures["planWarmCacheS"]!)} s (climate ${showFigure(figures["planWarmClimateS"]!)} s, engine ${showFigure(figures["planSimulationS"]!)} s)`,
     );
-    console.log(
-      `plan: 10 bases × 30 years × 180 days, warm cache: ${(warm.loadS + warm.simS).toFixed(2)} s (climate ${warm.loadS.toFixed(2)} s, simulation ${warm.simS.toFixed(2)} s); cold/warm ${((cold.loadS + cold.simS) / (warm.loadS + warm.simS)).toFixed(2)}×`,
-    );
-    return {
-      simHoursPerSecond: perSecond,
-      engineHoursPerSecond: one.stats.accumulatorHours / oneS,
-      planColdCacheS: cold.loadS + cold.simS,
-      planWarmCacheS: warm.loadS + warm.simS,
-      planColdClimateS: cold.loadS,
-      planWarmClimateS: warm.loadS,
-      planSimulationS: warm.simS,
-      coldOverWarmRatio: (cold.loadS + cold.simS) / (warm.loadS + warm.simS),
-    };
+    return figures;
   } finally {
     await rm(root, { recursive: true, force: true });
   }

@@ -4,6 +4,7 @@ import { isMainModule } from "../entry.js";
 import { InputError } from "../errors.js";
 import { TOOL_VERSION } from "../version.js";
 import { registerCommands } from "./commands.js";
+import { writeRunStatsAtExit } from "./runStats.js";
 
 export function buildProgram(): Command {
   const program = new Command("coldsoak")
@@ -61,6 +62,7 @@ if (isMainModule(import.meta.url)) {
     if (err.code === "EPIPE") process.exit(process.exitCode ?? 0);
     throw err;
   });
+  writeRunStatsAtExit();
   main(process.argv.slice(2)).then((code) => {
     process.exitCode = code;
   });

@@ -1,21 +1,9 @@
-/** `coldsoak pdf <report.html> [--out file.pdf] [--paper a4|letter]`: prints a report to PDF. */
-import { existsSync, statSync } from "node:fs";
+/**
+ * `coldsoak pdf`: the command's definition (arguments, options, help). Its work, `pdfRun.ts`, with the
+ * browser driver, is loaded only when the command runs.
+ */
 import type { Command } from "commander";
-import { InputError } from "../errors.js";
-import { type Paper, writePdf } from "../report/pdf.js";
-
-/** Checks the command's inputs; throws InputError (exit 2) saying what was expected. */
-export function checkPdfInputs(report: string, paperText: string): Paper {
-  if (!existsSync(report)) throw new InputError(`${report}: no such file (expected a report.html)`);
-  if (!statSync(report).isFile())
-    throw new InputError(`${report}: is a folder (expected the report.html file inside it)`);
-  if (!/\.html?$/i.test(report))
-    throw new InputError(`${report}: not an HTML file (expected the report.html written by coldsoak plan)`);
-  const paper = paperText.toLowerCase();
-  if (paper !== "a4" && paper !== "letter")
-    throw new InputError(`--paper: expected a4 or letter, got "${paperText}"`);
-  return paper;
-}
+import type { PdfCliOptions } from "./pdfRun.js";
 
 export function registerPdf(program: Command): void {
   program
@@ -34,11 +22,8 @@ export function registerPdf(program: Command): void {
         "\nNeeds Chromium: Debian's `apt-get install chromium`, or set COLDSOAK_CHROMIUM to its binary.\n" +
         "Exit codes: 0 success, 2 bad input or usage, 1 anything else, such as no browser.",
     )
-    .action(async (report: string, opts: { out?: string; paper: string }) => {
-      const paper = checkPdfInputs(report, opts.paper);
-      const out = opts.out ?? `${report.replace(/\.html?$/i, "")}.pdf`;
-      const result = await writePdf(report, out, { paper });
-      if (!result.ok) throw new Error(result.message);
-      process.stdout.write(`${out}\n`);
+    .action(async (report: string, opts: PdfCliOptions) => {
+      const { pdfAction } = await import("./pdfRun.js");
+      await pdfAction(report, opts);
     });
 }

@@ -14,9 +14,8 @@ import { createReadStream } from "node:fs";
 import { readFile, stat } from "node:fs/promises";
 import { endianness } from "node:os";
 import { join } from "node:path";
-import { z } from "zod";
 import { writeFileAtomic } from "../fsutil.js";
-import { DROP_REASONS, type StationClimate } from "./types.js";
+import { DROP_REASONS, type MonthClimate, type StationClimate } from "./types.js";
 
 /** Bump whenever a reader or a rule changes what a file turns into. */
 export const READER_VERSION = "climate-reader-2";
@@ -66,46 +65,132 @@ export function cacheKey(parts: unknown): string {
     .digest("hex");
 }
 
-const qcSchema = z.object({
-  read: z.number().int().nonnegative(),
-  kept: z.number().int().nonnegative(),
-  dropped: z.object(Object.fromEntries(DROP_REASONS.map((r) => [r, z.number().int().nonnegative()]))),
-});
-const stationSchema = z.object({
-  meta: z.object({
-    id: z.string(),
-    name: z.string().nullable(),
-    lat: z.number(),
-    lon: z.number(),
-    elevationM: z.number(),
-    timeZone: z.string(),
-    callLetters: z.string().nullable(),
-  }),
-  startUtcMs: z.number(),
-  hours: z.number().int().nonnegative(),
+/** What the body of an entry says of one station (see `encode`). */
+interface CachedStation {
+  meta: StationClimate["meta"];
+  startUtcMs: number;
+  hours: number;
   /** Byte offset of the station's Float64 values in the binary file (a multiple of 8). */
-  tempOffset: z.number().int().nonnegative(),
+  tempOffset: number;
   /** Byte offset of its `filled` flags (one byte per hour). */
-  filledOffset: z.number().int().nonnegative(),
-  qc: qcSchema,
-  extremes: z
-    .object({ minC: z.number(), minUtc: z.string(), maxC: z.number(), maxUtc: z.string() })
-    .nullable(),
-  meanStationPressureHpa: z.number().nullable(),
-  malformedExamples: z.array(z.string()),
-});
-const bodySchema = z.object({
-  dataBytes: z.number().int().nonnegative(),
-  dataSha256: z.string(),
-  stations: z.array(stationSchema),
-  skipped: z.array(z.string()),
-});
-const entrySchema = z.object({
-  kind: z.literal("coldsoak-climate-cache"),
-  key: z.string(),
-  checksum: z.string(),
-  body: z.string(),
-});
+  filledOffset: number;
+  qc: StationClimate["qc"];
+  extremes: StationClimate["extremes"];
+  meanStationPressureHpa: number | null;
+  malformedExamples: string[];
+  /** The monthly climatology, when it was computed before the entry was written. */
+  months?: MonthClimate[];
+}
+
+interface CacheBody {
+  dataBytes: number;
+  dataSha256: string;
+  stations: CachedStation[];
+  skipped: string[];
+}
+
+/*
+ * The shape of an entry is checked by hand, field by field, rather than through the plan file's schema
+ * library: that library takes longer to load than a warm read takes in all. An entry is only read once
+ * its key and the checksum of its body match, so the check guards against a body written by another
+ * version of this code, not against damage.
+ */
+type Fields = Record<string, unknown>;
+const isObject = (v: unknown): v is Fields => typeof v === "object" && v !== null && !Array.isArray(v);
+const isNumber = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
+const isCount = (v: unknown): v is number => Number.isInteger(v) && (v as number) >= 0;
+const isString = (v: unknown): v is string => typeof v === "string";
+const isStringOrNull = (v: unknown): v is string | null => v === null || typeof v === "string";
+const isStrings = (v: unknown): v is string[] => Array.isArray(v) && v.every(isString);
+
+function asMeta(v: unknown): CachedStation["meta"] | null {
+  if (!isObject(v)) return null;
+  const { id, name, lat, lon, elevationM, timeZone, callLetters } = v;
+  if (!isString(id) || !isStringOrNull(name) || !isNumber(lat) || !isNumber(lon) || !isNumber(elevationM))
+    return null;
+  if (!isString(timeZone) || !isStringOrNull(callLetters)) return null;
+  return { id, name, lat, lon, elevationM, timeZone, callLetters };
+}
+
+function asQc(v: unknown): CachedStation["qc"] | null {
+  if (!isObject(v) || !isCount(v["read"]) || !isCount(v["kept"]) || !isObject(v["dropped"])) return null;
+  const from = v["dropped"];
+  const dropped = {} as CachedStation["qc"]["dropped"];
+  for (const r of DROP_REASONS) {
+    const n = from[r];
+    if (!isCount(n)) return null;
+    dropped[r] = n;
+  }
+  return { read: v["read"], kept: v["kept"], dropped };
+}
+
+function asExtremes(v: unknown): CachedStation["extremes"] | undefined {
+  if (v === null) return null;
+  if (!isObject(v)) return undefined;
+  const { minC, minUtc, maxC, maxUtc } = v;
+  if (!isNumber(minC) || !isString(minUtc) || !isNumber(maxC) || !isString(maxUtc)) return undefined;
+  return { minC, minUtc, maxC, maxUtc };
+}
+
+/** Twelve months 1–12, each figure a number or null; undefined when absent or of another shape. */
+function asMonths(v: unknown): MonthClimate[] | undefined {
+  if (!Array.isArray(v) || v.length !== 12) return undefined;
+  const figure = (x: unknown) => x === null || isNumber(x);
+  const months: MonthClimate[] = [];
+  for (const [i, m] of v.entries()) {
+    if (!isObject(m) || m["month"] !== i + 1) return undefined;
+    const { minC, meanC, maxC, meanDailyRangeC, p90DailyRangeC } = m;
+    if (![minC, meanC, maxC, meanDailyRangeC, p90DailyRangeC].every(figure)) return undefined;
+    months.push({ month: i + 1, minC, meanC, maxC, meanDailyRangeC, p90DailyRangeC } as MonthClimate);
+  }
+  return months;
+}
+
+function asStation(v: unknown): CachedStation | null {
+  if (!isObject(v)) return null;
+  const meta = asMeta(v["meta"]);
+  const qc = asQc(v["qc"]);
+  const extremes = asExtremes(v["extremes"]);
+  const { startUtcMs, hours, tempOffset, filledOffset, meanStationPressureHpa, malformedExamples } = v;
+  if (meta === null || qc === null || extremes === undefined || !isNumber(startUtcMs)) return null;
+  if (!isCount(hours) || !isCount(tempOffset) || !isCount(filledOffset)) return null;
+  if (!(meanStationPressureHpa === null || isNumber(meanStationPressureHpa)) || !isStrings(malformedExamples))
+    return null;
+  const months = asMonths(v["months"]);
+  if (v["months"] !== undefined && months === undefined) return null;
+  return {
+    ...(months ? { months } : {}),
+    meta,
+    startUtcMs,
+    hours,
+    tempOffset,
+    filledOffset,
+    qc,
+    extremes,
+    meanStationPressureHpa,
+    malformedExamples,
+  };
+}
+
+/** The body of an entry with every field checked and no other field kept, or null. */
+function asBody(v: unknown): CacheBody | null {
+  if (!isObject(v) || !isCount(v["dataBytes"]) || !isString(v["dataSha256"])) return null;
+  if (!Array.isArray(v["stations"]) || !isStrings(v["skipped"])) return null;
+  const stations: CachedStation[] = [];
+  for (const s of v["stations"]) {
+    const station = asStation(s);
+    if (station === null) return null;
+    stations.push(station);
+  }
+  return { dataBytes: v["dataBytes"], dataSha256: v["dataSha256"], stations, skipped: v["skipped"] };
+}
+
+/** The envelope of an entry: its kind, key, the body's checksum and the body text; or null. */
+function asEnvelope(v: unknown): { key: string; checksum: string; body: string } | null {
+  if (!isObject(v) || v["kind"] !== "coldsoak-climate-cache") return null;
+  const { key, checksum, body } = v;
+  return isString(key) && isString(checksum) && isString(body) ? { key, checksum, body } : null;
+}
 
 function sha256(data: string | Uint8Array): string {
   return createHash("sha256").update(data).digest("hex");
@@ -144,6 +229,7 @@ function encode({ stations, skipped }: CachedSelection): { body: string; data: B
       extremes: s.extremes,
       meanStationPressureHpa: s.meanStationPressureHpa,
       malformedExamples: s.malformedExamples,
+      ...(s.months ? { months: s.months } : {}),
     })),
     skipped,
   });
@@ -152,9 +238,9 @@ function encode({ stations, skipped }: CachedSelection): { body: string; data: B
 
 /** The stations of an entry, or null when the binary file does not match the body. */
 function decode(body: string, data: Buffer): CachedSelection | null {
-  const parsed = bodySchema.safeParse(JSON.parse(body));
-  if (!parsed.success) return null;
-  const { dataBytes, dataSha256, stations, skipped } = parsed.data;
+  const parsed = asBody(JSON.parse(body));
+  if (parsed === null) return null;
+  const { dataBytes, dataSha256, stations, skipped } = parsed;
   if (data.length !== dataBytes || sha256(data) !== dataSha256) return null;
   // Float64 views need an 8-byte aligned start; a read buffer normally has one, else copy.
   const bytes =
@@ -176,10 +262,11 @@ function decode(body: string, data: Buffer): CachedSelection | null {
         tempC: new Float64Array(bytes.buffer, bytes.byteOffset + s.tempOffset, s.hours),
         filled: new Uint8Array(bytes.buffer, bytes.byteOffset + s.filledOffset, s.hours),
       },
-      qc: s.qc as StationClimate["qc"],
+      qc: s.qc,
       extremes: s.extremes,
       meanStationPressureHpa: s.meanStationPressureHpa,
       malformedExamples: s.malformedExamples,
+      ...(s.months ? { months: s.months } : {}),
     });
   }
   return { stations: out, skipped };
@@ -215,9 +302,11 @@ export async function readCache(cacheDir: string, key: string): Promise<CachedSe
     return null;
   }
   try {
-    const entry = entrySchema.parse(JSON.parse(text));
+    const entry = asEnvelope(JSON.parse(text));
     const stations =
-      entry.key === key && sha256(entry.body) === entry.checksum ? decode(entry.body, data) : null;
+      entry !== null && entry.key === key && sha256(entry.body) === entry.checksum
+        ? decode(entry.body, data)
+        : null;
     if (stations !== null) {
       hits++;
       return stations;

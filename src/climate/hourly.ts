@@ -83,14 +83,16 @@ export function fillGapsInPlace(series: HourlySeries, gapHours: number): void {
 
 /** Hours with a value (filled ones included). */
 export function presentHours(series: HourlySeries): number {
+  const t = series.tempC;
   let n = 0;
-  for (const v of series.tempC) if (!Number.isNaN(v)) n++;
+  for (let i = 0; i < t.length; i++) if (!Number.isNaN(t[i]!)) n++;
   return n;
 }
 
 export function filledHours(series: HourlySeries): number {
+  const f = series.filled;
   let n = 0;
-  for (const f of series.filled) n += f;
+  for (let i = 0; i < f.length; i++) n += f[i]!;
   return n;
 }
 

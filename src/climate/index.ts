@@ -1,4 +1,6 @@
 /** Climate ingestion: NOAA ISD files in, cleaned hourly temperature series out (docs/methods.md, "Climate data"). */
+
+export { buildStations, type ClimateSelection, readClimateFiles } from "./build.js";
 export { cacheStats, fileHash, READER_VERSION, resetCacheStats } from "./cache.js";
 export {
   type DailyRange,
@@ -27,15 +29,7 @@ export {
   windowCompleteness,
   yearCompleteness,
 } from "./hourly.js";
-export {
-  buildStations,
-  type ClimateSelection,
-  climateOptions,
-  listClimateFiles,
-  loadClimate,
-  loadClimateSelection,
-  readClimateFiles,
-} from "./load.js";
+export { climateOptions, listClimateFiles, loadClimate, loadClimateSelection } from "./load.js";
 export { hourlyOffsetsMin, localDays, timeZoneFor } from "./localTime.js";
 export { TEMP_MAX_TENTHS, TEMP_MIN_TENTHS } from "./qc.js";
 export { detectFormat, readClimateFile } from "./source.js";

@@ -7,14 +7,8 @@ import { readdir, realpath, stat } from "node:fs/promises";
 import { basename, join, resolve } from "node:path";
 import { inputError } from "../errors.js";
 import { type FileKind, readFailure, specialFileKind } from "../fsutil.js";
+import type { ClimateSelection } from "./build.js";
 import { cacheKey, fileHash, readCache, writeCache } from "./cache.js";
-import { fillGapsInPlace, hourlyFromObservations } from "./hourly.js";
-import { timeZoneFor } from "./localTime.js";
-import { readFilesInWorkers, workersAvailable } from "./pool.js";
-import { partsOfFile, qualityControl, type StationPart } from "./qc.js";
-import { MISSING_ELEV, type ParsedFile } from "./records.js";
-import { type ReadOptions, readClimateFile } from "./source.js";
-import { type HistoryEntry, readStationHistory } from "./stationHistory.js";
 import {
   type ClimateOptions,
   DEFAULT_CACHE_DIR,
@@ -22,9 +16,6 @@ import {
   DROP_REASONS,
   type StationClimate,
 } from "./types.js";
-
-/** Below this many files the worker threads cost more than they save. */
-const MIN_FILES_FOR_WORKERS = 4;
 
 /**
  * Every climate file under the given files and folders, sorted: folders are read recursively (hidden
@@ -78,125 +69,6 @@ function refuseSpecialFile(path: string, st: FileKind): void {
   const why = specialFileKind(st);
   if (why !== null)
     throw inputError(path, undefined, undefined, `is ${why}, not a regular file; expected a climate file`);
-}
-
-/** Reads the files (on worker threads when there are several and the compiled worker exists). */
-export async function readClimateFiles(
-  files: string[],
-  options: ReadOptions,
-  onProgress?: (done: number, total: number) => void,
-): Promise<ParsedFile[]> {
-  if (files.length >= MIN_FILES_FOR_WORKERS && workersAvailable())
-    return readFilesInWorkers(files, options, undefined, (d) => onProgress?.(d, files.length));
-  const out: ParsedFile[] = [];
-  for (const f of files) {
-    out.push(await readClimateFile(f, options));
-    onProgress?.(out.length, files.length);
-  }
-  return out;
-}
-
-/** The stations built from a set of files, and the ids of the stations the files hold but were not asked for. */
-export interface ClimateSelection {
-  stations: StationClimate[];
-  skipped: string[];
-}
-
-/**
- * Quality control, hourly grid and gap filling for every station found in the parsed files
- * (files in reading order; a station's records from all files are taken together), sorted by id.
- */
-export function buildStations(
-  files: ParsedFile[],
-  gapHours: number,
-  history: Map<string, HistoryEntry> | null = null,
-): StationClimate[] {
-  return buildSelection(files, gapHours, history, null).stations;
-}
-
-/** buildStations for the stations in `wanted` only (all when null): the others, read, are given no quality control or series. */
-export function buildSelection(
-  files: ParsedFile[],
-  gapHours: number,
-  history: Map<string, HistoryEntry> | null,
-  wanted: ReadonlySet<string> | null,
-): ClimateSelection {
-  const typeCodes = new Map<string, number>();
-  const typeCode = (t: string) => {
-    const known = typeCodes.get(t);
-    if (known !== undefined) return known;
-    const c = typeCodes.size % 256;
-    typeCodes.set(t, c);
-    return c;
-  };
-  const parts = new Map<string, StationPart[]>();
-  for (const file of files)
-    for (const part of partsOfFile(file)) {
-      const id = file.stations[part.station]!;
-      const list = parts.get(id) ?? [];
-      list.push(part);
-      parts.set(id, list);
-    }
-  const ids = [...parts.keys()].sort();
-  return {
-    stations: ids
-      .filter((id) => wanted === null || wanted.has(id))
-      .map((id) => buildStation(id, parts.get(id)!, typeCode, gapHours, history?.get(id) ?? null)),
-    skipped: wanted === null ? [] : ids.filter((id) => !wanted.has(id)),
-  };
-}
-
-/** One station from its parts in every file: quality control, position, hourly grid, gap filling. */
-function buildStation(
-  id: string,
-  stationParts: StationPart[],
-  typeCode: (type: string) => number,
-  gapHours: number,
-  hist: HistoryEntry | null,
-): StationClimate {
-  const r = qualityControl(stationParts, typeCode);
-  const where = stationParts[0]!.file.path;
-  let lat = r.position ? r.position.latMilli / 1000 : (hist?.lat ?? null);
-  let lon = r.position ? r.position.lonMilli / 1000 : (hist?.lon ?? null);
-  let elevationM =
-    r.position && r.position.elevM !== MISSING_ELEV ? r.position.elevM : (hist?.elevationM ?? null);
-  if (lat === null || lon === null)
-    throw inputError(
-      where,
-      undefined,
-      "station",
-      r.qc.dropped.malformed === r.qc.read
-        ? `no coordinates for station ${id}: none of its ${r.qc.read} record(s) is readable (e.g. ${r.malformedExamples[0] ?? "—"}); give a station-history CSV that lists it`
-        : `no coordinates for station ${id}: none of its records gives a position (ISD-Lite records never do); give a station-history CSV that lists it`,
-    );
-  if (elevationM === null)
-    throw inputError(
-      where,
-      undefined,
-      "elevation",
-      `no elevation for station ${id}: none of its records gives one; give a station-history CSV that lists it`,
-    );
-  lat = Number(lat.toFixed(3));
-  lon = Number(lon.toFixed(3));
-  elevationM = Number(elevationM);
-  const grid = hourlyFromObservations(r.keptTimeMin, r.keptTempTenths, r.keptSpecial);
-  fillGapsInPlace(grid, gapHours);
-  return {
-    meta: {
-      id,
-      name: r.name ?? hist?.name ?? null,
-      lat,
-      lon,
-      elevationM,
-      timeZone: timeZoneFor(lat, lon),
-      callLetters: r.callLetters ?? hist?.icao ?? null,
-    },
-    series: grid,
-    qc: r.qc,
-    extremes: r.extremes,
-    meanStationPressureHpa: r.meanStationPressureHpa,
-    malformedExamples: r.malformedExamples,
-  };
 }
 
 /** Options with the defaults filled in. */
@@ -258,13 +130,22 @@ export async function loadClimateSelection(
   let selection = options.cacheDir !== null && key !== null ? await readCache(options.cacheDir, key) : null;
   if (selection !== null) options.onProgress?.(files.length, files.length);
   else {
-    const history = historyPath ? await readStationHistory(historyPath) : null;
+    // The station list's CSV reader is loaded only when a station list is given.
+    const history = historyPath
+      ? await (await import("./stationHistory.js")).readStationHistory(historyPath)
+      : null;
+    // The readers and the building steps are loaded only now: a request the cache serves needs neither.
+    const { readClimateFiles, buildSelection } = await import("./build.js");
     const parsed = await readClimateFiles(
       files,
       { stationIdOverride: options.stationIdOverride },
       options.onProgress,
     );
     selection = buildSelection(parsed, options.gapHours, history, wanted);
+    if (options.summarize) {
+      const { monthlyClimate } = await import("./climatology.js");
+      for (const s of selection.stations) s.months = monthlyClimate(s.series, s.meta.timeZone);
+    }
     if (options.cacheDir !== null && key !== null) {
       const failure = await writeCache(options.cacheDir, key, selection).catch((err: unknown) => err);
       if (failure !== undefined) options.onWarning?.(cacheWriteWarning(options.cacheDir, failure));

@@ -3,36 +3,69 @@
  * daylight saving from luxon (never by hand), and the local calendar day and month of every grid hour
  * (the climatology built on them is `climatology.ts`).
  */
-import tzLookup from "@photostructure/tz-lookup";
+import { createRequire } from "node:module";
 import { IANAZone } from "luxon";
 import { HOUR_MS, type HourlySeries } from "./types.js";
 
-/** IANA time zone at a point (degrees); throws on coordinates outside ±90°/±180°. */
+let tzLookup: ((lat: number, lon: number) => string) | null = null;
+
+/**
+ * IANA time zone at a point (degrees); throws on coordinates outside ±90°/±180°. The zone map is
+ * loaded on the first call (a station read from the cache already has its zone).
+ */
 export function timeZoneFor(lat: number, lon: number): string {
+  tzLookup ??= createRequire(import.meta.url)("@photostructure/tz-lookup") as (
+    lat: number,
+    lon: number,
+  ) => string;
   return tzLookup(lat, lon);
 }
 
 const DAY_MS = 86_400_000;
 
 /**
- * UTC offset in minutes of every grid hour. Offsets are asked of luxon once a day and hour by hour
- * only on days where they change (zone offsets never change twice within 24 hours).
+ * Grid hours between two probes of a zone's offset. The time zone database, read through luxon, has
+ * no two offset changes of one zone less than 7 days apart from 1900 to 2040 (the closest: daylight
+ * saving begun and revoked a week later in north-east Brazil, October 2000), so two probes 4 days apart
+ * never have a pair of changes between them that would cancel out unseen.
+ */
+export const OFFSET_PROBE_HOURS = 96;
+
+/**
+ * UTC offset in minutes of every grid hour. Luxon (the IANA time zone database) is the source of every
+ * offset: it is asked at every OFFSET_PROBE_HOURS-th hour, and between two probes that differ the hour
+ * of each change is found by bisection, asking luxon again; the hours between are filled from the
+ * answers: about one hour in ninety is asked, instead of every hour.
  */
 export function hourlyOffsetsMin(series: HourlySeries, timeZone: string): Int16Array {
   const zone = IANAZone.create(timeZone);
   if (!zone.isValid) throw new Error(`unknown time zone ${timeZone}`);
   const n = series.tempC.length;
   const out = new Int16Array(n);
-  let i = 0;
-  let prev = zone.offset(series.startUtcMs);
-  while (i < n) {
-    const j = Math.min(n - 1, i + 24);
-    const next = zone.offset(series.startUtcMs + j * HOUR_MS);
-    if (next === prev) out.fill(prev, i, j + 1);
-    else for (let k = i; k <= j; k++) out[k] = zone.offset(series.startUtcMs + k * HOUR_MS);
-    prev = next;
-    i = j + 1;
+  if (n === 0) return out;
+  const offsetAt = (i: number) => zone.offset(series.startUtcMs + i * HOUR_MS);
+  /** Fills hours [lo, hi) knowing the offsets at lo and hi (at most one change in a probe step). */
+  const fill = (lo: number, offLo: number, hi: number, offHi: number): void => {
+    while (offLo !== offHi && hi - lo > 1) {
+      const mid = lo + ((hi - lo) >> 1);
+      const offMid = offsetAt(mid);
+      fill(lo, offLo, mid, offMid);
+      lo = mid;
+      offLo = offMid;
+    }
+    if (offLo === offHi) out.fill(offLo, lo, hi);
+    else out[lo] = offLo;
+  };
+  let lo = 0;
+  let offLo = offsetAt(0);
+  while (lo < n - 1) {
+    const hi = Math.min(n - 1, lo + OFFSET_PROBE_HOURS);
+    const offHi = offsetAt(hi);
+    fill(lo, offLo, hi, offHi);
+    lo = hi;
+    offLo = offHi;
   }
+  out[n - 1] = offLo;
   return out;
 }
 

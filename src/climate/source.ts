@@ -4,8 +4,7 @@
  * as one string: every reader takes the lines split here from the decompressed byte chunks, a line
  * longer than MAX_LINE_BYTES being one malformed record.
  */
-import { createReadStream } from "node:fs";
-import { open } from "node:fs/promises";
+import { type FileHandle, open } from "node:fs/promises";
 import { basename } from "node:path";
 import type { Readable } from "node:stream";
 import { createGunzip, type ZlibOptions } from "node:zlib";
@@ -39,15 +38,51 @@ const MAX_LINE_BYTES = 16 * 1024;
 /** How much of the start of a file is looked at to detect its layout. */
 const DETECT_BYTES = 64 * 1024;
 
-/** True when the file starts with the gzip magic bytes 1f 8b (RFC 1952). */
-export async function isGzipFile(path: string): Promise<boolean> {
-  const fh = await open(path, "r");
+/** A climate file opened once: its handle, whether it is gzip, and its size on disk and as text. */
+interface OpenInput {
+  path: string;
+  fh: FileHandle;
+  /** True when the file starts with the gzip magic bytes 1f 8b (RFC 1952). */
+  gz: boolean;
+  /**
+   * Its text size: the gzip ISIZE trailer (the last 4 bytes: the uncompressed size modulo 2^32, RFC
+   * 1952 section 2.3.1), not trusted beyond 16 times the compressed size (ISD text compresses about 6
+   * to 1); the file size of a plain file.
+   */
+  textBytes: number;
+}
+
+/** Input errors for a file that cannot be opened or read. */
+function readError(path: string, err: unknown): unknown {
+  const e = err as NodeJS.ErrnoException;
+  if (e.code === "ENOENT") return inputError(path, undefined, undefined, "file not found");
+  if (e.code === "EACCES" || e.code === "EPERM")
+    return inputError(path, undefined, undefined, "cannot read the climate file: permission denied");
+  return err;
+}
+
+/** Opens a climate file and reads what is known before its content: gzip or not, its text size. */
+async function openInput(path: string): Promise<OpenInput> {
+  let fh: FileHandle;
   try {
-    const head = Buffer.alloc(2);
-    const { bytesRead } = await fh.read(head, 0, 2, 0);
-    return bytesRead === 2 && head[0] === 0x1f && head[1] === 0x8b;
-  } finally {
+    fh = await open(path, "r");
+  } catch (err) {
+    throw readError(path, err);
+  }
+  try {
+    const size = (await fh.stat()).size;
+    const bytes = Buffer.alloc(4);
+    const { bytesRead } = await fh.read(bytes, 0, 2, 0);
+    const gz = bytesRead === 2 && bytes[0] === 0x1f && bytes[1] === 0x8b;
+    let textBytes = size;
+    if (gz && size >= 18) {
+      await fh.read(bytes, 0, 4, size - 4);
+      textBytes = Math.min(bytes.readUInt32LE(0), size * 16);
+    }
+    return { path, fh, gz, textBytes };
+  } catch (err) {
     await fh.close();
+    throw readError(path, err);
   }
 }
 
@@ -56,8 +91,12 @@ export async function isGzipFile(path: string): Promise<boolean> {
  * (a file cut short, a damaged stream) become input errors naming the file.
  */
 export async function* readChunks(path: string): AsyncGenerator<Buffer> {
-  const gz = await isGzipFile(path);
-  const raw = createReadStream(path, { highWaterMark: CHUNK_BYTES });
+  yield* chunksOf(await openInput(path));
+}
+
+/** The decompressed chunks of an opened file; the file is closed when the stream ends or stops. */
+async function* chunksOf({ path, fh, gz }: OpenInput): AsyncGenerator<Buffer> {
+  const raw = fh.createReadStream({ start: 0, highWaterMark: CHUNK_BYTES });
   // The gunzip side may run ahead by a few chunks, so that decompression (on libuv's thread pool)
   // overlaps with parsing on the main thread.
   const stream: Readable = gz
@@ -68,9 +107,6 @@ export async function* readChunks(path: string): AsyncGenerator<Buffer> {
     for await (const chunk of stream) yield chunk as Buffer;
   } catch (err) {
     const e = err as NodeJS.ErrnoException;
-    if (e.code === "ENOENT") throw inputError(path, undefined, undefined, "file not found");
-    if (e.code === "EACCES" || e.code === "EPERM")
-      throw inputError(path, undefined, undefined, "cannot read the climate file: permission denied");
     if (gz && typeof e.code === "string" && e.code.startsWith("Z_"))
       throw inputError(
         path,
@@ -80,7 +116,7 @@ export async function* readChunks(path: string): AsyncGenerator<Buffer> {
           ? "gzip data ends early (file cut short?); expected a complete gzip file"
           : `damaged gzip data (${e.message}); expected a complete gzip file`,
       );
-    throw err;
+    throw readError(path, err);
   } finally {
     raw.destroy();
   }
@@ -135,15 +171,21 @@ export interface ReadOptions {
  * Throws InputError for an empty file, a file in none of the three layouts, or broken gzip data.
  */
 export async function readClimateFile(path: string, options: ReadOptions = {}): Promise<ParsedFile> {
-  const it = readChunks(path);
+  const input = await openInput(path);
+  const it = chunksOf(input);
   try {
-    return await readFrom(path, it, options);
+    return await readFrom(path, it, options, input.textBytes);
   } finally {
     await it.return(undefined); // closes the file when reading stopped early
   }
 }
 
-async function readFrom(path: string, it: AsyncGenerator<Buffer>, options: ReadOptions): Promise<ParsedFile> {
+async function readFrom(
+  path: string,
+  it: AsyncGenerator<Buffer>,
+  options: ReadOptions,
+  textBytes: number,
+): Promise<ParsedFile> {
   const headChunks: Buffer[] = [];
   let headLen = 0;
   let done = false;
@@ -168,7 +210,7 @@ async function readFrom(path: string, it: AsyncGenerator<Buffer>, options: ReadO
       "not a climate file: expected the ISD full format, ISD-Lite or the comma-separated global-hourly layout",
     );
   const rest = done ? null : it;
-  const capacity = await estimateRecords(path, head);
+  const capacity = estimateRecords(textBytes, head);
   let file = emptyParsedFile(path, format, capacity);
   if (capacity >= (options.parseOnWorkerFromRecords ?? PARSE_WORKER_MIN_RECORDS) && parseSessionsAvailable())
     file = await readLinesOnWorker(path, head, rest, format, options, capacity);
@@ -190,28 +232,13 @@ const MAX_PRESIZED_RECORDS = 1 << 22;
 
 /**
  * About how many records the file holds, to size the record columns once instead of growing them:
- * its text size over the mean line length of its first bytes. The text size of a gzip file is its
- * ISIZE trailer (the last 4 bytes: the uncompressed size modulo 2^32, RFC 1952 section 2.3.1), not
- * trusted beyond 16 times the compressed size (ISD text compresses about 6 to 1).
+ * its text size over the mean line length of its first bytes.
  */
-async function estimateRecords(path: string, head: Buffer): Promise<number> {
+function estimateRecords(textBytes: number, head: Buffer): number {
   let lines = 0;
   for (let nl = head.indexOf(10); nl >= 0; nl = head.indexOf(10, nl + 1)) lines++;
   if (lines === 0) return 0;
-  const fh = await open(path, "r");
-  try {
-    const size = (await fh.stat()).size;
-    let textBytes = size;
-    const bytes = Buffer.alloc(4);
-    await fh.read(bytes, 0, 2, 0);
-    if (bytes[0] === 0x1f && bytes[1] === 0x8b && size >= 18) {
-      await fh.read(bytes, 0, 4, size - 4);
-      textBytes = Math.min(bytes.readUInt32LE(0), size * 16);
-    }
-    return Math.min(MAX_PRESIZED_RECORDS, Math.ceil((textBytes / head.length) * lines * 1.02) + 64);
-  } finally {
-    await fh.close();
-  }
+  return Math.min(MAX_PRESIZED_RECORDS, Math.ceil((textBytes / head.length) * lines * 1.02) + 64);
 }
 
 /**

@@ -53,6 +53,6 @@ export function stationSummary(s: StationClimate): StationSummary {
   return {
     ...stationCoverage(s),
     extremes: s.extremes,
-    months: monthlyClimate(s.series, s.meta.timeZone),
+    months: s.months ?? monthlyClimate(s.series, s.meta.timeZone),
   };
 }

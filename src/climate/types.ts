@@ -19,6 +19,8 @@ export interface ClimateOptions {
   stations?: readonly string[];
   /** Told of what does not stop the load: a station with no kept record, a cache that cannot be written. */
   onWarning?: (message: string) => void;
+  /** Also compute each station's monthly climatology (`StationClimate.months`) and keep it in the cache. */
+  summarize?: boolean;
 }
 
 export const DEFAULT_GAP_HOURS = 3;
@@ -85,6 +87,12 @@ export interface StationClimate {
   meanStationPressureHpa: number | null;
   /** "file:line: reason" for the first few malformed lines. */
   malformedExamples: string[];
+  /**
+   * The monthly local-time climatology of `series` (`monthlyClimate`), when it was asked for
+   * (`ClimateOptions.summarize`): kept in the cache, so that a summary served from it needs no
+   * local-time work.
+   */
+  months?: MonthClimate[];
 }
 
 /** One row of the monthly local-time climatology (months with no data give nulls). */

@@ -36,21 +36,27 @@ export function isLeapYear(y: number): boolean {
   return (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
 }
 
-/** Real calendar days of a stay: from arrive up to, not including, depart. */
+const DAY_MS = 86_400_000;
+
+/**
+ * Real calendar days of a stay: from arrive up to, not including, depart (ISO dates). Civil dates
+ * without a time zone: counted on the proleptic Gregorian calendar of the ECMAScript Date (UTC days).
+ */
 export function stayDays(arrive: string, depart: string): CivilDate[] {
   const out: CivilDate[] = [];
-  let d = DateTime.fromISO(arrive, { zone: "UTC" });
-  const end = DateTime.fromISO(depart, { zone: "UTC" });
-  while (d < end) {
-    out.push({ year: d.year, month: d.month, day: d.day });
-    d = d.plus({ days: 1 });
+  const start = DateTime.fromISO(arrive, { zone: "UTC" }).toMillis();
+  const end = DateTime.fromISO(depart, { zone: "UTC" }).toMillis();
+  for (let ms = start; ms < end; ms += DAY_MS) {
+    const d = new Date(ms);
+    out.push({ year: d.getUTCFullYear(), month: d.getUTCMonth() + 1, day: d.getUTCDate() });
   }
   return out;
 }
 
-/** ISO weekday (Monday 1 … Sunday 7) of a real date. */
+/** ISO weekday (Monday 1 … Sunday 7) of a real date (a civil date: no time zone involved). */
 export function isoWeekday(d: CivilDate): number {
-  return DateTime.utc(d.year, d.month, d.day).weekday;
+  const sundayFirst = new Date(new Date(0).setUTCFullYear(d.year, d.month - 1, d.day)).getUTCDay(); // Sunday 0 … Saturday 6
+  return sundayFirst === 0 ? 7 : sundayFirst;
 }
 
 /**

@@ -1,12 +1,14 @@
 /**
- * Charts as static inline SVG: a vega-lite spec compiled to vega and rendered on the server through
- * `View.toSVG()` with the headless renderer ("none"): no canvas, no network, no script in the page.
- * Vega escapes every text and attribute it writes; the chart's own `<title>` is escaped here.
+ * Charts as static inline SVG: the report's sections describe each chart as a vega-lite spec
+ * (`xyChart`, `stackedChart`, `barChart`); `renderChart` (chartBatch.ts) turns it into SVG on the
+ * server with vega's headless renderer: no canvas, no network, no script in the page.
  * Colours are the Okabe–Ito colour-blind-safe palette (Okabe and Ito, "Color Universal Design", 2008);
  * every series also differs by dash pattern or point shape, so the charts read in greyscale.
  */
-import * as vega from "vega";
-import * as vl from "vega-lite";
+import { type Chart, renderChart } from "./chartBatch.js";
+import type { Spec } from "./chartRender.js";
+
+export { renderChart } from "./chartBatch.js";
 
 /** Okabe–Ito palette. */
 export const PALETTE = {
@@ -23,14 +25,7 @@ export const PALETTE = {
 /** System font keywords only (CSS Fonts Level 4 generic families): the reader's own sans-serif face. */
 const FONT = "system-ui, sans-serif";
 
-/** A rendered chart: escaped-by-construction SVG markup and its plain-text title. */
-export interface Chart {
-  id: string;
-  title: string;
-  svg: string;
-  /** Axis titles as written in the spec (for the caption and for tests). */
-  axisTitles: string[];
-}
+export type { Chart } from "./chartBatch.js";
 
 export interface LineSeries {
   name: string;
@@ -75,8 +70,6 @@ export interface XYChartOptions {
   bands?: BandSeries[];
   rules?: RuleLine[];
 }
-
-type Spec = Record<string, unknown>;
 
 const BASE_CONFIG = {
   font: FONT,
@@ -218,22 +211,25 @@ function xyLayers(o: XYChartOptions): { layers: Spec[]; domain: string[]; colors
   return { layers, domain, colors };
 }
 
-/** A single x–y chart with lines, optional shaded bands and horizontal rules. */
-export async function xyChart(o: XYChartOptions): Promise<Chart> {
-  const { layers } = xyLayers(o);
-  const spec: Spec = {
+/** The spec of a single x–y chart with lines, optional shaded bands and horizontal rules. */
+function xySpec(o: XYChartOptions): Spec {
+  return {
     $schema: "https://vega.github.io/schema/vega-lite/v5.json",
     width: o.width ?? 290,
     height: o.height ?? 170,
     config: BASE_CONFIG,
-    layer: layers,
+    layer: xyLayers(o).layers,
   };
-  return renderChart(o.id, o.title, spec, [o.xTitle, o.yTitle]);
 }
 
-/** Panels stacked vertically over a shared x axis title (the overnight traces). */
-export async function stackedChart(id: string, title: string, panels: XYChartOptions[]): Promise<Chart> {
-  const spec: Spec = {
+/** A single x–y chart with lines, optional shaded bands and horizontal rules. */
+export async function xyChart(o: XYChartOptions): Promise<Chart> {
+  return renderChart(o.id, o.title, xySpec(o), [o.xTitle, o.yTitle]);
+}
+
+/** The spec of panels stacked vertically over a shared x axis title. */
+function stackedSpec(panels: XYChartOptions[]): Spec {
+  return {
     $schema: "https://vega.github.io/schema/vega-lite/v5.json",
     config: {
       ...BASE_CONFIG,
@@ -250,10 +246,14 @@ export async function stackedChart(id: string, title: string, panels: XYChartOpt
       legend: { stroke: "independent", strokeDash: "independent", fill: "independent" },
     },
   };
+}
+
+/** Panels stacked vertically over a shared x axis title (the overnight traces). */
+export async function stackedChart(id: string, title: string, panels: XYChartOptions[]): Promise<Chart> {
   return renderChart(
     id,
     title,
-    spec,
+    stackedSpec(panels),
     panels.flatMap((p) => [p.xTitle, p.yTitle]),
   );
 }
@@ -272,8 +272,8 @@ export interface BarOptions {
   height?: number;
 }
 
-/** A bar chart: categories, or contiguous bins when every bar has `x2`. */
-export async function barChart(o: BarOptions): Promise<Chart> {
+/** The spec of a bar chart: categories, or contiguous bins when every bar has `x2`. */
+function barSpec(o: BarOptions): Spec {
   const binned = o.bars.length > 0 && o.bars.every((b) => b.x2 !== undefined);
   const values = o.bars.filter((b) => finite(b.y)).map((b) => ({ x: b.x, x2: b.x2, y: b.y }));
   const x: Spec = binned
@@ -285,7 +285,7 @@ export async function barChart(o: BarOptions): Promise<Chart> {
         axis: { labelAngle: 0 },
         ...(o.xOrder ? { sort: o.xOrder, scale: { domain: o.xOrder } } : {}),
       };
-  const spec: Spec = {
+  return {
     $schema: "https://vega.github.io/schema/vega-lite/v5.json",
     width: o.width ?? 290,
     height: o.height ?? 170,
@@ -303,7 +303,11 @@ export async function barChart(o: BarOptions): Promise<Chart> {
       },
     },
   };
-  return renderChart(o.id, o.title, spec, [o.xTitle, o.yTitle]);
+}
+
+/** A bar chart: categories, or contiguous bins when every bar has `x2`. */
+export async function barChart(o: BarOptions): Promise<Chart> {
+  return renderChart(o.id, o.title, barSpec(o), [o.xTitle, o.yTitle]);
 }
 
 export interface TornadoOptions {
@@ -373,76 +377,39 @@ export async function tornadoChart(o: TornadoOptions): Promise<Chart> {
   return renderChart(o.id, o.title, spec, [o.xTitle, o.yTitle]);
 }
 
-/** Escapes text for XML content and attribute values. */
-export function escapeXml(text: string): string {
-  return text
-    .replace(/&/g, "&amp;")
-    .replace(/</g, "&lt;")
-    .replace(/>/g, "&gt;")
-    .replace(/"/g, "&quot;")
-    .replace(/'/g, "&#39;");
-}
-
 /**
- * Compiles and renders a vega-lite spec to SVG, then makes it safe to inline next to other charts:
- * element ids (clip paths) get a per-chart prefix, numbered in order of appearance so the output is
- * the same on every run, and an escaped `<title>` becomes the first child of the root element.
+ * Specs of every kind the builders above make (lines with points, bands and a rule; stacked panels;
+ * bars by category and by bin), on invented numbers: rendered once by a chart worker while the plan
+ * runs, they get vega's code compiled before the report's own charts arrive. Never shown.
  */
-export async function renderChart(
-  id: string,
-  title: string,
-  spec: Spec,
-  axisTitles: string[],
-): Promise<Chart> {
-  // Only errors are reported: legend-merging notices from vega-lite would be noise on the CLI's stderr.
-  const quiet = vega.logger(vega.Error);
-  const compiled = vl.compile(spec as unknown as vl.TopLevelSpec, { logger: quiet }).spec;
-  const view = new vega.View(vega.parse(compiled), { renderer: "none", logLevel: vega.Error });
-  let svg: string;
-  try {
-    svg = await view.toSVG();
-  } finally {
-    view.finalize();
-  }
-  svg = prefixIds(roundCoordinates(svg), id);
-  const titleId = `${id}-title`;
-  svg = svg.replace(
-    /^<svg\b([^>]*)>/,
-    (_m, attrs: string) =>
-      `<svg${attrs} role="img" aria-labelledby="${titleId}" id="${id}"><title id="${titleId}">${escapeXml(title)}</title>`,
-  );
-  return { id, title, svg, axisTitles };
-}
-
-/**
- * Rounds long decimals inside tags (path data, transforms, positions) to 0.01 px, which no screen or
- * printer resolves; text content is left alone. Keeps the inline SVG small.
- */
-function roundCoordinates(svg: string): string {
-  return svg.replace(/<[^>]+>/g, (tag) =>
-    tag.replace(/-?\d+\.\d{3,}/g, (n) => {
-      const r = Math.round(Number(n) * 100) / 100;
-      return String(Object.is(r, -0) ? 0 : r);
+export function warmUpSpecs(): Spec[] {
+  const xs = Array.from({ length: 25 }, (_, i) => i * 2 - 20);
+  const wave = (k: number) => xs.map((x) => ({ x, y: k * Math.sin(x / 7) + x / 3 }));
+  const panel: XYChartOptions = {
+    id: "",
+    title: "",
+    xTitle: "x",
+    yTitle: "y",
+    lines: [
+      { name: "a", color: PALETTE.blue, points: wave(5) },
+      { name: "b", color: PALETTE.orange, dash: [6, 3], shape: "square", points: wave(3) },
+    ],
+    bands: [{ name: "c", color: PALETTE.green, points: xs.map((x) => ({ x, y: x / 3 - 4, y2: x / 3 + 4 })) }],
+    rules: [{ y: 2, label: "r", color: PALETTE.vermillion }],
+  };
+  const months = ["Jan", "Feb", "Mar", "Apr", "May", "Jun"];
+  return [
+    xySpec(panel),
+    xySpec({
+      ...panel,
+      xType: "ordinal",
+      xOrder: months,
+      lines: [{ ...panel.lines[0]!, points: months.map((x, i) => ({ x, y: i })) }],
+      bands: [],
+      rules: [],
     }),
-  );
-}
-
-/** Renames every `id="…"` in one SVG to `<prefix>-<n>` and rewrites its `url(#…)` and `href="#…"` uses. */
-function prefixIds(svg: string, prefix: string): string {
-  const map = new Map<string, string>();
-  for (const m of svg.matchAll(/\sid="([^"]+)"/g)) {
-    const old = m[1]!;
-    if (!map.has(old)) map.set(old, `${prefix}-d${map.size + 1}`);
-  }
-  if (map.size === 0) return svg;
-  return svg
-    .replace(
-      /(\sid=")([^"]+)(")/g,
-      (_m, a: string, old: string, b: string) => `${a}${map.get(old) ?? old}${b}`,
-    )
-    .replace(/url\(#([^)]+)\)/g, (_m, old: string) => `url(#${map.get(old) ?? old})`)
-    .replace(
-      /(href=")#([^"]+)(")/g,
-      (_m, a: string, old: string, b: string) => `${a}#${map.get(old) ?? old}${b}`,
-    );
+    stackedSpec([panel, { ...panel, bands: [] }, { ...panel, rules: [] }]),
+    barSpec({ ...panel, color: PALETTE.sky, bars: months.map((x, i) => ({ x, y: i + 1 })), xOrder: months }),
+    barSpec({ ...panel, color: PALETTE.sky, bars: xs.map((x) => ({ x, x2: x + 2, y: Math.abs(x) })) }),
+  ];
 }

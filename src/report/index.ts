@@ -7,11 +7,11 @@ import { readdirSync, readFileSync } from "node:fs";
 import Handlebars from "handlebars";
 import { InputError } from "../errors.js";
 import type { Results } from "../plan/results.js";
-import type { Chart } from "./charts.js";
+import { type Chart, withChartBatch } from "./chartBatch.js";
+import { startChartWorkers as startChartPool } from "./chartPool.js";
+import { warmUpSpecs } from "./charts.js";
 import type { Status } from "./shared.js";
 import { buildView } from "./view.js";
-
-export { writePdf } from "./pdf.js";
 
 const TEMPLATE_DIR = new URL("../../templates/", import.meta.url);
 
@@ -95,9 +95,29 @@ function template(): Handlebars.TemplateDelegate {
   return compiled;
 }
 
+/**
+ * Starts the chart worker threads ahead of a report (where the compiled worker exists): they load the
+ * chart library and compile it on a few invented charts while the caller runs the plan.
+ */
+export function startChartWorkers(): void {
+  startChartPool(warmUpSpecs());
+}
+
+/**
+ * Prints a written report to PDF (`pdf.ts`); the browser driver is loaded on the first call only, so
+ * rendering the HTML never loads it.
+ */
+export async function writePdf(...args: Parameters<typeof import("./pdf.js").writePdf>) {
+  const pdf = await import("./pdf.js");
+  return pdf.writePdf(...args);
+}
+
 /** Renders the self-contained HTML planning report from the results alone. */
 export async function renderReport(results: Results): Promise<string> {
-  const view = await buildView(results, { generatedAt: generationTime() });
+  // Every chart of the report is rendered in one batch (each distinct chart once, on worker threads
+  // where available) once all the sections have described theirs.
+  const generatedAt = generationTime();
+  const view = await withChartBatch(() => buildView(results, { generatedAt }));
   const render = template();
   return render({ ...view, css: new Handlebars.SafeString(css) });
 }

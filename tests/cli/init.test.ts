@@ -2,7 +2,7 @@ import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "no
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { planNameFromFolder, starterPlanText } from "../../src/cli/init.js";
+import { planNameFromFolder, starterPlanText } from "../../src/cli/initRun.js";
 import { main } from "../../src/cli/main.js";
 import { chargedState, interpolateClamped, recharge, startDischarge } from "../../src/physics/accumulator.js";
 import { realGas } from "../../src/physics/nitrogen.js";

@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { main } from "../../src/cli/main.js";
-import { prechargeAnswer, prechargeJson } from "../../src/cli/precharge.js";
+import { prechargeAnswer, prechargeJson } from "../../src/cli/prechargeRun.js";
 
 function capture() {
   const out: string[] = [];

@@ -5,7 +5,7 @@
 import { copyFileSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
-import { cacheStats, loadClimate, resetCacheStats } from "../../src/climate/index.js";
+import { cacheStats, loadClimate, monthlyClimate, resetCacheStats } from "../../src/climate/index.js";
 import { HAVE_SAMPLES, sample, sampleLines, tempDir, writeLines } from "./helpers.js";
 
 const tmp = tempDir();
@@ -26,6 +26,16 @@ describe.skipIf(!HAVE_SAMPLES)("climate cache", () => {
     expect(second[0]!.meta).toEqual(first[0]!.meta);
     expect(Array.from(second[0]!.series.tempC)).toEqual(Array.from(first[0]!.series.tempC));
     expect(Array.from(second[0]!.series.filled)).toEqual(Array.from(first[0]!.series.filled));
+  });
+
+  it("keeps the monthly climatology asked for with the series, equal to one computed from it", async () => {
+    const dir = join(tmp.dir, "cache-months");
+    const [built] = await loadClimate([file], { gapHours: 3, cacheDir: dir, summarize: true });
+    const [served] = await loadClimate([file], { gapHours: 3, cacheDir: dir, summarize: true });
+    expect(cacheStats().hits).toBe(1);
+    const computed = monthlyClimate(served!.series, served!.meta.timeZone);
+    expect(built!.months).toEqual(computed);
+    expect(served!.months).toEqual(computed);
   });
 
   it("reads again when the gap length changes", async () => {

@@ -7,7 +7,7 @@ import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterAll, describe, expect, it } from "vitest";
-import type * as Load from "../../src/climate/load.js";
+import type * as Build from "../../src/climate/build.js";
 import type { ParsedFile } from "../../src/climate/records.js";
 import type * as Source from "../../src/climate/source.js";
 import { HAVE_SAMPLES, sample, tempDir } from "./helpers.js";
@@ -33,7 +33,7 @@ function content(f: ParsedFile) {
 describe.skipIf(!HAVE_SAMPLES || !HAVE_BUILD)("parsing on a worker thread", () => {
   const load = async () => ({
     source: (await import(join(DIST, "climate", "source.js"))) as typeof Source,
-    build: (await import(join(DIST, "climate", "load.js"))) as typeof Load,
+    build: (await import(join(DIST, "climate", "build.js"))) as typeof Build,
     errors: (await import(join(DIST, "errors.js"))) as typeof import("../../src/errors.js"),
   });
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { climateDate, stayDays } from "../../src/plan/calendar.js";
+import { climateDate, isoWeekday, stayDays } from "../../src/plan/calendar.js";
 import { buildDays } from "../../src/plan/days.js";
 import { runPlan } from "../../src/plan/engine.js";
 import { fixturePlan, HOUR_MS, syntheticClimate } from "./helpers.js";
@@ -18,6 +18,22 @@ describe("stay windows on climate years (docs/methods.md §5)", () => {
       "1-31",
       "2-1",
     ]);
+  });
+
+  it("stays across a leap day and a year end keep every civil day once", () => {
+    // Gregorian calendar: 2028 is a leap year, so 2027-12-30 … 2028-03-01 is 2 + 31 + 29 + 1 days.
+    const days = stayDays("2027-12-30", "2028-03-02");
+    expect(days).toHaveLength(63);
+    expect(days.find((d) => d.month === 2 && d.day === 29)?.year).toBe(2028);
+    expect(days.at(-1)).toEqual({ year: 2028, month: 3, day: 1 });
+  });
+
+  it("ISO weekdays, Monday 1 … Sunday 7", () => {
+    // From memory: 2000-01-01 was a Saturday, 1969-07-20 a Sunday, 2024-02-29 a Thursday, 2027-11-15 a Monday.
+    expect(isoWeekday({ year: 2000, month: 1, day: 1 })).toBe(6);
+    expect(isoWeekday({ year: 1969, month: 7, day: 20 })).toBe(7);
+    expect(isoWeekday({ year: 2024, month: 2, day: 29 })).toBe(4);
+    expect(isoWeekday({ year: 2027, month: 11, day: 15 })).toBe(1);
   });
 
   it("a window across 31 December runs into the next climate year", () => {

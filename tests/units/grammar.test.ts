@@ -8,7 +8,7 @@ import { mkdtemp, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { prechargeAnswer } from "../../src/cli/precharge.js";
+import { prechargeAnswer } from "../../src/cli/prechargeRun.js";
 import { parsePlanText } from "../../src/plan/planFile.js";
 import { runCli } from "../cli/runCli.js";
 import { FIXTURE_TEXT } from "../plan/helpers.js";

@@ -1,0 +1,104 @@
+/**
+ * Input files of the whole-command benchmarks, built in a temporary folder: one real ISD station-year
+ * (../shared/isd-samples/725300-94846-2014.gz, or $COLDSOAK_ISD_SAMPLES) copied to the twenty years
+ * 1960–1979 with its year field moved (ISD positions 16–19), as twenty station-year files and as one
+ * file holding all twenty; where the samples are absent, twenty of the demo's generated files and
+ * their concatenation. Also plan files with N copies of one demo base, for the memory figures.
+ */
+import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
+import { join } from "node:path";
+import { fileURLToPath } from "node:url";
+import { gunzipSync, gzipSync } from "node:zlib";
+import { parseDocument } from "yaml";
+
+export const DEMO_PLAN = fileURLToPath(new URL("../../sample-data/demo-plan.yaml", import.meta.url));
+const DEMO_DIR = fileURLToPath(new URL("../../sample-data/", import.meta.url));
+
+export function samplesDir(): string {
+  return (
+    process.env["COLDSOAK_ISD_SAMPLES"] ??
+    fileURLToPath(new URL("../../../shared/isd-samples/", import.meta.url))
+  );
+}
+
+const STATION_YEAR = "725300-94846-2014.gz";
+
+export interface ClimateInputs {
+  /** Where the files come from, for the report. */
+  source: string;
+  /** The twenty files (in a folder of their own). */
+  twentyDir: string;
+  twentyFiles: string[];
+  /** The same text as one gzip file. */
+  oneFile: string;
+  textBytes: number;
+}
+
+/** Writes the twenty files and the one file into `dir`. */
+export function climateInputs(dir: string): ClimateInputs {
+  const twentyDir = join(dir, "twenty");
+  mkdirSync(twentyDir, { recursive: true });
+  const sample = join(samplesDir(), STATION_YEAR);
+  const texts: { name: string; text: string }[] = [];
+  let source: string;
+  if (existsSync(sample)) {
+    source = `${STATION_YEAR} (NOAA ISD) copied to 1960–1979`;
+    const text = gunzipSync(readFileSync(sample)).toString("latin1");
+    for (let year = 1960; year < 1980; year++)
+      texts.push({
+        name: `725300-94846-${year}.gz`,
+        text: text.replace(/^(.{15})2014/gm, (_m, head: string) => `${head}${year}`),
+      });
+  } else {
+    source = "twenty of the demo's generated station-years (../shared/isd-samples absent)";
+    const climate = join(DEMO_DIR, "climate");
+    for (const name of readdirSync(climate)
+      .filter((n) => n.endsWith(".gz"))
+      .sort()
+      .slice(0, 20))
+      texts.push({ name, text: gunzipSync(readFileSync(join(climate, name))).toString("latin1") });
+  }
+  const twentyFiles = texts.map(({ name, text }) => {
+    const path = join(twentyDir, name);
+    writeFileSync(path, gzipSync(Buffer.from(text, "latin1")));
+    return path;
+  });
+  const all = texts.map((t) => (t.text.endsWith("\n") ? t.text : `${t.text}\n`)).join("");
+  // A name without USAF-WBAN-YEAR, so that no one-year rule applies to the file holding twenty years.
+  const oneFile = join(dir, "twenty-years.isd.gz");
+  writeFileSync(oneFile, gzipSync(Buffer.from(all, "latin1")));
+  return { source, twentyDir, twentyFiles, oneFile, textBytes: Buffer.byteLength(all, "latin1") };
+}
+
+/** The demo base copied for the memory figures: the one with the most stays. */
+export const COPIED_BASE = "Veldmoor";
+
+/**
+ * A plan (and its schedule) in `dir` with `copies` copies of the demo base COPIED_BASE, each with the
+ * demo's stays at that base under aircraft names of its own; the demo's climate files. Returns the plan.
+ */
+export function copiedBasePlan(dir: string, copies: number): string {
+  mkdirSync(dir, { recursive: true });
+  const doc = parseDocument(readFileSync(DEMO_PLAN, "utf8"));
+  const plan = doc.toJS() as {
+    name: string;
+    schedule: string;
+    climate: { paths: string[]; stationHistory?: string };
+    bases: { name: string }[];
+  };
+  const base = plan.bases.find((b) => b.name === COPIED_BASE)!;
+  plan.name = `bench-${copies}`;
+  plan.climate.paths = plan.climate.paths.map((p) => join(DEMO_DIR, p));
+  if (plan.climate.stationHistory) plan.climate.stationHistory = join(DEMO_DIR, plan.climate.stationHistory);
+  plan.bases = Array.from({ length: copies }, (_, k) => ({ ...base, name: `${COPIED_BASE} ${k + 1}` }));
+  plan.schedule = "schedule.csv";
+  const [header, ...rows] = readFileSync(join(DEMO_DIR, "demo-schedule.csv"), "utf8").trim().split("\n");
+  const stays = rows.map((r) => r.split(",")).filter((c) => c[1] === COPIED_BASE);
+  const schedule = [header!];
+  for (let k = 1; k <= copies; k++)
+    for (const c of stays) schedule.push([`${c[0]}-${k}`, `${COPIED_BASE} ${k}`, ...c.slice(2)].join(","));
+  writeFileSync(join(dir, "schedule.csv"), `${schedule.join("\n")}\n`);
+  const file = join(dir, "plan.yaml");
+  writeFileSync(file, JSON.stringify(plan)); // JSON is YAML
+  return file;
+}
