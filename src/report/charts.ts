@@ -332,11 +332,11 @@ export async function tornadoChart(o: TornadoOptions): Promise<Chart> {
     s.values.flatMap((v, i) => (finite(v) ? [{ category: o.categories[i], series: s.name, x: v }] : [])),
   );
   const names = o.series.map((s) => s.name);
-  const rowHeight = 10 * o.series.length + 8;
   const spec: Spec = {
     $schema: "https://vega.github.io/schema/vega-lite/v5.json",
     width: o.width ?? 420,
-    height: { step: rowHeight },
+    // With an offset channel the step is that of one bar within a row (vega-lite 5: step "for" offset).
+    height: { step: 11 },
     config: { ...BASE_CONFIG, legend: { ...BASE_CONFIG.legend, columns: 3 } },
     layer: [
       {
@@ -349,7 +349,8 @@ export async function tornadoChart(o: TornadoOptions): Promise<Chart> {
             title: o.yTitle,
             sort: o.categories,
             scale: { domain: o.categories },
-            axis: { labelLimit: 240 },
+            // Headless text measuring estimates widths generously: room for the longest variant label.
+            axis: { labelLimit: 330 },
           },
           yOffset: { field: "series", type: "nominal", sort: names, scale: { domain: names } },
           x: { field: "x", type: "quantitative", title: o.xTitle, axis: { tickCount: 6 } },
