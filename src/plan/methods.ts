@@ -90,7 +90,7 @@ export const METHODS: MethodNote[] = [
   {
     name: "What-if variants",
     source: "coldsoak what-if runs (docs/methods.md, “What-if variants”)",
-    description: `Each variant is the plan simulated again over the same climate years, judged on each base's worst month (the highest share of starts short with one accumulator as planned; the first on ties) by the change, in percentage points, of the shares short with one and with two accumulators and out of band. The variants: ${VARIANT_DESCRIPTIONS.map((v) => `${v.label} (${v.description})`).join("; ")}. “One” and “two” follow both configurations in every run, so the cold-start option on every aircraft changes them only through the fitted configuration's recharges and relief; it changes the statuses and actions.`,
+    description: `Each variant is the plan simulated again over the same climate years, judged on each base's worst month (the highest share of starts short with one accumulator as planned; the first on ties) by the change, in percentage points, of the shares short with one and with two accumulators and out of band. The variants: ${VARIANT_DESCRIPTIONS.map((v) => `${v.label} (${v.description})`).join("; ")}. “One” and “two” follow both configurations in every run, so the cold-start option on every aircraft changes them only through the fitted configuration's longer recharge timer and its trapped charge.`,
   },
   {
     name: "Quantiles",
