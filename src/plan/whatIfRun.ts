@@ -2,7 +2,8 @@
  * Runs the what-if variants of a plan (docs/methods.md, "What-if variants") on the climate already
  * loaded: one task per base and variant (plus the baseline of each base), spread over worker threads
  * when the compiled worker is present (it is not when running from the TypeScript sources, e.g. under
- * the test runner), else one after another here. The figures are the same either way.
+ * the test runner), else one after another here; when a worker fails, every task runs here again. The
+ * figures are the same either way.
  */
 import { existsSync } from "node:fs";
 import { availableParallelism } from "node:os";
@@ -31,6 +32,9 @@ import {
 
 const WORKER_URL = new URL("./whatIfWorker.js", import.meta.url);
 
+/** More workers than this do not pay for the memory each holds (a copy of every base's climate). */
+export const MAX_WHAT_IF_WORKERS = 4;
+
 /** True when the compiled worker script exists beside this module. */
 export function whatIfWorkersAvailable(): boolean {
   return import.meta.url.endsWith(".js") && existsSync(fileURLToPath(WORKER_URL));
@@ -56,7 +60,10 @@ export function planFromData(data: PlanData): Plan {
 }
 
 export interface WhatIfOptions {
-  /** Worker threads (default: the machine's parallelism); 0 runs every task on this thread. */
+  /**
+   * Worker threads (default: the machine's parallelism, at most MAX_WHAT_IF_WORKERS); 0 runs every
+   * task on this thread.
+   */
   threads?: number;
   onProgress?: (done: number, total: number) => void;
 }
@@ -121,15 +128,20 @@ export async function withWhatIf(
   );
   let done = 0;
   const onDone = () => opts.onProgress?.(++done, tasks.length);
-  const threads = opts.threads ?? (whatIfWorkersAvailable() ? availableParallelism() : 0);
+  const threads =
+    opts.threads ?? (whatIfWorkersAvailable() ? Math.min(MAX_WHAT_IF_WORKERS, availableParallelism()) : 0);
+  const here = () => {
+    done = 0;
+    return tasks.map((t) => {
+      const r = runTask(inputs, t);
+      onDone();
+      return r;
+    });
+  };
   const tallies =
     threads > 0 && whatIfWorkersAvailable()
-      ? await runOnWorkers(inputs, tasks, threads, onDone)
-      : tasks.map((t) => {
-          const r = runTask(inputs, t);
-          onDone();
-          return r;
-        });
+      ? await runOnWorkers(inputs, tasks, threads, onDone).catch(here)
+      : here();
   const energyNames = Object.keys(ENERGY_FACTORS) as WhatIfName[];
   const bases = results.bases.map((b, baseIndex) => {
     const mine = tasks.flatMap((t, i) => (t.baseIndex === baseIndex ? [{ t, tally: tallies[i]! }] : []));
