@@ -42,6 +42,16 @@ function statFigure(runs: RunResult[], of: (stats: Record<string, number>, wallS
   return figureOf(runs.map((r) => of(r.stats, r.wallS)).filter((v) => Number.isFinite(v)));
 }
 
+/** A benchmark that failed part-way: the figures measured before the failure are kept. */
+export class PartialBenchError extends Error {
+  constructor(
+    message: string,
+    readonly figures: Record<string, Figure>,
+  ) {
+    super(message);
+  }
+}
+
 const mib = (s: Record<string, number>) => (s["maxRssKiB"] ?? Number.NaN) / 1024;
 
 export async function benchCommands(): Promise<Record<string, Figure>> {
@@ -104,9 +114,21 @@ export async function benchCommands(): Promise<Record<string, Figure>> {
       `  peak RSS of climate on 20 files            ${showFigure(figures["climateTwentyFilesPeakRssMiB"], 0)} MiB`,
     );
 
-    Object.assign(figures, await benchDemoPlan(dir, stats));
-    Object.assign(figures, await benchWhatIf(dir, stats));
-    Object.assign(figures, await benchBaseCopies(dir, stats));
+    const failures: string[] = [];
+    for (const [name, step] of [
+      ["demo plan", () => benchDemoPlan(dir, stats)],
+      ["demo plan with what-if variants", () => benchWhatIf(dir, stats)],
+      ["copies of a demo base", () => benchBaseCopies(dir, stats)],
+    ] as const) {
+      try {
+        Object.assign(figures, await step());
+      } catch (err) {
+        const message = err instanceof Error ? err.message : String(err);
+        line(`${name}: failed: ${message}`);
+        failures.push(`${name}: ${message}`);
+      }
+    }
+    if (failures.length > 0) throw new PartialBenchError(failures.join("; "), figures);
     return figures;
   } finally {
     rmSync(dir, { recursive: true, force: true });

@@ -78,6 +78,7 @@ interface DemoPlanData {
   schedule: string;
   climate: { paths: string[]; stationHistory?: string };
   bases: { name: string }[];
+  nitrogen?: { stock?: Record<string, unknown> };
   whatIf?: string[];
 }
 
@@ -103,6 +104,25 @@ export function plainDemoPlanFile(dir: string): string {
 }
 
 /**
+ * A stock entry given per base (`{ <base>: value }`) names the copied base: each copy gets that
+ * base's value; entries of other bases are dropped (their bases are not in the copied plan).
+ */
+function copyPerBaseEntries(stock: Record<string, unknown> | undefined, copies: number): void {
+  if (stock === undefined) return;
+  for (const [key, value] of Object.entries(stock)) {
+    if (value === null || typeof value !== "object" || Array.isArray(value)) continue;
+    const perBase = value as Record<string, unknown>;
+    if (!(COPIED_BASE in perBase)) {
+      delete stock[key];
+      continue;
+    }
+    stock[key] = Object.fromEntries(
+      Array.from({ length: copies }, (_, k) => [`${COPIED_BASE} ${k + 1}`, perBase[COPIED_BASE]]),
+    );
+  }
+}
+
+/**
  * A plan (and its schedule) in `dir` with `copies` copies of the demo base COPIED_BASE, each with the
  * demo's stays at that base under aircraft names of its own; the demo's climate files; no what-if
  * variants. Returns the plan.
@@ -113,6 +133,7 @@ export function copiedBasePlan(dir: string, copies: number): string {
   const base = plan.bases.find((b) => b.name === COPIED_BASE)!;
   plan.name = `bench-${copies}`;
   plan.bases = Array.from({ length: copies }, (_, k) => ({ ...base, name: `${COPIED_BASE} ${k + 1}` }));
+  copyPerBaseEntries(plan.nitrogen?.stock, copies);
   plan.schedule = "schedule.csv";
   const [header, ...rows] = readFileSync(join(DEMO_DIR, "demo-schedule.csv"), "utf8").trim().split("\n");
   const stays = rows.map((r) => r.split(",")).filter((c) => c[1] === COPIED_BASE);

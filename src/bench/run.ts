@@ -73,7 +73,13 @@ export async function runArea(area: string, file: string, exportName: string): P
     const code = (err as NodeJS.ErrnoException).code;
     if (code === "ERR_MODULE_NOT_FOUND")
       return { area, status: "missing", message: `${file} not present`, figures: {} };
-    return { area, status: "failed", message: err instanceof Error ? err.message : String(err), figures: {} };
+    const kept = (err as { figures?: Figures }).figures ?? {};
+    return {
+      area,
+      status: "failed",
+      message: err instanceof Error ? err.message : String(err),
+      figures: kept,
+    };
   }
 }
 

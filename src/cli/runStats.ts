@@ -5,7 +5,7 @@
  * spent in the hour-by-hour simulation and the accumulator-hours simulated). Nothing is written
  * otherwise; results, reports and exit codes never depend on it.
  */
-import { writeFileSync } from "node:fs";
+import { readFileSync, writeFileSync } from "node:fs";
 
 const noted: Record<string, number> = {};
 
@@ -20,9 +20,25 @@ export function writeRunStatsAtExit(env: NodeJS.ProcessEnv = process.env): void 
   if (file === undefined || file === "") return;
   process.on("exit", () => {
     try {
-      writeFileSync(file, JSON.stringify({ ...noted, maxRssKiB: process.resourceUsage().maxRSS }));
+      writeFileSync(file, JSON.stringify({ ...noted, maxRssKiB: peakRssKiB() }));
     } catch {
       // a benchmark aid only: never turns a run into a failure
     }
   });
+}
+
+/**
+ * Peak resident set size of this process, KiB. On Linux the high-water mark of its own memory
+ * (`VmHWM` of /proc/self/status, proc(5)): `getrusage`'s `ru_maxrss` keeps, across exec, the peak of
+ * the process that forked it, so a run spawned by a large benchmark process would report the
+ * benchmark's memory. Elsewhere `process.resourceUsage().maxRSS`.
+ */
+function peakRssKiB(): number {
+  try {
+    const hwm = /^VmHWM:\s+(\d+)\s+kB$/m.exec(readFileSync("/proc/self/status", "utf8"));
+    if (hwm) return Number(hwm[1]);
+  } catch {
+    // not Linux: fall through
+  }
+  return process.resourceUsage().maxRSS;
 }

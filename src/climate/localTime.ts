@@ -32,41 +32,103 @@ const DAY_MS = 86_400_000;
 export const OFFSET_PROBE_HOURS = 96;
 
 /**
- * UTC offset in minutes of every grid hour. Luxon (the IANA time zone database) is the source of every
- * offset: it is asked at every OFFSET_PROBE_HOURS-th hour, and between two probes that differ the hour
- * of each change is found by bisection, asking luxon again; the hours between are filled from the
- * answers: about one hour in ninety is asked, instead of every hour.
+ * UTC offset in minutes of every grid hour, from the zone's clock (`zoneClockFor`: luxon asked at
+ * probes OFFSET_PROBE_HOURS apart, and by bisection at each change): about one hour in ninety is
+ * asked of luxon, instead of every hour.
  */
 export function hourlyOffsetsMin(series: HourlySeries, timeZone: string): Int16Array {
+  const clock = zoneClockFor(timeZone);
+  const out = new Int16Array(series.tempC.length);
+  for (let i = 0; i < out.length; i++) out[i] = clock.offsetMinAt(series.startUtcMs + i * HOUR_MS);
+  return out;
+}
+
+/** A zone's UTC offsets at any instant and the UTC instant of any local clock time. */
+export interface ZoneClock {
+  readonly timeZone: string;
+  /** UTC offset in minutes (local − UTC) at a UTC instant, ms. */
+  offsetMinAt(utcMs: number): number;
+  /**
+   * The UTC instant (ms) of local clock time `minutes` after midnight of a local calendar date. A
+   * clock time that occurs twice (a change back) is its earlier occurrence; one that does not occur
+   * (a change forward) is moved forward by the change, as luxon does.
+   */
+  utcMsOfLocal(year: number, month: number, day: number, minutes: number): number;
+}
+
+const clocks = new Map<string, ZoneClock>();
+
+/**
+ * The clock of an IANA zone, shared by every caller. Luxon is the source of every offset: it is
+ * asked at instants OFFSET_PROBE_HOURS apart (on a grid fixed from 1970), and where two neighbouring
+ * probes differ, the instant of the change is found by bisection to the second, asking luxon again;
+ * each answer is kept. A plan asks for the local midnights and start times of many thousand days:
+ * this is the difference between about two luxon calls per four days and several per day.
+ *
+ * @example zoneClockFor("Europe/Berlin").utcMsOfLocal(2014, 7, 1, 0) // Date.parse("2014-06-30T22:00Z")
+ */
+export function zoneClockFor(timeZone: string): ZoneClock {
+  let clock = clocks.get(timeZone);
+  if (clock === undefined) {
+    clock = makeZoneClock(timeZone);
+    clocks.set(timeZone, clock);
+  }
+  return clock;
+}
+
+const PROBE_MS = OFFSET_PROBE_HOURS * HOUR_MS;
+
+function makeZoneClock(timeZone: string): ZoneClock {
   const zone = IANAZone.create(timeZone);
   if (!zone.isValid) throw new Error(`unknown time zone ${timeZone}`);
-  const n = series.tempC.length;
-  const out = new Int16Array(n);
-  if (n === 0) return out;
-  const offsetAt = (i: number) => zone.offset(series.startUtcMs + i * HOUR_MS);
-  /** Fills hours [lo, hi) knowing the offsets at lo and hi (at most one change in a probe step). */
-  const fill = (lo: number, offLo: number, hi: number, offHi: number): void => {
-    while (offLo !== offHi && hi - lo > 1) {
-      const mid = lo + ((hi - lo) >> 1);
-      const offMid = offsetAt(mid);
-      fill(lo, offLo, mid, offMid);
-      lo = mid;
-      offLo = offMid;
+  const probes = new Map<number, number>();
+  /** Block k: its offset at the start, the offset after its change and the change's instant. */
+  const blocks = new Map<number, { from: number; to: number; changeMs: number }>();
+  const probe = (k: number): number => {
+    let off = probes.get(k);
+    if (off === undefined) {
+      off = zone.offset(k * PROBE_MS);
+      probes.set(k, off);
     }
-    if (offLo === offHi) out.fill(offLo, lo, hi);
-    else out[lo] = offLo;
+    return off;
   };
-  let lo = 0;
-  let offLo = offsetAt(0);
-  while (lo < n - 1) {
-    const hi = Math.min(n - 1, lo + OFFSET_PROBE_HOURS);
-    const offHi = offsetAt(hi);
-    fill(lo, offLo, hi, offHi);
-    lo = hi;
-    offLo = offHi;
-  }
-  out[n - 1] = offLo;
-  return out;
+  const block = (k: number) => {
+    let b = blocks.get(k);
+    if (b === undefined) {
+      const from = probe(k);
+      const to = probe(k + 1);
+      let lo = k * PROBE_MS; // offset `from` here
+      let hi = (k + 1) * PROBE_MS; // offset `to` here
+      while (from !== to && hi - lo > 1000) {
+        const mid = lo + Math.floor((hi - lo) / 2000) * 1000;
+        if (zone.offset(mid) === from) lo = mid;
+        else hi = mid;
+      }
+      b = { from, to, changeMs: from === to ? Number.POSITIVE_INFINITY : hi };
+      blocks.set(k, b);
+    }
+    return b;
+  };
+  const offsetMinAt = (utcMs: number): number => {
+    const b = block(Math.floor(utcMs / PROBE_MS));
+    return utcMs < b.changeMs ? b.from : b.to;
+  };
+  const utcMsOfLocal = (year: number, month: number, day: number, minutes: number): number => {
+    const localAsUtc = Date.UTC(year, month - 1, day, 0, minutes);
+    // The offsets a day either side: the time zone database has no two changes of a zone less than
+    // 7 days apart, so the clock time is either side's offset, both (twice), or neither (skipped).
+    const before = offsetMinAt(localAsUtc - DAY_MS);
+    const after = offsetMinAt(localAsUtc + DAY_MS);
+    const withBefore = localAsUtc - before * 60_000;
+    const withAfter = localAsUtc - after * 60_000;
+    const beforeHolds = offsetMinAt(withBefore) === before;
+    const afterHolds = offsetMinAt(withAfter) === after;
+    if (beforeHolds && afterHolds) return Math.min(withBefore, withAfter);
+    if (beforeHolds) return withBefore;
+    if (afterHolds) return withAfter;
+    return localAsUtc - Math.min(before, after) * 60_000;
+  };
+  return { timeZone, offsetMinAt, utcMsOfLocal };
 }
 
 /** Local calendar day (days since 1970-01-01 in local time) and month (1–12) of every grid hour. */

@@ -1,12 +1,14 @@
 /**
  * Local days of one stay mapped onto one climate year (docs/methods.md §5), with every instant the
- * simulation needs as UTC milliseconds: local midnights, start times, hangar hours. Daylight saving is
- * left to luxon; days of 23 or 25 hours keep their true length.
+ * simulation needs as UTC milliseconds: local midnights, start times, hangar hours. Daylight saving
+ * comes from the IANA time zone database through luxon (`zoneClockFor`); days of 23 or 25 hours keep
+ * their true length.
  */
-import { DateTime } from "luxon";
+import { zoneClockFor } from "../climate/localTime.js";
 import { type CivilDate, civilIso, climateDate, isoWeekday } from "./calendar.js";
 
 export const HOUR_MS = 3_600_000;
+const DAY_MS = 24 * HOUR_MS;
 
 export interface DayPlan {
   /** Real date of the schedule (YYYY-MM-DD). */
@@ -45,23 +47,14 @@ function previousDay(d: CivilDate): CivilDate {
   return { year: t.getUTCFullYear(), month: t.getUTCMonth() + 1, day: t.getUTCDate() };
 }
 
-/** Cache of local-midnight instants per (zone, date): luxon is the slow part of building days. */
-const midnightCache = new Map<string, number>();
-
 function localInstant(d: CivilDate, minutes: number, zone: string): number {
-  if (minutes === 0) {
-    const key = `${zone}|${d.year}|${d.month}|${d.day}`;
-    const hit = midnightCache.get(key);
-    if (hit !== undefined) return hit;
-    const ms = DateTime.fromObject({ year: d.year, month: d.month, day: d.day }, { zone }).toMillis();
-    if (midnightCache.size > 500_000) midnightCache.clear();
-    midnightCache.set(key, ms);
-    return ms;
-  }
-  return DateTime.fromObject(
-    { year: d.year, month: d.month, day: d.day, hour: Math.floor(minutes / 60), minute: minutes % 60 },
-    { zone },
-  ).toMillis();
+  return zoneClockFor(zone).utcMsOfLocal(d.year, d.month, d.day, minutes);
+}
+
+/** Local hour of day (0–23) of a UTC instant. */
+function localHourAt(utcMs: number, zone: string): number {
+  const localMs = utcMs + zoneClockFor(zone).offsetMinAt(utcMs) * 60_000;
+  return Math.floor((((localMs % DAY_MS) + DAY_MS) % DAY_MS) / HOUR_MS);
 }
 
 function nextDay(d: CivilDate): CivilDate {
@@ -93,7 +86,7 @@ export function localHourOf(day: DayPlan, utcMs: number, zone: string): number {
   if (day.localHours === null) return Math.floor((utcMs - day.midnightUtcMs) / HOUR_MS);
   const first = Math.ceil(day.midnightUtcMs / HOUR_MS) * HOUR_MS;
   const h = day.localHours[(utcMs - first) / HOUR_MS];
-  return h ?? DateTime.fromMillis(utcMs, { zone }).hour;
+  return h ?? localHourAt(utcMs, zone);
 }
 
 /**
@@ -134,7 +127,7 @@ export function buildDays(
     if (len !== 24 * HOUR_MS) {
       localHours = [];
       for (let g = Math.ceil(midnight / HOUR_MS) * HOUR_MS; g < next; g += HOUR_MS) {
-        localHours.push(DateTime.fromMillis(g, { zone: opts.timeZone }).hour);
+        localHours.push(localHourAt(g, opts.timeZone));
       }
     }
     return {

@@ -49,7 +49,7 @@ describe("coldsoak precharge", () => {
   });
 
   it("100 psig at 70 °F gives ideal 76.2 and real 75.7 psig at −40 °F; absolute input equals gauge + 1 atm", () => {
-    // Issue 3 (same origin as above); 14.696 psia = 1 atm (from memory).
+    // Computed independently from the equation of state (tests/physics/crosscheck); 14.696 psia = 1 atm (from memory).
     const j = prechargeJson(prechargeAnswer("100psig@70F", "-40F"));
     expect(Math.abs(j.idealPsig - 76.2)).toBeLessThanOrEqual(0.1);
     expect(Math.abs(j.realPsig - 75.7)).toBeLessThanOrEqual(0.1);

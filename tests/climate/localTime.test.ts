@@ -5,9 +5,14 @@
  * summer time, a daylight saving period revoked after a week, suspensions for Ramadan, a skipped
  * calendar day. Luxon (the IANA database) is the reference here, not a number of ours.
  */
-import { IANAZone } from "luxon";
+import { DateTime, IANAZone } from "luxon";
 import { describe, expect, it } from "vitest";
-import { hourlyOffsetsMin, localDays, OFFSET_PROBE_HOURS } from "../../src/climate/localTime.js";
+import {
+  hourlyOffsetsMin,
+  localDays,
+  OFFSET_PROBE_HOURS,
+  zoneClockFor,
+} from "../../src/climate/localTime.js";
 import { HOUR_MS, type HourlySeries } from "../../src/climate/types.js";
 
 /** An empty series over [from, to) UTC, starting `skewHours` after `from` (so probes fall off midnight). */
@@ -97,5 +102,52 @@ describe("hourly UTC offsets from probes of luxon", () => {
     expect(Array.from(day.slice(6))).toEqual(Array(18).fill(jan1));
     expect(month[0]).toBe(12);
     expect(month[6]).toBe(1);
+  });
+});
+
+describe("a zone's clock: offsets at any instant and the instant of a local clock time", () => {
+  /** Local wall clock of an instant in a zone, by luxon, as "YYYY-MM-DD HH:mm". */
+  const wall = (utcMs: number, zone: string) =>
+    DateTime.fromMillis(utcMs, { zone }).toFormat("yyyy-MM-dd HH:mm");
+
+  for (const c of CASES) {
+    it(`${c.zone} ${c.from.slice(0, 4)}–${c.to.slice(0, 4)}: offsets equal luxon's; local times map back`, () => {
+      const clock = zoneClockFor(c.zone);
+      const zone = IANAZone.create(c.zone);
+      const from = Date.parse(`${c.from}T00:00:00Z`);
+      const to = Math.min(Date.parse(`${c.to}T00:00:00Z`), from + 2 * 366 * 86_400_000);
+      // Every 25 minutes: off the probe grid and off the hour.
+      for (let t = from; t < to; t += 25 * 60_000) expect(clock.offsetMinAt(t)).toBe(zone.offset(t));
+      for (let day = from; day < to; day += 86_400_000) {
+        const d = new Date(day);
+        const [y, m, dd] = [d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate()];
+        for (const minutes of [0, 90, 150]) {
+          const asked = `${d.toISOString().slice(0, 10)} ${String(Math.floor(minutes / 60)).padStart(2, "0")}:${String(minutes % 60).padStart(2, "0")}`;
+          const got = clock.utcMsOfLocal(y, m, dd, minutes);
+          const byLuxon = DateTime.fromObject(
+            { year: y, month: m, day: dd, hour: Math.floor(minutes / 60), minute: minutes % 60 },
+            { zone: c.zone },
+          ).toMillis();
+          if (wall(got, c.zone) === asked) {
+            // The clock time exists: no earlier instant within a change's size (at most 2 h in
+            // these zones) shows it, and luxon's answer, where luxon finds it, is not earlier.
+            for (const back of [30, 60, 120]) expect(wall(got - back * 60_000, c.zone)).not.toBe(asked);
+            if (wall(byLuxon, c.zone) === asked) expect(got).toBeLessThanOrEqual(byLuxon);
+          } else {
+            // Skipped by a change forward: moved forward by the change, as luxon moves it.
+            expect(got).toBe(byLuxon);
+          }
+        }
+      }
+    });
+  }
+
+  it("a clock time that occurs twice is its earlier occurrence; a skipped one moves forward", () => {
+    // Europe/Berlin, 2014-10-26: 03:00 CEST became 02:00 CET, so 02:30 occurred at 00:30 and at
+    // 01:30 UTC; 2014-03-30: 02:00 CET became 03:00 CEST, so 02:30 did not occur (tz database "europe").
+    const berlin = zoneClockFor("Europe/Berlin");
+    expect(berlin.utcMsOfLocal(2014, 10, 26, 150)).toBe(Date.parse("2014-10-26T00:30:00Z"));
+    expect(berlin.utcMsOfLocal(2014, 3, 30, 150)).toBe(Date.parse("2014-03-30T01:30:00Z"));
+    expect(berlin.utcMsOfLocal(2014, 7, 1, 0)).toBe(Date.parse("2014-06-30T22:00:00Z"));
   });
 });

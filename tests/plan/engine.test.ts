@@ -148,7 +148,7 @@ describe("monthly statistics (docs/methods.md §5; README, Outputs)", () => {
   });
 
   it("a base with fewer usable years than climate.minYears gets a warning listing them", () => {
-    // Issue 4: "a warning that lists the years it has".
+    // docs/methods.md, "Usable years, window by window": a base below climate.minYears is warned about, naming its years.
     const plan = fixturePlan((t) => {
       oneLitreUnit(t);
       t.climate.years = { from: 2013, to: 2014 };

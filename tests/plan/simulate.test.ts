@@ -70,7 +70,7 @@ describe("simulation physics identities", () => {
   });
 
   it("20 °C at the last recharge, −20 °C by morning, lag zero: morning gas 2311.6 ± 1 psig", () => {
-    // Issue 4 / physics tests: computed independently from the equation of state (Span et al. 2000) and
+    // Computed independently from the equation of state (Span et al. 2000) and
     // the fluid model of docs/methods.md §3: 2311.6 psig ± 1.
     const plan = fixturePlan((t) => {
       oneLitreUnitFullPump(t);
