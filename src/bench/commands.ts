@@ -1,8 +1,9 @@
 /**
  * Whole commands as a user waits for them: the built CLI as spawned processes, each measured in A/B
  * pairs against a reference run side by side (harness.ts): `node -e 0` for start-up, `gzip -dc` of the
- * same files for reading climate, the same command with an empty cache for a warm one; and the demo
- * plan against the time its own hour-by-hour simulation took. Peak memory comes from what each run
+ * same files for reading climate, the same command with an empty cache for a warm one; the demo
+ * plan against the time its own hour-by-hour simulation took, and with its what-if variants against
+ * the plain run. Peak memory comes from what each run
  * reports of itself (COLDSOAK_RUN_STATS).
  */
 import { mkdtempSync, rmSync } from "node:fs";
@@ -18,7 +19,7 @@ import {
   runOnce,
   showFigure,
 } from "./harness.js";
-import { COPIED_BASE, climateInputs, copiedBasePlan, DEMO_PLAN } from "./inputs.js";
+import { COPIED_BASE, climateInputs, copiedBasePlan, DEMO_PLAN, plainDemoPlanFile } from "./inputs.js";
 
 const CLI = fileURLToPath(new URL("../cli/main.js", import.meta.url));
 const NODE = process.execPath;
@@ -116,6 +117,7 @@ export async function benchCommands(): Promise<Record<string, Figure>> {
     const failures: string[] = [];
     for (const [name, step] of [
       ["demo plan", () => benchDemoPlan(dir, stats)],
+      ["demo plan with what-if variants", () => benchWhatIf(dir, stats)],
       ["copies of a demo base", () => benchBaseCopies(dir, stats)],
     ] as const) {
       try {
@@ -134,13 +136,14 @@ export async function benchCommands(): Promise<Record<string, Figure>> {
 }
 
 /**
- * The demo plan, in pairs of an empty-cache run and a filled-cache run: wall time over the run's own
- * simulation seconds (filled cache), the simulation's accumulator-hours per second, peak memory.
+ * The demo plan without its what-if variants, in pairs of an empty-cache run and a filled-cache run:
+ * wall time over the run's own simulation seconds (filled cache), the simulation's accumulator-hours
+ * per second, peak memory.
  */
 async function benchDemoPlan(dir: string, stats: string): Promise<Record<string, Figure>> {
   const out = join(dir, "out");
   const cache = join(dir, "plan-cache");
-  const args = ["plan", DEMO_PLAN, "--out", out, "--cache-dir", cache];
+  const args = ["plan", plainDemoPlanFile(join(dir, "plain-demo")), "--out", out, "--cache-dir", cache];
   const r = await paired(
     cli("demo plan, empty cache", args, emptied(cache)),
     cli("demo plan, filled cache", args),
@@ -167,6 +170,31 @@ async function benchDemoPlan(dir: string, stats: string): Promise<Record<string,
   line(
     `  peak RSS, filled / empty cache             ${showFigure(figures["planWarmPeakRssMiB"]!, 0)} / ${showFigure(figures["planColdPeakRssMiB"]!, 0)} MiB`,
   );
+  return figures;
+}
+
+/**
+ * The demo plan with its what-if variants (the plan's `whatIf:` list, every variant) against the same
+ * plan without them, both on a filled cache: the wall-time ratio of each pair, and peak memory.
+ */
+async function benchWhatIf(dir: string, stats: string): Promise<Record<string, Figure>> {
+  const cache = join(dir, "plan-cache");
+  const plain = plainDemoPlanFile(join(dir, "plain-demo"));
+  const out = (name: string) => ["--out", join(dir, name), "--cache-dir", cache];
+  const r = await paired(
+    cli("demo plan, plain", ["plan", plain, ...out("out-plain")]),
+    cli("demo plan, what-if", ["plan", DEMO_PLAN, ...out("out-what-if")]),
+    { statsFile: stats },
+  );
+  const figures: Record<string, Figure> = {
+    whatIfOverPlain: r.ratio,
+    whatIfSeconds: r.b,
+    whatIfPeakRssMiB: statFigure(r.runsB, mib),
+  };
+  line(
+    `demo plan, what-if variants / plain run     ${showFigure(r.ratio)}  (plain ${showFigure(r.a)} s, what-if ${showFigure(r.b)} s)`,
+  );
+  line(`  peak RSS with the variants                 ${showFigure(figures["whatIfPeakRssMiB"]!, 0)} MiB`);
   return figures;
 }
 

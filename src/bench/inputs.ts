@@ -73,10 +73,36 @@ export function climateInputs(dir: string): ClimateInputs {
 /** The demo base copied for the memory figures: the one with the most stays. */
 export const COPIED_BASE = "Veldmoor";
 
+interface DemoPlanData {
+  name: string;
+  schedule: string;
+  climate: { paths: string[]; stationHistory?: string };
+  bases: { name: string }[];
+  nitrogen?: { stock?: Record<string, unknown> };
+  whatIf?: string[];
+}
+
+/** The demo plan's data with its files named by absolute paths and without its what-if variants. */
+function plainDemoPlan(): DemoPlanData {
+  const plan = parseDocument(readFileSync(DEMO_PLAN, "utf8")).toJS() as DemoPlanData;
+  plan.climate.paths = plan.climate.paths.map((p) => join(DEMO_DIR, p));
+  if (plan.climate.stationHistory) plan.climate.stationHistory = join(DEMO_DIR, plan.climate.stationHistory);
+  plan.schedule = join(DEMO_DIR, plan.schedule);
+  delete plan.whatIf;
+  return plan;
+}
+
 /**
- * A plan (and its schedule) in `dir` with `copies` copies of the demo base COPIED_BASE, each with the
- * demo's stays at that base under aircraft names of its own; the demo's climate files. Returns the plan.
+ * The demo plan in `dir` without its `whatIf:` list (the plain run; every other setting and file the
+ * demo's own). Returns the plan file.
  */
+export function plainDemoPlanFile(dir: string): string {
+  mkdirSync(dir, { recursive: true });
+  const file = join(dir, "plan.yaml");
+  writeFileSync(file, JSON.stringify(plainDemoPlan())); // JSON is YAML
+  return file;
+}
+
 /**
  * A stock entry given per base (`{ <base>: value }`) names the copied base: each copy gets that
  * base's value; entries of other bases are dropped (their bases are not in the copied plan).
@@ -96,20 +122,16 @@ function copyPerBaseEntries(stock: Record<string, unknown> | undefined, copies: 
   }
 }
 
+/**
+ * A plan (and its schedule) in `dir` with `copies` copies of the demo base COPIED_BASE, each with the
+ * demo's stays at that base under aircraft names of its own; the demo's climate files; no what-if
+ * variants. Returns the plan.
+ */
 export function copiedBasePlan(dir: string, copies: number): string {
   mkdirSync(dir, { recursive: true });
-  const doc = parseDocument(readFileSync(DEMO_PLAN, "utf8"));
-  const plan = doc.toJS() as {
-    name: string;
-    schedule: string;
-    climate: { paths: string[]; stationHistory?: string };
-    bases: { name: string }[];
-    nitrogen?: { stock?: Record<string, unknown> };
-  };
+  const plan = plainDemoPlan();
   const base = plan.bases.find((b) => b.name === COPIED_BASE)!;
   plan.name = `bench-${copies}`;
-  plan.climate.paths = plan.climate.paths.map((p) => join(DEMO_DIR, p));
-  if (plan.climate.stationHistory) plan.climate.stationHistory = join(DEMO_DIR, plan.climate.stationHistory);
   plan.bases = Array.from({ length: copies }, (_, k) => ({ ...base, name: `${COPIED_BASE} ${k + 1}` }));
   copyPerBaseEntries(plan.nitrogen?.stock, copies);
   plan.schedule = "schedule.csv";

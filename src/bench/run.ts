@@ -35,6 +35,7 @@ export const TARGETS = [
   { key: "climateTwentyFilesOverGzip", limit: 1.5, atLeast: false },
   { key: "climateWarmOverColdCommand", limit: 0.35, atLeast: false },
   { key: "planWallOverSimulation", limit: 2.5, atLeast: false },
+  { key: "whatIfOverPlain", limit: 4, atLeast: false },
   { key: "planWarmPeakRssMiB", limit: 300 * MB_IN_MIB, atLeast: false },
   { key: "planColdPeakRssMiB", limit: 400 * MB_IN_MIB, atLeast: false },
   { key: "plan8BasesWarmPeakRssMiB", limit: 300 * MB_IN_MIB, atLeast: false },

@@ -15,7 +15,9 @@ export function registerClimate(program: Command): void {
         "global-hourly layout; plain or gzip; the layout is detected from the content) and folders of them, " +
         "applies the quality rules, builds the hourly series and prints, per station: period, hours, " +
         "completeness, quality-control counts, monthly min/mean/max in local time, mean and P90 daily range, " +
-        "and the coldest and warmest observation.",
+        "and the coldest and warmest observation; and the climate design temperatures (annual 99.6 % and 99 % " +
+        "cold dry-bulb, the coldest month's 1 % value, the coldest hour's 1-in-10 and 1-in-30-year values, " +
+        "hours a year below −20, −30 and −40 in the chosen units with the longest spell).",
     )
     .argument("<paths...>", "climate files or folders (read recursively)")
     .addOption(
@@ -27,6 +29,11 @@ export function registerClimate(program: Command): void {
       "--gap-hours <n>",
       "fill gaps up to this many hours by linear interpolation",
       String(DEFAULT_GAP_HOURS),
+    )
+    .option(
+      "--min-year-share <share>",
+      "share of a year's (a month's) hours that must hold a value for its design temperatures",
+      "0.8",
     )
     .option("--cache-dir <dir>", "folder of the parsed-series cache", DEFAULT_CACHE_DIR)
     .option("--no-cache", "read every file again, neither using nor writing the cache")

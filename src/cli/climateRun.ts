@@ -11,6 +11,7 @@ import { type ClimateOptions, DROP_REASONS, type StationClimate } from "../clima
 import { InputError } from "../errors.js";
 import { writeFileAtomic } from "../fsutil.js";
 import { formatDisplay, pct, show, type Units, unitSystem } from "../units/index.js";
+import { designLines, parseMinYearShare, type StationDesign, stationDesign } from "./climateDesignText.js";
 
 export interface ClimateCliOptions {
   units: Units;
@@ -21,6 +22,7 @@ export interface ClimateCliOptions {
   cache: boolean;
   stationHistory?: string;
   stationId?: string;
+  minYearShare: string;
 }
 
 /** A progress bar is drawn on stderr from this many files on (and only on a terminal). */
@@ -50,7 +52,7 @@ function parseGapHours(text: string): number {
 }
 
 /** The per-station text block of the table output. */
-export function formatStation(s: StationSummary, units: Units): string {
+export function formatStation(s: StationSummary, units: Units, design: StationDesign | null = null): string {
   const sys = unitSystem(units);
   const u = sys.temp.unit;
   const lines: string[] = [];
@@ -83,6 +85,7 @@ export function formatStation(s: StationSummary, units: Units): string {
       `  ${MONTHS[m.month - 1]!.padEnd(5)}${cells[0]!.padStart(8)} ${cells[1]!.padStart(8)} ${cells[2]!.padStart(8)} ${cells[3]!.padStart(12)} ${cells[4]!.padStart(10)}`,
     );
   }
+  if (design !== null) lines.push(...designLines(design, units));
   return lines.join("\n");
 }
 
@@ -126,20 +129,29 @@ export function climateCsv(stations: StationSummary[], units: Units): string {
   return `${rows.join("\r\n")}\r\n`;
 }
 
-/** The `--json` document of the stations and their summaries (in the same order); temperatures always in °C. */
-export function climateJson(stations: StationClimate[], summaries: StationSummary[]): unknown {
+/**
+ * The `--json` document of the stations and their summaries (in the same order), with their design
+ * temperatures when given; temperatures always in °C.
+ */
+export function climateJson(
+  stations: StationClimate[],
+  summaries: StationSummary[],
+  designs: StationDesign[] | null = null,
+): unknown {
   return {
     stations: stations.map((s, i) => ({
       ...summaries[i]!,
       callLetters: s.meta.callLetters,
       meanStationPressureHpa:
         s.meanStationPressureHpa === null ? null : Math.round(s.meanStationPressureHpa * 10) / 10,
+      ...(designs === null ? {} : { design: designs[i]! }),
     })),
   };
 }
 
 export async function runClimate(paths: string[], opts: ClimateCliOptions): Promise<void> {
   const gapHours = parseGapHours(opts.gapHours);
+  const minYearShare = parseMinYearShare(opts.minYearShare);
   let bar: SingleBar | null = null;
   // The progress bar's library is loaded only where a bar can be drawn.
   const progress = process.stderr.isTTY ? await import("cli-progress") : null;
@@ -184,6 +196,11 @@ export async function runClimate(paths: string[], opts: ClimateCliOptions): Prom
   }
   const summaries = stations.map(stationSummary);
   if (opts.csv !== undefined) await writeFileAtomic(opts.csv, climateCsv(summaries, opts.units));
-  if (opts.json) process.stdout.write(`${JSON.stringify(climateJson(stations, summaries), null, 2)}\n`);
-  else process.stdout.write(`${summaries.map((s) => formatStation(s, opts.units)).join("\n\n")}\n`);
+  const designs = stations.map((s) => stationDesign(s, opts.units, minYearShare));
+  if (opts.json)
+    process.stdout.write(`${JSON.stringify(climateJson(stations, summaries, designs), null, 2)}\n`);
+  else
+    process.stdout.write(
+      `${summaries.map((s, i) => formatStation(s, opts.units, designs[i]!)).join("\n\n")}\n`,
+    );
 }

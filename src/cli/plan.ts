@@ -19,6 +19,10 @@ export function registerPlan(program: Command): void {
     .option("--out <dir>", "output root folder; results go to <dir>/<plan name>/", "out")
     .option("--json", "print results.json on stdout instead of the summary")
     .option(
+      "--what-if",
+      "also run every what-if variant over the same climate (the plan's whatIf: list, when it has one, names them)",
+    )
+    .option(
       "--pdf",
       "also print the report to report.pdf through the system Chromium (skipped, with a note, when none)",
     )
@@ -36,7 +40,8 @@ Output (in <out>/<plan name>/, replaced only after a successful run):
                  climate_months, daily_range_histogram, nitrogen_stays, nitrogen_fleet,
                  nitrogen_timeline, nitrogen_cylinder_gas, trapped_charge, traces, stations,
                  atmosphere, precharge_line, band, base_curves, stays, stay_months, aircraft_actions,
-                 assumptions
+                 assumptions, break_even, energy_curve, design_point, design_temperatures,
+                 design_months, hours_below, what_if (with what-if variants)
   report.html    the self-contained planning report
 
 Schedule CSV: aircraft,base,arrive,depart[,cold_start_option][,profile]
@@ -46,6 +51,7 @@ Examples:
   coldsoak plan sample-data/demo-plan.yaml
   coldsoak plan plan.yaml --schedule winter.csv --out results
   coldsoak plan plan.yaml --json > results.json
+  coldsoak plan sample-data/demo-plan.yaml --what-if
 
 Planning estimates, not maintenance data: service from the approved maintenance data and the
 manufacturer's instructions, follow local rules, and take high-pressure gas precautions.`,

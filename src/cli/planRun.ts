@@ -11,6 +11,7 @@ import { loadPlan, type Plan } from "../plan/planFile.js";
 import type { Results } from "../plan/results.js";
 import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
+import { whatIfNames, withWhatIf } from "../plan/whatIfRun.js";
 import { renderReport, startChartWorkers, writePdf } from "../report/index.js";
 import { formatDisplay, pct, showWithUnit, unitSystem } from "../units/index.js";
 import { writeOutputFolder } from "./outputFolder.js";
@@ -24,6 +25,7 @@ export interface PlanCliOptions {
   cache: boolean;
   cacheDir?: string;
   pdf?: boolean;
+  whatIf?: boolean;
 }
 
 const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
@@ -126,10 +128,14 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
   });
   files.stop();
   const sims = progressBar(bars, "stay-years");
-  const { results, stats } = runPlan(plan, stays, climate, { onProgress: sims.update });
+  const { results: plain, stats } = runPlan(plan, stays, climate, { onProgress: sims.update });
   noteRunStat("simulationS", stats.simulationS);
   noteRunStat("accumulatorHours", stats.accumulatorHours);
   sims.stop();
+  const variants = progressBar(bars, "what-if runs");
+  const names = whatIfNames(plan, opts.whatIf === true);
+  const results = await withWhatIf(plan, stays, climate, plain, names, { onProgress: variants.update });
+  variants.stop();
   const out = new Map<string, string>();
   out.set("results.json", resultsJson(results));
   for (const t of resultTables(results)) out.set(`${t.name}.csv`, toCsv(t));

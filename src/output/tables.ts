@@ -21,6 +21,7 @@ import type {
   StayResult,
 } from "../plan/results.js";
 import { formatMachine, shownText, unitSystem } from "../units/index.js";
+import { designTables } from "./designTables.js";
 
 export type Cell = string | number | boolean | null;
 export interface Table {
@@ -516,6 +517,7 @@ export function resultTables(r: Results): Table[] {
       ["at_temp_c", (a) => a.atTempC ?? null],
       ["origin", (a) => a.origin],
     ]),
+    ...designTables(r),
   ];
 }
 

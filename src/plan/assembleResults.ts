@@ -107,7 +107,7 @@ export function assembleResults(
       outOfBandPct: plan.thresholds.outOfBandPct,
       minYears: plan.climate.minYears,
     },
-    profiles: plan.profiles.map((p) => profileCurves(p, STANDARD_ATMOSPHERE_PA)),
+    profiles: plan.profiles.map((p) => profileCurves(p, STANDARD_ATMOSPHERE_PA, plan.units)),
     bases,
     nitrogenFleet: nitrogenFleet(bases, eventDraws(plan)),
     stays: stays.map((s, i) => ({
@@ -124,5 +124,6 @@ export function assembleResults(
     methods: METHODS,
     randomInputs: randomInputs(plan, stays, weekdays, bases),
     warnings,
+    whatIf: null,
   };
 }

@@ -8,6 +8,7 @@
 
 import { JSON_UNITS, kToC, type QuantityKind, type QuantityValue, toJsonUnit } from "../units/index.js";
 import { MONTH_NAMES } from "./calendar.js";
+import { coldThresholdsK } from "./climateDesign.js";
 import type { Plan, PointPressure } from "./planFile.js";
 import { WEEKDAY_NAMES } from "./planFile.js";
 import type { Assumption } from "./results.js";
@@ -57,6 +58,14 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
   add(["climate", "minYears"], "Usable years below which a base is flagged", "count", c.minYears);
   add(["climate", "cacheDir"], "Climate cache folder", "text", c.cacheDir ?? "<out>/.cache/climate");
   add(["climate", "stationHistory"], "Station-history list", "text", c.stationHistory ?? "none");
+  coldThresholdsK(plan).forEach((k, j) => {
+    add(
+      ["climate", "coldThresholds", j],
+      `Design temperatures: hours below, threshold ${j + 1}`,
+      "temperature",
+      k,
+    );
+  });
   add(["schedule"], "Schedule file", "text", plan.schedule ?? "given on the command line");
 
   plan.bases.forEach((b, i) => {
@@ -212,6 +221,7 @@ export function assumptionsOf(plan: Plan, weekdays: number[]): Assumption[] {
   } else {
     add(["nitrogen", "stock"], "Stock of cylinders per base", "text", "none");
   }
+  add(["whatIf"], "What-if variants", "text", plan.whatIf ?? "none listed (--what-if runs every variant)");
   add(
     ["thresholds", "shortStartsPct"],
     "Share of starts short that calls for the option",

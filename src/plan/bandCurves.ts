@@ -1,11 +1,12 @@
 /**
  * Precharge line, tolerance lines and reading band against temperature, real gas and ideal
- * (docs/methods.md §3), for `results.profiles` (at the standard atmosphere), each base's
+ * (docs/methods.md §3), with the break-even temperatures (`breakEven.ts`), for `results.profiles` (at the standard atmosphere), each base's
  * `profileCurves` (at the base's atmosphere) and the `coldsoak band` command.
  */
 import { prechargeLinesAbsPa, readingBand } from "../physics/accumulator.js";
 import { idealGas, realGas } from "../physics/nitrogen.js";
-import { ZERO_CELSIUS_K as K0, kToC, PA_PER_KPA } from "../units/index.js";
+import { ZERO_CELSIUS_K as K0, kToC, PA_PER_KPA, type Units } from "../units/index.js";
+import { defaultEnergyRangeK, equilibriumBreakEven } from "./breakEven.js";
 import { bandInputsOf } from "./context.js";
 import type { ProfileInput } from "./planFile.js";
 import type { ProfileResult } from "./results.js";
@@ -47,15 +48,20 @@ export function bandCurves(profile: ProfileInput, tempsK: number[], atmPa: numbe
 }
 
 /** Temperatures of the results' curves: −50 °C to 60 °C in steps of 2 K. */
-function curveTempsK(): number[] {
+export function curveTempsK(): number[] {
   const out: number[] = [];
   for (let c = -50; c <= 60; c += 2) out.push(c + K0);
   return out;
 }
 
-/** A profile's precharge lines and reading band against temperature, gauge pressures relative to atmPa. */
-export function profileCurves(profile: ProfileInput, atmPa: number): ProfileResult {
+/**
+ * A profile's precharge lines and reading band against temperature, gauge pressures relative to
+ * atmPa, and its break-even temperatures at equilibrium over the band command's range in the plan's
+ * units (real gas).
+ */
+export function profileCurves(profile: ProfileInput, atmPa: number, units: Units): ProfileResult {
   const rows = bandCurves(profile, curveTempsK(), atmPa);
+  const range = defaultEnergyRangeK(units);
   return {
     name: profile.name,
     atmosphereKPaAbsolute: atmPa / PA_PER_KPA,
@@ -73,5 +79,7 @@ export function profileCurves(profile: ProfileInput, atmPa: number): ProfileResu
       readingHighPct: r.readingHighPct,
       idealReadingNominalPct: r.idealReadingNominalPct,
     })),
+    energyRangeC: { fromC: kToC(range.fromK), toC: kToC(range.toK) },
+    breakEven: equilibriumBreakEven(profile, atmPa, realGas, range),
   };
 }

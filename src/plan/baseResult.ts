@@ -8,8 +8,10 @@ import { stationCoverage } from "../climate/index.js";
 import type { StationClimate } from "../climate/types.js";
 import { PA_PER_KPA } from "../units/index.js";
 import { profileCurves } from "./bandCurves.js";
+import { baseDesignTemperatures } from "./climateDesign.js";
 import { type BaseConfidence, baseConfidence, type StayFigures } from "./confidence.js";
 import { baseDecisions, type DecisionThresholds } from "./decisions.js";
+import { baseDesignPoint } from "./designPoint.js";
 import { type BaseStatistics, baseStatistics } from "./monthStats.js";
 import type { PlanCore } from "./planFile.js";
 import type {
@@ -138,6 +140,10 @@ export function aggregateBase(
     statistics.months.map((m, i) => ({ ...m, ...conf.months[i]! })),
     decisionThresholds(plan),
   );
+  // In this order: each may add warnings.
+  const traces = overnightTraces(sim, base, outcomes);
+  const nitrogen = nitrogenOf(sim, base, outcomes, warnings);
+  const trappedCharge = trappedChargeMonths(plan, base, outcomes, warnings);
   const result: BaseResult = {
     name: plan.bases[base.baseIndex]!.name,
     stations: base.climate.stations.map(stationResult),
@@ -152,13 +158,16 @@ export function aggregateBase(
     coldestMorningByYear: statistics.coldestMorningByYear,
     ...returnLevels(statistics, conf),
     advice: decided.advice,
-    traces: overnightTraces(sim, base, outcomes),
-    nitrogen: nitrogenOf(sim, base, outcomes, warnings),
-    trappedCharge: trappedChargeMonths(plan, base, outcomes, warnings),
+    traces,
+    nitrogen,
+    trappedCharge,
     atmosphere: atmosphereOf(base),
     profileCurves: [...new Set(base.groups.map((g) => g.profileIndex))]
       .sort((a, b) => a - b)
-      .map((i) => profileCurves(plan.profiles[i]!, base.climate.atmPa)),
+      .map((i) => profileCurves(plan.profiles[i]!, base.climate.atmPa, plan.units)),
+    designTemperatures: baseDesignTemperatures(plan, base, statistics.coldestMorningByYear),
+    ...baseDesignPoint(plan, base, outcomes, statistics.coldest1in10C, trappedCharge),
+    whatIf: null,
   };
   return { result, stays: conf.stays, actions: decided.actions };
 }

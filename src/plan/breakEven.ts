@@ -115,20 +115,33 @@ export function energyRows(p: EnergyProfile, tempsK: number[], dropK = 0): Energ
   }));
 }
 
-/** Bracket scan step, K: fine enough that no pair of crossings hides between two points. */
-const SCAN_STEP_K = 1;
+/**
+ * Bracket scan step, K. The delivered energy is smooth in temperature and the requirement linear
+ * between its table's rows, which are scan points too, so no pair of crossings hides between two
+ * neighbouring points at this spacing.
+ */
+const SCAN_STEP_K = 4;
 /** Bisection stops when the bracket's half-width is below this, K. */
 const TOLERANCE_K = 1e-4;
 const MAX_ITERATIONS = 100;
 
+/** Scan points: every SCAN_STEP_K from the range's start, its end, and the given kinks inside it. */
+function scanPoints(range: TempRangeK, kinksK: number[]): number[] {
+  const steps = Math.ceil((range.toK - range.fromK) / SCAN_STEP_K);
+  const grid = Array.from({ length: steps }, (_, i) => range.fromK + i * SCAN_STEP_K);
+  const inside = kinksK.filter((k) => k > range.fromK && k < range.toK);
+  return [...new Set([...grid, ...inside, range.toK])].sort((a, b) => a - b);
+}
+
 /**
- * The ambient below which a margin (delivered − required, J) turns negative: the scan at SCAN_STEP_K
- * finds the warmest bracket with a shortfall on its cold side and none on its warm side, and the
- * bisection of simple-statistics narrows it to TOLERANCE_K. Without such a bracket: "short everywhere"
- * when the coldest temperature of the range falls short, else "never short".
+ * The ambient below which a margin (delivered − required, J) turns negative: a scan finds the warmest
+ * bracket with a shortfall on its cold side and none on its warm side, and the bisection of
+ * simple-statistics narrows it to TOLERANCE_K. Without such a bracket: "short everywhere" when the
+ * coldest temperature of the range falls short, else "never short".
  *
  * @param margin delivered minus required energy at a temperature (K → J)
  * @param range temperature range, K (fromK < toK)
+ * @param kinksK temperatures where the margin may bend (the requirement table's rows), K
  * @returns the break-even temperature (K) or null with the reason
  *
  * References: bisection method (simple-statistics `bisect`); docs/methods.md, "Break-even temperatures".
@@ -139,14 +152,12 @@ const MAX_ITERATIONS = 100;
 export function breakEvenK(
   margin: (tempK: number) => number,
   range: TempRangeK,
+  kinksK: number[] = [],
 ): { tempK: number | null; reason: BreakEvenReason | null } {
   if (!(range.toK > range.fromK)) throw new RangeError(`empty range ${range.fromK}–${range.toK} K`);
-  const steps = Math.ceil((range.toK - range.fromK) / SCAN_STEP_K);
-  const temps = Array.from({ length: steps + 1 }, (_, i) =>
-    i === steps ? range.toK : range.fromK + i * SCAN_STEP_K,
-  );
+  const temps = scanPoints(range, kinksK);
   const values = temps.map(margin);
-  for (let i = steps - 1; i >= 0; i--) {
+  for (let i = temps.length - 2; i >= 0; i--) {
     if (!(values[i]! < 0 && values[i + 1]! >= 0)) continue;
     // The bisection asks for f(start) again and again: remember the values it has seen.
     const seen = new Map<number, number>([
@@ -169,7 +180,11 @@ export function breakEvenK(
 
 /** A case's break-even row for a margin function. */
 function row(p: EnergyProfile, c: EnergyCase, range: TempRangeK, dropK: number): BreakEvenRow {
-  const found = breakEvenK((t) => caseEnergyJ(p, c, t, dropK) - requiredEnergyJ(p, t), range);
+  const found = breakEvenK(
+    (t) => caseEnergyJ(p, c, t, dropK) - requiredEnergyJ(p, t),
+    range,
+    p.energyTable.map((r) => r.x),
+  );
   return {
     units: c.units,
     count: p.units[c.units].count,

@@ -150,6 +150,12 @@ export function starterOf(profile: ProfileInput, atmPa: number): StarterSpec {
   };
 }
 
+/** The pump of a profile at atmPa with a run timer (s): flow against gauge pressure. */
+export function pumpOf(profile: ProfileInput, atmPa: number, timerS: number): PumpSpec {
+  const curve = profile.pump.curve.map((r) => ({ gaugePa: gaugePa(r.pressure, atmPa), flowM3S: r.flow }));
+  return { curve, timerS, atmPa };
+}
+
 /**
  * Gas amounts per unit (mol) at atmPa: nominal through the precharge reference, low and high through
  * the reference ∓ its tolerance, all at the reference temperature with the piston on the V0 stop.
@@ -194,9 +200,8 @@ export function profileContext(
   const bandTable = options.tablesOf?.bandTable ?? buildBandTable(model, geometry, band);
   const count = coldStartOption ? profile.coldStartOption.count : 1;
   const starter = starterOf(profile, atmPa);
-  const pumpCurve = profile.pump.curve.map((r) => ({ gaugePa: gaugePa(r.pressure, atmPa), flowM3S: r.flow }));
-  const pumpOne: PumpSpec = { curve: pumpCurve, timerS: profile.pump.timer, atmPa };
-  const pumpOption: PumpSpec = { curve: pumpCurve, timerS: profile.coldStartOption.timer, atmPa };
+  const pumpOne = pumpOf(profile, atmPa, profile.pump.timer);
+  const pumpOption = pumpOf(profile, atmPa, profile.coldStartOption.timer);
   const grid = options.exactDischarge
     ? null
     : (options.tablesOf?.dischargeGrid ?? dischargeGrid(model, geometry, starter, nominalMol));
@@ -240,7 +245,7 @@ export class ProfileContexts {
     Map<number, [ProfileContext | null, ProfileContext | null]>
   >();
 
-  constructor(private readonly model: GasModel) {}
+  constructor(readonly model: GasModel) {}
 
   get(profile: ProfileInput, atmPa: number, coldStartOption: boolean): ProfileContext {
     const byAtm =

@@ -1,6 +1,7 @@
 /** The methods the report lists (docs/methods.md §3, §5, §7), each with its published source or where it is defined. */
 import type { MethodNote } from "./results.js";
 import { QUANTILE_METHOD } from "./stats.js";
+import { VARIANT_DESCRIPTIONS } from "./whatIfVariants.js";
 
 export const METHODS: MethodNote[] = [
   {
@@ -71,6 +72,25 @@ export const METHODS: MethodNote[] = [
     source: "coldsoak definition (docs/methods.md §5)",
     description:
       "Value at the day's last recharge − value at the next day's first preflight (only when the next calendar day is flown), assigned to the morning's local month, for accumulator temperature, gas pressure and reading.",
+  },
+  {
+    name: "Break-even temperatures and design point",
+    source:
+      "Start energy as above (Span et al. 2000, isentropic); bisection root finding (simple-statistics) on the real-gas model (docs/methods.md, “Break-even temperatures”)",
+    description:
+      "For one accumulator and the option's count, with the gas amount on the low, nominal or high precharge line and charged to the low or nominal system pressure: the start energy at equilibrium (accumulator at the ambient) and after the base's typical (median) and P90 overnight drop of the accumulator temperature (charged that much warmer, fluid trapped, cooled), against the requirement. A break-even temperature is the ambient below which a case falls short: a scan every 4 K (and at the requirement table's rows) brackets the warmest crossing with a shortfall on its cold side, and bisection narrows it to 0.0001 K; without a crossing in the band command's range it is none, short everywhere or never short (judged at the cold end). The cold design point is the base's 1-in-10-year coldest morning.",
+  },
+  {
+    name: "Climate design temperatures",
+    source:
+      "ASHRAE Handbook — Fundamentals, chapter “Climatic Design Information” (from memory); Hyndman & Fan (1996) type 7",
+    description:
+      "From a base's hourly series (filled hours included) over the plan's climate years in local time, a year counting when the plan's share of its hours holds a value (a month likewise for the monthly values): the annual 99.6 % and 99 % cold dry-bulb temperatures (the 0.4 % and 1 % quantiles of all hours of the years), each month's 1 % value and the coldest month's (lowest mean), the coldest hour of each year with its mean and 1-in-10 and 1-in-30-year values (Gumbel as for the coldest morning, bootstrap intervals), and the hours per year below the plan's cold thresholds with the longest run of consecutive hours below each (a missing hour ends a run).",
+  },
+  {
+    name: "What-if variants",
+    source: "coldsoak what-if runs (docs/methods.md, “What-if variants”)",
+    description: `Each variant is the plan simulated again over the same climate years, judged on each base's worst month (the highest share of starts short with one accumulator as planned; the first on ties) by the change, in percentage points, of the shares short with one and with two accumulators and out of band. The variants: ${VARIANT_DESCRIPTIONS.map((v) => `${v.label} (${v.description})`).join("; ")}. “One” and “two” follow both configurations in every run, so the cold-start option on every aircraft changes them only through the fitted configuration's longer recharge timer and its trapped charge.`,
   },
   {
     name: "Quantiles",

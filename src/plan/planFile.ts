@@ -23,6 +23,7 @@ import {
 } from "../units/index.js";
 import { hangarSchema } from "./planHangar.js";
 import { q } from "./planQuantity.js";
+import { WHAT_IF_NAMES } from "./whatIfVariants.js";
 
 const positive = <T extends z.ZodType<number>>(s: T, what: string) =>
   s.refine((v) => v > 0, { message: `${what} must be greater than zero` });
@@ -280,6 +281,8 @@ export const planSchema = z
       minYears: z.number().int().min(1).default(5),
       cacheDir: z.string().min(1).optional(),
       stationHistory: z.string().min(1).optional(),
+      /** Temperatures the design hours below count under (default −20, −30, −40 in the plan's unit). */
+      coldThresholds: z.array(q(parseTemperatureK)).min(1).max(8).optional(),
     }),
     // Optional in the file: `coldsoak screen` reads a plan without bases, schedule or nitrogen; `plan`
     // refuses one without them (requirePlanSections).
@@ -293,6 +296,12 @@ export const planSchema = z
         outOfBandPct: z.number().min(0).max(100).default(2),
       })
       .default({ shortStartsPct: 1, outOfBandPct: 2 }),
+    /** What-if variants run with the plan (docs/methods.md, "What-if variants"). */
+    whatIf: z
+      .array(z.enum(WHAT_IF_NAMES))
+      .min(1)
+      .refine((v) => new Set(v).size === v.length, { message: "expected each variant once" })
+      .optional(),
   })
   .superRefine((p, ctx) => {
     const seen = (items: { name: string }[], key: string) => {

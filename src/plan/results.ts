@@ -4,6 +4,7 @@
  * °C, kPa gauge (`…KPaGauge`), L, kg, J; percentages 0–100; `null` where a month has no preflights.
  * No wall-clock time is stored, so two runs on the same inputs give byte-identical files.
  */
+import type { DesignTemperatures } from "../climate/designTemps.js";
 import type { QuantityData, Units } from "../units/index.js";
 
 export type { Units };
@@ -123,6 +124,10 @@ export interface ProfileResult {
   atmosphereKPaAbsolute: number;
   prechargeLine: PrechargeRow[];
   band: BandRow[];
+  /** Temperature range the break-even temperatures are sought in, °C. */
+  energyRangeC: { fromC: number; toC: number };
+  /** Break-even temperatures at equilibrium: units × precharge line × system pressure. */
+  breakEven: BreakEvenRow[];
 }
 
 /** The atmospheric pressure used at a base (docs/methods.md §1): gauge = absolute − this pressure. */
@@ -457,6 +462,133 @@ export interface ColdestReturnLevels {
   coldest1in30CHi90: number | null;
 }
 
+/**
+ * Start energy against the morning's temperature for one profile at a base (docs/methods.md,
+ * "Break-even temperatures"), J: one unit and the option's count at the low, nominal and high
+ * precharge lines at equilibrium, and the nominal line after the base's typical and P90 overnight
+ * drops (null without drops), all charged to the nominal system pressure; and the requirement.
+ */
+export interface EnergyCurveRow {
+  tempC: number;
+  requiredJ: number;
+  oneLowJ: number;
+  oneNominalJ: number;
+  oneHighJ: number;
+  twoLowJ: number;
+  twoNominalJ: number;
+  twoHighJ: number;
+  oneTypicalDropJ: number | null;
+  oneP90DropJ: number | null;
+  twoTypicalDropJ: number | null;
+  twoP90DropJ: number | null;
+}
+
+/** The start-energy margin at the cold design point, low-side precharge, nominal system pressure. */
+export interface DesignMargin {
+  units: 1 | 2;
+  count: number;
+  /** At equilibrium ("none") or after the base's typical or P90 overnight drop. */
+  drop: "none" | "typical" | "p90";
+  energyJ: number;
+  /** (delivered − required)/required, %. */
+  marginPct: number;
+}
+
+/** The pump's recharge after one start from the nominal charge at the cold design point. */
+export interface DesignRecharge {
+  units: 1 | 2;
+  count: number;
+  timeS: number;
+  timerS: number;
+  /** The system pressure is reached within the timer. */
+  reachedSystem: boolean;
+}
+
+/**
+ * The design point of one profile at a base (docs/methods.md, "Design point"): the cold design point
+ * is the base's 1-in-10-year coldest morning; the worksheet's figures are null without one. Gauge
+ * pressures relative to the base's atmosphere; volumes per unit.
+ */
+export interface DesignWorksheet {
+  profile: string;
+  designTempC: number | null;
+  /** The base's typical (median) and P90 overnight drop of the accumulator temperature, °C; null without drops. */
+  dropTypicalC: number | null;
+  dropP90C: number | null;
+  /** The precharge lines at the design temperature (gas at V0). */
+  prechargeKPaGauge: number | null;
+  prechargeLowKPaGauge: number | null;
+  prechargeHighKPaGauge: number | null;
+  /** Nominal precharge over nominal system pressure, both absolute, at the design temperature. */
+  prechargeRatio: number | null;
+  gasVolumeEmptyL: number;
+  gasVolumeFullL: number;
+  /** Gas volume charged to nominal system pressure at the design temperature (nominal amount). */
+  gasVolumeChargedL: number | null;
+  /** Gas volume at the end of a start from that charge. */
+  gasVolumeEndL: number | null;
+  /** The fill reading of that charge, %. */
+  readingPct: number | null;
+  requiredJ: number | null;
+  margins: DesignMargin[];
+  /** Highest trapped pressure at the base over the months, against the system's high limit and the relief pressure. */
+  peakTrappedKPaGauge: number | null;
+  systemHighKPaGauge: number;
+  reliefKPaGauge: number | null;
+  recharge: DesignRecharge[];
+  curve: EnergyCurveRow[];
+}
+
+/** The coldest hour of each year of a base's series, its mean, and its 1-in-10 and 1-in-30-year values. */
+export interface ColdestHourResult {
+  meanC: number | null;
+  oneIn10C: number | null;
+  oneIn10CLo90: number | null;
+  oneIn10CHi90: number | null;
+  oneIn30C: number | null;
+  oneIn30CLo90: number | null;
+  oneIn30CHi90: number | null;
+  byYear: { year: number; tempC: number }[];
+}
+
+/**
+ * Climate design temperatures of a base (docs/methods.md, "Climate design temperatures"), from its
+ * hourly series over `climate.years`: the climate module's figures, the coldest hour's return levels with
+ * their bootstrap intervals, and the mean of the coldest mornings (`coldestMorningByYear`).
+ */
+export interface DesignTemperaturesResult extends Omit<DesignTemperatures, "coldestHour"> {
+  coldestHour: ColdestHourResult;
+  coldestMorningMeanC: number | null;
+}
+
+/** Shares of a base's worst month in one what-if run. */
+export interface WhatIfShares {
+  shortPctOne: number | null;
+  shortPctTwo: number | null;
+  outOfBandPct: number | null;
+}
+
+/** One variant's shares and their change from the baseline, percentage points. */
+export interface WhatIfVariantRow extends WhatIfShares {
+  name: string;
+  label: string;
+  shortPctOneChange: number | null;
+  shortPctTwoChange: number | null;
+  outOfBandPctChange: number | null;
+}
+
+/**
+ * The what-if variants at a base (docs/methods.md, "What-if variants"), for its worst month: the
+ * month with the highest baseline short share with one accumulator (the first on ties); null with the
+ * reason where no month has starts.
+ */
+export interface WhatIfBase {
+  month: number | null;
+  reason: string | null;
+  baseline: WhatIfShares & { starts: number; preflights: number };
+  variants: WhatIfVariantRow[];
+}
+
 export interface BaseResult extends ColdestReturnLevels {
   name: string;
   stations: StationResult[];
@@ -481,6 +613,14 @@ export interface BaseResult extends ColdestReturnLevels {
   atmosphere: AtmosphereResult;
   /** Precharge lines and reading bands of the profiles flown at the base, at the base's atmosphere. */
   profileCurves: ProfileResult[];
+  /** Climate design temperatures of the base's series. */
+  designTemperatures: DesignTemperaturesResult;
+  /** Break-even temperatures after the base's typical and P90 overnight drops, per profile flown. */
+  designPoint: DesignPointRow[];
+  /** The cold design point of each profile flown at the base. */
+  designWorksheets: DesignWorksheet[];
+  /** What-if variants for the base's worst month; null when no variant was run. */
+  whatIf: WhatIfBase | null;
 }
 
 /** One local month of a stay: its own figures, pooled over the stay's usable years, with 90 % intervals. */
@@ -582,6 +722,8 @@ export interface Results {
   methods: MethodNote[];
   randomInputs: { name: string; description: string }[];
   warnings: string[];
+  /** The what-if variants run (README, `--what-if`, plan `whatIf:`); null when none was. */
+  whatIf: { variants: { name: string; label: string; description: string }[] } | null;
   /** Names of the files written beside the report (set by the CLI for the report's links; not in results.json). */
   files?: string[];
 }

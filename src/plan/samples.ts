@@ -354,27 +354,40 @@ export function prepareSamples(
   weekdays: number[],
   warnings: string[],
 ): BaseSamples[] {
-  const flown = new Set(weekdays);
   return plan.bases.map((base, baseIndex) => {
     const clim = climate.get(base.name);
     if (clim === undefined) throw new Error(`no climate for base ${base.name}`);
-    const here = stays.filter((s) => s.base === base.name);
-    const refYear = Math.min(...here.map((s) => Number(s.arrive.slice(0, 4))));
-    const { groups, groupOfStay } = groupStays(plan, here, refYear, weekdays.length === 7);
-    const dayOptions: DayOptions = {
-      timeZone: clim.timeZone,
-      startMinutes: plan.operations.startTimes,
-      flownWeekdays: flown,
-      hangar: base.hangar
-        ? {
-            inMin: base.hangar.in,
-            outMin: base.hangar.out,
-            months: base.hangar.months === null ? null : new Set(base.hangar.months),
-          }
-        : null,
-    };
-    const years = usableYears(plan, clim, groups, refYear, dayOptions);
-    warnings.push(...yearWarnings(plan, base.name, here, groups, years));
-    return { baseIndex, climate: clim, refYear, stays: here, groups, groupOfStay, ...years };
+    return prepareBase(plan, stays, clim, baseIndex, weekdays, warnings);
   });
+}
+
+/** The samples of the plan's base `baseIndex` on its climate (the schedule's stays there). */
+export function prepareBase(
+  plan: Plan,
+  stays: Stay[],
+  clim: BaseClimate,
+  baseIndex: number,
+  weekdays: number[],
+  warnings: string[],
+): BaseSamples {
+  const flown = new Set(weekdays);
+  const base = plan.bases[baseIndex]!;
+  const here = stays.filter((s) => s.base === base.name);
+  const refYear = Math.min(...here.map((s) => Number(s.arrive.slice(0, 4))));
+  const { groups, groupOfStay } = groupStays(plan, here, refYear, weekdays.length === 7);
+  const dayOptions: DayOptions = {
+    timeZone: clim.timeZone,
+    startMinutes: plan.operations.startTimes,
+    flownWeekdays: flown,
+    hangar: base.hangar
+      ? {
+          inMin: base.hangar.in,
+          outMin: base.hangar.out,
+          months: base.hangar.months === null ? null : new Set(base.hangar.months),
+        }
+      : null,
+  };
+  const years = usableYears(plan, clim, groups, refYear, dayOptions);
+  warnings.push(...yearWarnings(plan, base.name, here, groups, years));
+  return { baseIndex, climate: clim, refYear, stays: here, groups, groupOfStay, ...years };
 }

@@ -310,6 +310,74 @@ export async function barChart(o: BarOptions): Promise<Chart> {
   return renderChart(o.id, o.title, barSpec(o), [o.xTitle, o.yTitle]);
 }
 
+export interface TornadoOptions {
+  id: string;
+  title: string;
+  xTitle: string;
+  /** Categories from top to bottom (the variants, largest change first). */
+  categories: string[];
+  /** Title of the category axis. */
+  yTitle: string;
+  /** One bar per category for each series (a change; null: no bar), told apart by colour and outline. */
+  series: { name: string; color: string; dash: number[]; values: (number | null)[] }[];
+  width?: number;
+}
+
+/**
+ * A tornado chart: horizontal bars of a change from a baseline (x, zero at the centre line), one row
+ * per category and one bar per series within a row.
+ */
+export async function tornadoChart(o: TornadoOptions): Promise<Chart> {
+  const values = o.series.flatMap((s) =>
+    s.values.flatMap((v, i) => (finite(v) ? [{ category: o.categories[i], series: s.name, x: v }] : [])),
+  );
+  const names = o.series.map((s) => s.name);
+  const spec: Spec = {
+    $schema: "https://vega.github.io/schema/vega-lite/v5.json",
+    width: o.width ?? 420,
+    // With an offset channel the step is that of one bar within a row (vega-lite 5: step "for" offset).
+    height: { step: 11 },
+    config: { ...BASE_CONFIG, legend: { ...BASE_CONFIG.legend, columns: 3 } },
+    layer: [
+      {
+        data: { values },
+        mark: { type: "bar", strokeWidth: 1, stroke: "#222", height: { band: 0.9 } },
+        encoding: {
+          y: {
+            field: "category",
+            type: "nominal",
+            title: o.yTitle,
+            sort: o.categories,
+            scale: { domain: o.categories },
+            // Headless text measuring estimates widths generously: room for the longest variant label.
+            axis: { labelLimit: 330 },
+          },
+          yOffset: { field: "series", type: "nominal", sort: names, scale: { domain: names } },
+          x: { field: "x", type: "quantitative", title: o.xTitle, axis: { tickCount: 6 } },
+          fill: {
+            field: "series",
+            type: "nominal",
+            scale: { domain: names, range: o.series.map((s) => s.color) },
+            legend: { title: null, symbolType: "square" },
+          },
+          strokeDash: {
+            field: "series",
+            type: "nominal",
+            scale: { domain: names, range: o.series.map((s) => (s.dash.length ? s.dash : [1, 0])) },
+            legend: null,
+          },
+        },
+      },
+      {
+        data: { values: [{ x: 0 }] },
+        mark: { type: "rule", color: "#000", strokeWidth: 1 },
+        encoding: { x: { field: "x", type: "quantitative" } },
+      },
+    ],
+  };
+  return renderChart(o.id, o.title, spec, [o.xTitle, o.yTitle]);
+}
+
 /**
  * Specs of every kind the builders above make (lines with points, bands and a rule; stacked panels;
  * bars by category and by bin), on invented numbers: rendered once by a chart worker while the plan

@@ -12,12 +12,14 @@ import { formatDisplay, pct, shownText, showWithUnit, type UnitSystem, unitSyste
 import { type ActionRowView, actionsSection } from "./sections/actions.js";
 import { climateSection } from "./sections/climate.js";
 import { type CoverageView, coverageSection } from "./sections/coverage.js";
+import { designPointSection } from "./sections/designPoint.js";
 import { type GlanceView, glanceSection } from "./sections/glance.js";
 import { nitrogenSection } from "./sections/nitrogen.js";
 import { type NitrogenFleetView, nitrogenFleetSection } from "./sections/nitrogenFleet.js";
 import { overnightSection } from "./sections/overnight.js";
 import { profileSection } from "./sections/profile.js";
 import { riskSection } from "./sections/risk.js";
+import { whatIfSection } from "./sections/whatIf.js";
 import { type BaseContext, baseAnchor, FigureCounter, yearsSkippedText, yearsText } from "./shared.js";
 
 /**
@@ -27,8 +29,10 @@ import { type BaseContext, baseAnchor, FigureCounter, yearsSkippedText, yearsTex
 const BASE_SECTIONS: { partial: string; build: (ctx: BaseContext) => Promise<object> }[] = [
   { partial: "climate", build: climateSection },
   { partial: "profile", build: profileSection },
+  { partial: "designPoint", build: designPointSection },
   { partial: "overnight", build: overnightSection },
   { partial: "risk", build: riskSection },
+  { partial: "whatIf", build: whatIfSection },
   { partial: "nitrogen", build: nitrogenSection },
 ];
 

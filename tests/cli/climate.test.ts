@@ -51,6 +51,29 @@ describe.skipIf(!HAVE_SAMPLES)("coldsoak climate on a real sample", () => {
     expect(s.completeness).toBeLessThanOrEqual(1);
   });
 
+  it("--json and the table give the design temperatures: no annual values for a partial year", async () => {
+    const r = await run(["climate", sample("725300-94846-2014.gz"), "--json", "--no-cache"]);
+    expect(r.code).toBe(0);
+    const d = JSON.parse(r.out).stations[0].design;
+    // The file covers 1 January to 23 April 2014 (real data file): no year has 80 % of its hours.
+    expect(d).toMatchObject({ annual996C: null, annual99C: null, reason: "no year with enough hours" });
+    expect(d.coldestHour).toMatchObject({ meanC: null, oneIn10C: null, byYear: [] });
+    // January is the coldest month; its 744 local hours' 8th and 9th coldest are −25.0 and −24.4 °C
+    // (from the data), and the type-7 1 % value lies between them (h = 743 × 0.01 + 1 = 8.43).
+    expect(d.coldestMonth.month).toBe(1);
+    expect(d.coldestMonth.p1C).toBeGreaterThanOrEqual(-25);
+    expect(d.coldestMonth.p1C).toBeLessThanOrEqual(-24.4);
+    // The thresholds are −20, −30, −40 °F in the default units (F = C × 1.8 + 32, exact by definition).
+    expect(d.hoursBelow.map((h: { thresholdC: number }) => h.thresholdC)).toEqual([
+      expect.closeTo(-28.889, 3),
+      expect.closeTo(-34.444, 3),
+      -40,
+    ]);
+    const table = await run(["climate", sample("725300-94846-2014.gz"), "--no-cache", "--units", "si"]);
+    expect(table.out).toContain("annual 99.6 % – (no year with enough hours)");
+    expect(table.out).toContain("coldest month's 1 % Jan \u221224.7 °C");
+  });
+
   it("prints a table in °F by default and writes the CSV", async () => {
     const csv = join(dir, "climate.csv");
     const r = await run(["climate", sample("725300-94846-2014.gz"), "--no-cache", "--csv", csv]);
@@ -90,6 +113,7 @@ describe("coldsoak climate usage and input errors", () => {
     const r = await run(["climate", dir, "--gap-hours", "two"]);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--gap-hours: "two" is not a whole number/);
+    expect((await run(["climate", dir, "--min-year-share", "80"])).err).toMatch(/--min-year-share: "80"/);
     expect((await run(["climate"])).code).toBe(2);
   });
 });

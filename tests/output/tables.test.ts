@@ -83,6 +83,22 @@ describe("result tables", () => {
     expect(rows("stay_months")).toBe(results.stays.reduce((n, s) => n + s.months.length, 0));
     expect(rows("advice")).toBe(perBase((b) => b.advice));
     expect(rows("assumptions")).toBe(results.assumptions.length);
+    const breakEven =
+      results.profiles.reduce((n, p) => n + p.breakEven.length, 0) +
+      perBase((b) => [...b.profileCurves.flatMap((p) => p.breakEven), ...b.designPoint]);
+    expect(rows("break_even")).toBe(breakEven);
+    expect(rows("design_point")).toBe(perBase((b) => b.designWorksheets));
+    expect(rows("energy_curve")).toBe(perBase((b) => b.designWorksheets.flatMap((w) => w.curve)));
+    expect(rows("design_temperatures")).toBe(results.bases.length);
+    expect(rows("design_months")).toBe(perBase((b) => b.designTemperatures.months));
+    expect(rows("hours_below")).toBe(perBase((b) => b.designTemperatures.hoursBelow));
+    // One row per variant and base, and the baseline ("as planned") of each base.
+    expect(rows("what_if")).toBe(perBase((b) => [null, ...(b.whatIf?.variants ?? [])]));
+  });
+
+  it("writes what_if.csv only when variants were run", () => {
+    const plain = { ...results, whatIf: null, bases: results.bases.map((b) => ({ ...b, whatIf: null })) };
+    expect(resultTables(plain).some((t) => t.name === "what_if")).toBe(false);
   });
 
   it("names the nitrogen flows in one vocabulary: drawn = added + hose vented + other uses, released apart", () => {

@@ -86,7 +86,7 @@ describe.skipIf(SKIP)("report in a real browser", () => {
     const sizes = (await v.page.evaluate(
       `[...document.querySelectorAll("figure.chart svg")].map((e) => { const r = e.getBoundingClientRect(); return [r.width, r.height]; })`,
     )) as [number, number][];
-    expect(sizes.length).toBe(18); // 9 charts per base in the fixture (see structure test)
+    expect(sizes.length).toBe(22); // 11 charts per base in the fixture (see structure test)
     for (const [w, h] of sizes) {
       expect(w).toBeGreaterThan(100);
       expect(h).toBeGreaterThan(50);

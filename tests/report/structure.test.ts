@@ -7,7 +7,17 @@ import { type Element, elements, inner, nestingProblem, type Token, textOf, toke
 
 // Structure only: the fixture's numbers are made up, so nothing here asserts a physics value.
 
-const SECTIONS = ["climate", "precharge", "overnight", "risk", "hours", "advice", "nitrogen"];
+const SECTIONS = [
+  "climate",
+  "precharge",
+  "design-point",
+  "overnight",
+  "risk",
+  "hours",
+  "advice",
+  "what-if",
+  "nitrogen",
+];
 
 let results: Results;
 let html: string;
@@ -251,9 +261,9 @@ describe("report structure", () => {
 
   it("renders every chart as a well-formed SVG with a <title> repeated in its caption and titled axes", () => {
     const figures = els.filter((e) => e.name === "figure");
-    // Per base: climate 2, per profile 2 (base 1 flies "main"; base 2 flies "spare"), traces 2, risk 1, hours 1,
-    // nitrogen timeline 1.
-    expect(figures).toHaveLength(results.bases.length * 9);
+    // Per base: climate 2, per profile 2 (base 1 flies "main"; base 2 flies "spare"), design point 1, traces 2,
+    // risk 1, hours 1, what-if 1, nitrogen timeline 1.
+    expect(figures).toHaveLength(results.bases.length * 11);
     for (const fig of figures) {
       const content = inner(tokens, fig);
       const svgs = elements(content).filter((e) => e.name === "svg");
@@ -339,6 +349,33 @@ describe("report structure", () => {
       .filter((e) => e.name === "a" && !e.attrs["href"]!.startsWith("#"))
       .map((a) => a.attrs["href"]);
     expect(hrefs).toEqual(["results.json", "months.csv"]);
+  });
+
+  it("shows the design point worksheet and break-even table, the design temperatures and the what-if table", () => {
+    // Structure of the engineer's parts (README, report): the fixture's numbers are made up.
+    const sec = els.find((e) => e.name === "section" && e.attrs["id"] === "base-2")!;
+    const part = (name: string) =>
+      elements(inner(tokens, sec)).find((e) => e.attrs["data-section"] === name)!;
+    const design = text(part("design-point"));
+    expect(design).toContain("Cold design point (1-in-10-year coldest morning)");
+    expect(design).toContain("none: never short");
+    expect(design).toContain("Model estimate — not servicing data.");
+    const rows = elements(inner(tokens, part("design-point"))).filter((e) => e.name === "tr");
+    // Worksheet lines, then the header and the twelve cases of the break-even table.
+    expect(rows.length).toBeGreaterThan(13);
+    const climate = text(part("climate"));
+    expect(climate).toContain("Annual 99.6 % cold dry-bulb");
+    expect(climate).toContain("Coldest morning: 1-in-10-year");
+    const whatIf = text(part("what-if"));
+    expect(whatIf).toContain("What if: Jan");
+    expect(whatIf).toContain("As planned");
+  });
+
+  it("leaves the what-if section out when no variant was run", async () => {
+    const plain = { ...results, whatIf: null, bases: results.bases.map((b) => ({ ...b, whatIf: null })) };
+    const t = await renderReport(plain);
+    expect(t).not.toContain('data-section="what-if"');
+    expect(t).toContain('data-section="design-point"');
   });
 
   it("never places data with triple braces in the templates", () => {

@@ -1,18 +1,67 @@
 /**
  * Report section "Climate summary" of a base (partial `climate`): monthly air temperature chart and
  * table, the daily-swing histogram, and the coldest mornings with the 1-in-10 and 1-in-30-year values
- * and their 90 % intervals. Reads `BaseResult.climateMonths`, `dailyRangeHistogram`,
- * `coldestMorningC`, `coldest1in10C`, `coldest1in30C` (with `…Lo90`, `…Hi90`) and `coldestMorningByYear`.
+ * and their 90 % intervals; the climate design temperatures (annual 99.6 % and 99 %, the coldest
+ * month's 1 % value, the coldest hour and the coldest morning with their 1-in-10 and 1-in-30-year
+ * values, hours below the plan's cold thresholds with the longest spell). Reads
+ * `BaseResult.climateMonths`, `dailyRangeHistogram`, `coldestMorningC`, `coldest1in10C`,
+ * `coldest1in30C` (with `…Lo90`, `…Hi90`), `coldestMorningByYear` and `designTemperatures`.
  */
-import type { ClimateMonthRow } from "../../plan/results.js";
-import { show } from "../../units/index.js";
+import type { BaseResult, ClimateMonthRow } from "../../plan/results.js";
+import { formatDisplay, show, type UnitSystem } from "../../units/index.js";
 import { barChart, PALETTE, xyChart } from "../charts.js";
-import { type BaseContext, type Figure, monthName, nullable, type TableRow } from "../shared.js";
+import { type BaseContext, type Figure, monthName, nullable, type TableRow, yearsText } from "../shared.js";
 
 export interface ClimateView {
   figures: Figure[];
   table: TableRow[];
   coldest: { morning: string; oneIn10: string; oneIn30: string; byYear: string };
+  design: TableRow[];
+}
+
+/** The climate design temperatures of a base, one line each; a missing value says why. */
+function designRows(base: BaseResult, u: UnitSystem): TableRow[] {
+  const d = base.designTemperatures;
+  const T = u.temp.unit;
+  const degrees = (c: number | null, why: string | null = null) =>
+    c === null ? `–${why ? ` (${why})` : ""}` : `${show(u.temp, c)} ${T}`;
+  const interval = (v: number | null, lo: number | null, hi: number | null) =>
+    v === null || lo === null || hi === null
+      ? degrees(v)
+      : `${degrees(v)} (90 % interval ${show(u.temp, lo)} to ${show(u.temp, hi)})`;
+  const h = d.coldestHour;
+  const hours = (n: number | null) => (n === null ? "–" : `${formatDisplay(n, 1)} h`);
+  const rows: [string, string][] = [
+    [
+      "Years used (enough of their hours present)",
+      d.years.length > 0 ? yearsText(d.years) : `none (${d.reason})`,
+    ],
+    ["Annual 99.6 % cold dry-bulb", degrees(d.annual996C, d.reason)],
+    ["Annual 99 % cold dry-bulb", degrees(d.annual99C, d.reason)],
+    [
+      "Coldest month (lowest mean) and its 1 % value",
+      d.coldestMonth === null
+        ? `– (${d.coldestMonthReason})`
+        : `${monthName(d.coldestMonth.month)}: ${degrees(d.coldestMonth.p1C)}`,
+    ],
+    ["Coldest hour of the year: mean of the years", degrees(h.meanC, d.reason)],
+    ["Coldest hour: 1-in-10-year (Gumbel fit)", interval(h.oneIn10C, h.oneIn10CLo90, h.oneIn10CHi90)],
+    ["Coldest hour: 1-in-30-year (same fit)", interval(h.oneIn30C, h.oneIn30CLo90, h.oneIn30CHi90)],
+    ["Coldest morning (first start): mean of the years", degrees(d.coldestMorningMeanC)],
+    [
+      "Coldest morning: 1-in-10-year (Gumbel fit)",
+      interval(base.coldest1in10C, base.coldest1in10CLo90, base.coldest1in10CHi90),
+    ],
+    [
+      "Coldest morning: 1-in-30-year (same fit)",
+      interval(base.coldest1in30C, base.coldest1in30CLo90, base.coldest1in30CHi90),
+    ],
+    ...d.hoursBelow.map((b): [string, string] => [
+      `Hours a year below ${degrees(b.thresholdC)} (longest spell)`,
+      b.hoursPerYear === null ? `– (${d.reason})` : `${hours(b.hoursPerYear)} (${hours(b.longestSpellH)})`,
+    ]),
+  ];
+  return rows.map(([label, value]) => ({ cells: [label, value] }));
 }
 
 export async function climateSection({ base, anchor, u, figs }: BaseContext): Promise<ClimateView> {
@@ -93,5 +142,6 @@ export async function climateSection({ base, anchor, u, figs }: BaseContext): Pr
       oneIn30: `${withInterval(base.coldest1in30C, base.coldest1in30CLo90, base.coldest1in30CHi90)}${base.coldest1in30C !== null && n < 30 ? `, from ${n} year${n === 1 ? "" : "s"} of minima` : ""}`,
       byYear: base.coldestMorningByYear.map((y) => `${y.year}: ${degrees(y.tempC)}`).join(", ") || "none",
     },
+    design: designRows(base, u),
   };
 }
