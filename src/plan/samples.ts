@@ -363,7 +363,7 @@ export function prepareSamples(
 
 /** The samples of the plan's base `baseIndex` on its climate (the schedule's stays there). */
 export function prepareBase(
-  plan: Plan,
+  plan: PlanCore,
   stays: Stay[],
   clim: BaseClimate,
   baseIndex: number,

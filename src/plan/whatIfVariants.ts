@@ -4,7 +4,7 @@
  * gas amount the technician services to, or of the energy a start needs; its name is what the plan's
  * `whatIf:` list and the results use.
  */
-import type { HangarInput, PlanInput } from "./planFile.js";
+import type { HangarInput, Plan } from "./planFile.js";
 import type { Stay } from "./schedule.js";
 
 /** The names of the variants, in the order they are run and reported. */
@@ -44,7 +44,7 @@ export const DEFAULT_HANGAR = {
 /** What a variant changes, applied by the what-if runner. */
 export interface VariantEdit {
   /** The plan's settings (a copy; the original is never changed). */
-  plan: PlanInput;
+  plan: Plan;
   stays: Stay[];
   /** The gas amount on arrival and after every servicing: the reference (nominal) or a tolerance line. */
   servicedTo: "nominal" | "low" | "high";
@@ -135,7 +135,7 @@ function laterFirstStart(startTimes: number[]): number[] {
  */
 export function variantEdit(
   name: WhatIfName | null,
-  plan: PlanInput,
+  plan: Plan,
   stays: Stay[],
   baseIndex: number,
 ): VariantEdit {
