@@ -38,8 +38,14 @@ export const OFFSET_PROBE_HOURS = 96;
  */
 export function hourlyOffsetsMin(series: HourlySeries, timeZone: string): Int16Array {
   const clock = zoneClockFor(timeZone);
-  const out = new Int16Array(series.tempC.length);
-  for (let i = 0; i < out.length; i++) out[i] = clock.offsetMinAt(series.startUtcMs + i * HOUR_MS);
+  const n = series.tempC.length;
+  const out = new Int16Array(n);
+  for (let i = 0; i < n; ) {
+    const { offsetMin, untilUtcMs } = clock.segmentAt(series.startUtcMs + i * HOUR_MS);
+    const end = Math.min(n, Math.ceil((untilUtcMs - series.startUtcMs) / HOUR_MS));
+    out.fill(offsetMin, i, end);
+    i = end;
+  }
   return out;
 }
 
@@ -48,6 +54,8 @@ export interface ZoneClock {
   readonly timeZone: string;
   /** UTC offset in minutes (local − UTC) at a UTC instant, ms. */
   offsetMinAt(utcMs: number): number;
+  /** The offset at a UTC instant and the instant up to which it holds at least (exclusive), ms. */
+  segmentAt(utcMs: number): { offsetMin: number; untilUtcMs: number };
   /**
    * The UTC instant (ms) of local clock time `minutes` after midnight of a local calendar date. A
    * clock time that occurs twice (a change back) is its earlier occurrence; one that does not occur
@@ -113,6 +121,14 @@ function makeZoneClock(timeZone: string): ZoneClock {
     const b = block(Math.floor(utcMs / PROBE_MS));
     return utcMs < b.changeMs ? b.from : b.to;
   };
+  const segmentAt = (utcMs: number) => {
+    const k = Math.floor(utcMs / PROBE_MS);
+    const b = block(k);
+    const blockEnd = (k + 1) * PROBE_MS;
+    return utcMs < b.changeMs
+      ? { offsetMin: b.from, untilUtcMs: Math.min(b.changeMs, blockEnd) }
+      : { offsetMin: b.to, untilUtcMs: blockEnd };
+  };
   const utcMsOfLocal = (year: number, month: number, day: number, minutes: number): number => {
     const localAsUtc = Date.UTC(year, month - 1, day, 0, minutes);
     // The offsets a day either side: the time zone database has no two changes of a zone less than
@@ -128,7 +144,7 @@ function makeZoneClock(timeZone: string): ZoneClock {
     if (afterHolds) return withAfter;
     return localAsUtc - Math.min(before, after) * 60_000;
   };
-  return { timeZone, offsetMinAt, utcMsOfLocal };
+  return { timeZone, offsetMinAt, segmentAt, utcMsOfLocal };
 }
 
 /** Local calendar day (days since 1970-01-01 in local time) and month (1–12) of every grid hour. */
