@@ -11,7 +11,7 @@ import { join, resolve } from "node:path";
 import { inputError } from "../errors.js";
 import { writeFileAtomic } from "../fsutil.js";
 import { screenJson, screenTable } from "../output/screenTables.js";
-import { toCsv } from "../output/tables.js";
+import { toCsv } from "../output/csv.js";
 import { SCREEN_SUFFIX } from "../plan/planFile.js";
 import { partialName } from "../plan/screenMerge.js";
 import type { ScreenResults } from "../plan/screenResults.js";
