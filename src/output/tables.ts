@@ -22,8 +22,8 @@ import type {
   StayResult,
 } from "../plan/results.js";
 import { formatMachine, shownText, unitSystem } from "../units/index.js";
-import { designTables } from "./designTables.js";
 import type { Cell, Table } from "./csv.js";
+import { designTables } from "./designTables.js";
 
 export { type Cell, type Table, toCsv } from "./csv.js";
 

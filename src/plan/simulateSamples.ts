@@ -3,6 +3,7 @@
  * by hour (`simulate.ts`), with one gas table and one set of profile contexts for the whole run, and
  * the run's counters for the benchmark and the progress bar.
  */
+import { InputError, inputError } from "../errors.js";
 import { tabulatedGas } from "../physics/gasTable.js";
 import type { GasModel } from "../physics/nitrogen.js";
 import { realGas } from "../physics/nitrogen.js";
@@ -83,6 +84,29 @@ export function sampleInputs(sim: Simulator<PlanCore>, base: BaseSamples, gi: nu
 }
 
 /**
+ * A refusal of the physics during the simulation (a state the plan's own checks did not foresee, at the
+ * base's atmosphere or weather), located at the profile it came from, with the stay and climate year.
+ */
+function locatedPhysicsError(
+  sim: Simulator<PlanCore>,
+  base: BaseSamples,
+  gi: number,
+  yi: number,
+  err: unknown,
+): unknown {
+  const { plan } = sim;
+  if (!(err instanceof InputError) || err.message.startsWith(`${plan.file}:`)) return err;
+  const g = base.groups[gi]!;
+  const stay = base.stays[g.stays[0]!]!;
+  return inputError(
+    plan.file,
+    plan.lineOf(["profiles", g.profileIndex]),
+    `profiles[${g.profileIndex}]`,
+    `${err.message} (profile "${stay.profile}" for aircraft ${stay.aircraft} at base "${stay.base}" on climate year ${base.years[yi]}); expected a profile the accumulator physics can follow there`,
+  );
+}
+
+/**
  * Simulates every group of a base on every year usable for its window, group by group; a window not
  * usable on a year gets an empty outcome (no records).
  */
@@ -94,9 +118,13 @@ export function simulateBase(sim: Simulator<PlanCore>, base: BaseSamples): BaseO
         outcomes[yi]![gi] = emptyOutcome();
         continue;
       }
-      const inputs = sampleInputs(sim, base, gi, yi);
       const t0 = performance.now();
-      const o = simulateStayYear(inputs);
+      let o: SimOutcome;
+      try {
+        o = simulateStayYear(sampleInputs(sim, base, gi, yi));
+      } catch (err) {
+        throw locatedPhysicsError(sim, base, gi, yi, err);
+      }
       sim.stats.simulationS += (performance.now() - t0) / 1000;
       outcomes[yi]![gi] = o;
       sim.stats.accumulatorHours += o.accumulatorHours;
