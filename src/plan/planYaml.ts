@@ -6,6 +6,7 @@
 import { type Document, isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, visit } from "yaml";
 import type { z } from "zod";
 import { type InputError, inputError } from "../errors.js";
+import { foundText, QUANTITY_TYPE_MESSAGE } from "./planQuantity.js";
 
 /** "profiles[0].precharge.reference" */
 export function yamlPathText(path: readonly PropertyKey[]): string {
@@ -45,8 +46,10 @@ export function describeIssue(issue: z.core.$ZodIssue): string {
       if (issue.input === undefined) {
         return `missing; expected ${expected === "nonoptional" ? "a value" : article(expected)}`;
       }
-      if (typeof issue.input === "number") return `expected a finite ${expected}`; // .inf, .nan
-      return `expected ${article(expected)}, found ${issue.input === null ? "nothing" : Array.isArray(issue.input) ? "a list" : typeof issue.input === "object" ? "a mapping" : `a ${typeof issue.input}`}`;
+      if (typeof issue.input === "number" && (expected === "number" || expected === "whole number"))
+        return `expected a finite ${expected}`; // .inf, .nan
+      if (issue.message.startsWith(QUANTITY_TYPE_MESSAGE)) return issue.message;
+      return `expected ${article(expected)}, found ${foundText(issue.input)}`;
     }
     case "unrecognized_keys":
       return `unknown key${issue.keys.length > 1 ? "s" : ""} ${issue.keys.map((k) => `"${k}"`).join(", ")}`;
