@@ -2,18 +2,10 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { parsePlanFileText, parsePlanText } from "../../src/plan/planFile.js";
 import { M3_PER_IN3, PA_PER_PSI } from "../../src/units/index.js";
+import { errorOf } from "./helpers.js";
 
 const FIXTURE = new URL("../fixtures/plan/minimal-plan.yaml", import.meta.url);
 const text = readFileSync(FIXTURE, "utf8");
-
-function errorOf(src: string): string {
-  try {
-    parsePlanText(src, "plan.yaml");
-  } catch (err) {
-    return (err as Error).message;
-  }
-  return "no error";
-}
 
 describe("plan file", () => {
   it("reads the complete example", () => {

@@ -7,16 +7,7 @@ import { describe, expect, it } from "vitest";
 import { MAX_PLAN_NAME_LENGTH, parsePlanText } from "../../src/plan/planFile.js";
 import { MAX_ALIAS_COUNT } from "../../src/plan/planYaml.js";
 import { stream } from "../../src/plan/random.js";
-import { FIXTURE_TEXT } from "./helpers.js";
-
-function errorOf(src: string): string {
-  try {
-    parsePlanText(src, "plan.yaml");
-  } catch (err) {
-    return (err as Error).message;
-  }
-  return "no error";
-}
+import { errorOf, FIXTURE_TEXT } from "./helpers.js";
 
 /** The fixture with one exact piece of text replaced (it must occur once). */
 function edited(from: string, to: string): string {

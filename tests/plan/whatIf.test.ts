@@ -139,7 +139,9 @@ describe("what-if variants", () => {
     expect(whatIfNames(listed, false)).toEqual(["option-all", "tau-half"]);
     expect(whatIfNames(fixturePlan(), true)).toEqual([...WHAT_IF_NAMES]);
     expect(whatIfNames(fixturePlan(), false)).toEqual([]);
-    expect(() => fixturePlan((t) => (t.whatIf = ["colder"]))).toThrow(/whatIf\[0\]: expected one of/);
+    expect(() => fixturePlan((t) => (t.whatIf = ["colder"]))).toThrow(
+      /whatIf\[0\]: "colder": expected one of/,
+    );
   });
 });
 
