@@ -9,8 +9,9 @@ import type { GasModel } from "../physics/nitrogen.js";
 import { realGas } from "../physics/nitrogen.js";
 import type { HangarAir } from "./air.js";
 import { ProfileContexts } from "./context.js";
+import { type KeptOutcome, keptOutcome } from "./keptOutcome.js";
 import type { HangarInput, Plan, PlanCore } from "./planFile.js";
-import type { BaseSamples } from "./samples.js";
+import type { BaseSamples, PreparedBase } from "./samples.js";
 import { type SimInputs, type SimOutcome, simulateStayYear } from "./simulate.js";
 import { emptyOutcome } from "./stayRun.js";
 
@@ -39,12 +40,12 @@ export interface Simulator<P extends PlanCore = Plan> {
   onProgress: RunOptions["onProgress"];
 }
 
-/** The outcome of each group on each usable year of a base: `outcomes[yearIndex][groupIndex]`. */
-export type BaseOutcomes = SimOutcome[][];
+/** What is kept of each group on each usable year of a base: `outcomes[yearIndex][groupIndex]`. */
+export type BaseOutcomes = KeptOutcome[][];
 
 export function simulator<P extends PlanCore>(
   plan: P,
-  samples: BaseSamples[],
+  samples: PreparedBase[],
   opts: RunOptions,
 ): Simulator<P> {
   const model = tabulatedGas(realGas);
@@ -74,7 +75,7 @@ export function sampleInputs(sim: Simulator<PlanCore>, base: BaseSamples, gi: nu
     ctx: sim.contexts.get(plan.profiles[g.profileIndex]!, base.climate.atmPa, g.coldStartOption),
     series: base.climate.series,
     timeZone: base.climate.timeZone,
-    days: base.days[yi]![gi]!,
+    days: base.days.get(yi, gi),
     gasLossFactor: g.gasLossFactor,
     hangar: hangar ? hangarAir(hangar) : null,
     prechargeCheckDays: plan.operations.prechargeCheckDays,
@@ -107,15 +108,15 @@ function locatedPhysicsError(
 }
 
 /**
- * Simulates every group of a base on every year usable for its window, group by group; a window not
- * usable on a year gets an empty outcome (no records).
+ * Simulates every group of a base on every year usable for its window, year by year (the days of one
+ * year are held at a time); a window not usable on a year gets an empty outcome (no records).
  */
 export function simulateBase(sim: Simulator<PlanCore>, base: BaseSamples): BaseOutcomes {
   const outcomes: BaseOutcomes = base.years.map(() => []);
-  for (let gi = 0; gi < base.groups.length; gi++) {
-    for (let yi = 0; yi < base.years.length; yi++) {
+  for (let yi = 0; yi < base.years.length; yi++) {
+    for (let gi = 0; gi < base.groups.length; gi++) {
       if (!base.usable[yi]![gi]) {
-        outcomes[yi]![gi] = emptyOutcome();
+        outcomes[yi]![gi] = keptOutcome(emptyOutcome());
         continue;
       }
       const t0 = performance.now();
@@ -126,7 +127,7 @@ export function simulateBase(sim: Simulator<PlanCore>, base: BaseSamples): BaseO
         throw locatedPhysicsError(sim, base, gi, yi, err);
       }
       sim.stats.simulationS += (performance.now() - t0) / 1000;
-      outcomes[yi]![gi] = o;
+      outcomes[yi]![gi] = keptOutcome(o);
       sim.stats.accumulatorHours += o.accumulatorHours;
       sim.stats.stayYearsSimulated++;
       sim.onProgress?.(sim.stats.stayYearsSimulated, sim.total);
