@@ -19,7 +19,14 @@ import {
   runOnce,
   showFigure,
 } from "./harness.js";
-import { COPIED_BASE, climateInputs, copiedBasePlan, DEMO_PLAN, plainDemoPlanFile } from "./inputs.js";
+import {
+  COPIED_BASE,
+  climateInputs,
+  copiedBasePlan,
+  DEMO_PLAN,
+  generatedSchedulePlan,
+  plainDemoPlanFile,
+} from "./inputs.js";
 
 const CLI = fileURLToPath(new URL("../cli/main.js", import.meta.url));
 const NODE = process.execPath;
@@ -119,6 +126,7 @@ export async function benchCommands(): Promise<Record<string, Figure>> {
       ["demo plan", () => benchDemoPlan(dir, stats)],
       ["demo plan with what-if variants", () => benchWhatIf(dir, stats)],
       ["copies of a demo base", () => benchBaseCopies(dir, stats)],
+      ["a large generated schedule", () => benchLargeSchedule(dir, stats)],
     ] as const) {
       try {
         Object.assign(figures, await step());
@@ -233,5 +241,35 @@ async function benchBaseCopies(dir: string, stats: string): Promise<Record<strin
     `  plan of 8 copies, empty cache: peak RSS    ${showFigure(figures["plan8BasesColdPeakRssMiB"]!, 0)} MiB`,
   );
   line(`  growth per base: 1→4 ${perBase(1, 4).toFixed(1)} MiB, 4→8 ${perBase(4, 8).toFixed(1)} MiB`);
+  return figures;
+}
+
+/** Rows of the generated schedule of the large-schedule case (COLDSOAK_BENCH_SCHEDULE_ROWS overrides it). */
+export const LARGE_SCHEDULE_ROWS = 10_000;
+
+/**
+ * A plan of a generated schedule of LARGE_SCHEDULE_ROWS stays (invented aircraft, seeded) on the demo's
+ * climate, filled cache: peak memory and wall time per schedule row of one run (a run of this size
+ * takes minutes; its peak memory varies little from run to run).
+ */
+async function benchLargeSchedule(dir: string, stats: string): Promise<Record<string, Figure>> {
+  const rows = Number(process.env["COLDSOAK_BENCH_SCHEDULE_ROWS"] ?? LARGE_SCHEDULE_ROWS);
+  const plan = generatedSchedulePlan(join(dir, "schedule-large"), rows);
+  const cache = join(dir, "schedule-large", "cache");
+  const out = join(dir, "schedule-large", "out");
+  // The cache is filled by the demo's climate alone: fill it with a plan of a few rows first.
+  const small = generatedSchedulePlan(join(dir, "schedule-small"), 20);
+  await runOnce(cli("plan, 20 rows", ["plan", small, "--out", out, "--cache-dir", cache]));
+  const run = await runOnce(
+    cli(`plan, ${rows} rows`, ["plan", plan, "--out", out, "--cache-dir", cache]),
+    stats,
+  );
+  const figures: Record<string, Figure> = {
+    largeSchedulePeakRssMiB: statFigure([run], mib),
+    largeScheduleMsPerRow: figureOf([(1000 * run.wallS) / rows]),
+  };
+  line(
+    `plan of a ${rows}-row schedule: peak RSS ${showFigure(figures["largeSchedulePeakRssMiB"]!, 0)} MiB, ${showFigure(figures["largeScheduleMsPerRow"]!, 1)} ms per row (wall ${run.wallS.toFixed(0)} s)`,
+  );
   return figures;
 }

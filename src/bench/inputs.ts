@@ -10,6 +10,7 @@ import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { gunzipSync, gzipSync } from "node:zlib";
 import { parseDocument } from "yaml";
+import { fnv1a32, mulberry32 } from "../demo/prng.js";
 
 export const DEMO_PLAN = fileURLToPath(new URL("../../sample-data/demo-plan.yaml", import.meta.url));
 const DEMO_DIR = fileURLToPath(new URL("../../sample-data/", import.meta.url));
@@ -98,8 +99,13 @@ function plainDemoPlan(): DemoPlanData {
  */
 export function plainDemoPlanFile(dir: string): string {
   mkdirSync(dir, { recursive: true });
+  return writePlanData(dir, plainDemoPlan());
+}
+
+/** Writes a plan's data as `plan.yaml` in `dir`; returns its path. */
+function writePlanData(dir: string, plan: unknown): string {
   const file = join(dir, "plan.yaml");
-  writeFileSync(file, JSON.stringify(plainDemoPlan())); // JSON is YAML
+  writeFileSync(file, JSON.stringify(plan)); // JSON is YAML
   return file;
 }
 
@@ -134,14 +140,42 @@ export function copiedBasePlan(dir: string, copies: number): string {
   plan.name = `bench-${copies}`;
   plan.bases = Array.from({ length: copies }, (_, k) => ({ ...base, name: `${COPIED_BASE} ${k + 1}` }));
   copyPerBaseEntries(plan.nitrogen?.stock, copies);
-  plan.schedule = "schedule.csv";
   const [header, ...rows] = readFileSync(join(DEMO_DIR, "demo-schedule.csv"), "utf8").trim().split("\n");
   const stays = rows.map((r) => r.split(",")).filter((c) => c[1] === COPIED_BASE);
   const schedule = [header!];
   for (let k = 1; k <= copies; k++)
     for (const c of stays) schedule.push([`${c[0]}-${k}`, `${COPIED_BASE} ${k}`, ...c.slice(2)].join(","));
   writeFileSync(join(dir, "schedule.csv"), `${schedule.join("\n")}\n`);
-  const file = join(dir, "plan.yaml");
-  writeFileSync(file, JSON.stringify(plan)); // JSON is YAML
-  return file;
+  return writePlanData(dir, plan);
+}
+
+/** Bases of the demo, in the order the generated schedule rotates through them. */
+const DEMO_BASES = ["Veldmoor", "Korrash", "Iskarra", "Sabreth"];
+
+/**
+ * A plan in `dir` on the demo's climate and profile with a generated schedule of `rows` stays: invented
+ * aircraft ids (`G00001` …), each with stays of 20–60 days one after another from 2027-10-01, moving
+ * between the demo's four bases; lengths and bases drawn from a fixed seed (the same file each time).
+ * Returns the plan.
+ */
+export function generatedSchedulePlan(dir: string, rows: number, staysPerAircraft = 8): string {
+  mkdirSync(dir, { recursive: true });
+  const plan = plainDemoPlan();
+  plan.name = `bench-schedule-${rows}`;
+  plan.schedule = "schedule.csv";
+  const random = mulberry32(fnv1a32(`bench-schedule:${rows}`));
+  const lines = ["aircraft,base,arrive,depart,cold_start_option,profile"];
+  const day = (d: number) => new Date(Date.UTC(2027, 9, 1 + d)).toISOString().slice(0, 10);
+  for (let a = 0; lines.length <= rows; a++) {
+    const id = `G${String(a + 1).padStart(5, "0")}`;
+    let start = Math.floor(random() * 14);
+    for (let s = 0; s < staysPerAircraft && lines.length <= rows; s++) {
+      const end = start + 20 + Math.floor(random() * 41);
+      const base = DEMO_BASES[Math.floor(random() * DEMO_BASES.length)]!;
+      lines.push(`${id},${base},${day(start)},${day(end)},${random() < 0.3 ? "yes" : "no"},utility`);
+      start = end;
+    }
+  }
+  writeFileSync(join(dir, "schedule.csv"), `${lines.join("\n")}\n`);
+  return writePlanData(dir, plan);
 }

@@ -10,6 +10,7 @@ import { type StationSummary, stationSummary } from "../climate/summary.js";
 import { type ClimateOptions, DROP_REASONS, type StationClimate } from "../climate/types.js";
 import { InputError } from "../errors.js";
 import { writeFileAtomic } from "../fsutil.js";
+import { toCsv } from "../output/csv.js";
 import { formatDisplay, pct, show, type Units, unitSystem } from "../units/index.js";
 import { designLines, parseMinYearShare, type StationDesign, stationDesign } from "./climateDesignText.js";
 
@@ -89,16 +90,10 @@ export function formatStation(s: StationSummary, units: Units, design: StationDe
   return lines.join("\n");
 }
 
-function csvCell(v: string | number | null): string {
-  if (v === null) return "";
-  const s = String(v);
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
 /** One row per station and local month, in the chosen units (unit in the column names). */
 export function climateCsv(stations: StationSummary[], units: Units): string {
   const t = units === "us" ? "degF" : "degC";
-  const header = [
+  const columns = [
     "station",
     "name",
     "month",
@@ -108,25 +103,20 @@ export function climateCsv(stations: StationSummary[], units: Units): string {
     `mean_daily_range_${t}`,
     `p90_daily_range_${t}`,
   ];
-  const rows = [header.join(",")];
   const r2 = (v: number | null) => (v === null ? null : Math.round(v * 100) / 100);
-  for (const s of stations)
-    for (const m of s.months)
-      rows.push(
-        [
-          s.id,
-          s.name,
-          m.month,
-          r2(m.minC === null ? null : temp(m.minC, units)),
-          r2(m.meanC === null ? null : temp(m.meanC, units)),
-          r2(m.maxC === null ? null : temp(m.maxC, units)),
-          r2(m.meanDailyRangeC === null ? null : delta(m.meanDailyRangeC, units)),
-          r2(m.p90DailyRangeC === null ? null : delta(m.p90DailyRangeC, units)),
-        ]
-          .map(csvCell)
-          .join(","),
-      );
-  return `${rows.join("\r\n")}\r\n`;
+  const rows = stations.flatMap((s) =>
+    s.months.map((m) => [
+      s.id,
+      s.name,
+      m.month,
+      r2(m.minC === null ? null : temp(m.minC, units)),
+      r2(m.meanC === null ? null : temp(m.meanC, units)),
+      r2(m.maxC === null ? null : temp(m.maxC, units)),
+      r2(m.meanDailyRangeC === null ? null : delta(m.meanDailyRangeC, units)),
+      r2(m.p90DailyRangeC === null ? null : delta(m.p90DailyRangeC, units)),
+    ]),
+  );
+  return toCsv({ name: "climate", columns, rows });
 }
 
 /**

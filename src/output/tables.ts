@@ -2,7 +2,8 @@
  * The files written beside the report from the results alone: the `results.json` text and the CSV
  * tables, one CSV per table, named after the table. Every column is declared once, with its header and
  * how to read its value. Units are fixed like the JSON: °C, kPa gauge, kg, normal m³, %; column names
- * carry their unit. Empty cells mean "no value" (a month without preflights). Quoting follows RFC 4180.
+ * carry their unit. Empty cells mean "no value" (a month without preflights). The CSV text itself (RFC 4180
+ * quoting, text neutralised for spreadsheets) is `csv.ts`.
  *
  * Like `report/`, this folder reads only the `Results` types of `plan/results.ts`: cli → output →
  * plan/results (types), never the engine, the climate or the physics code.
@@ -21,28 +22,10 @@ import type {
   StayResult,
 } from "../plan/results.js";
 import { formatMachine, shownText, unitSystem } from "../units/index.js";
+import type { Cell, Table } from "./csv.js";
 import { designTables } from "./designTables.js";
 
-export type Cell = string | number | boolean | null;
-export interface Table {
-  name: string;
-  columns: string[];
-  rows: Cell[][];
-}
-
-function cell(c: Cell): string {
-  if (c === null) return "";
-  if (typeof c === "number") return Number.isFinite(c) ? formatMachine(c) : "";
-  if (typeof c === "boolean") return c ? "yes" : "no";
-  // A text that a spreadsheet would read as a formula (= + - @ tab CR first, e.g. a plan's "-40 F")
-  // gets a leading apostrophe (OWASP, "CSV Injection").
-  const text = /^[=+\-@\t\r]/.test(c) ? `'${c}` : c;
-  return /[",\r\n]/.test(text) || text !== text.trim() ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
-export function toCsv(t: Table): string {
-  return `${[t.columns, ...t.rows].map((r) => r.map(cell).join(",")).join("\r\n")}\r\n`;
-}
+export { type Cell, type Table, toCsv } from "./csv.js";
 
 /** A column: its CSV header (unit in the name) and how to read its cell from a row's source. */
 export type Column<T> = [header: string, value: (row: T) => Cell];

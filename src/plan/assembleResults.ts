@@ -16,7 +16,7 @@ import { EVENT_DRAWS } from "./nitrogenDemand.js";
 import { nitrogenFleet } from "./nitrogenFleet.js";
 import type { Plan } from "./planFile.js";
 import type { AircraftAction, BaseResult, Results } from "./results.js";
-import { type BaseSamples, gasLossDraws } from "./samples.js";
+import { gasLossDraws, type PreparedBase } from "./samples.js";
 import type { Stay } from "./schedule.js";
 import { QUANTILE_METHOD } from "./stats.js";
 import { eventDraws } from "./supplyPlan.js";
@@ -74,7 +74,7 @@ function randomInputs(
 }
 
 /** Each stay's own figures and action, found through the base it belongs to. */
-function perStay(stays: Stay[], samples: BaseSamples[], bases: AggregatedBase[]) {
+function perStay(stays: Stay[], samples: PreparedBase[], bases: AggregatedBase[]) {
   const found = new Map<Stay, { figures: StayFigures; action: AircraftAction }>();
   for (const [i, b] of samples.entries()) {
     for (const [si, s] of b.stays.entries()) {
@@ -89,7 +89,7 @@ export function assembleResults(
   plan: Plan,
   stays: Stay[],
   weekdays: number[],
-  samples: BaseSamples[],
+  samples: PreparedBase[],
   aggregated: AggregatedBase[],
   warnings: string[],
 ): Results {

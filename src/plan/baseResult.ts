@@ -21,7 +21,7 @@ import type {
   ColdestReturnLevels,
   StationResult,
 } from "./results.js";
-import type { BaseSamples } from "./samples.js";
+import { type BaseSamples, withDays } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 import { baseNitrogen } from "./supplyPlan.js";
 import { overnightTraces } from "./traces.js";
@@ -48,15 +48,15 @@ function nitrogenSamples(
   const keepYear = base.years.flatMap((_y, yi) =>
     keepStay.every((si) => base.usable[yi]![base.groupOfStay[si]!]) ? [yi] : [],
   );
+  const kept = {
+    ...base,
+    stays: keepStay.map((si) => base.stays[si]!),
+    groupOfStay: keepStay.map((si) => base.groupOfStay[si]!),
+    years: keepYear.map((yi) => base.years[yi]!),
+    usable: keepYear.map((yi) => base.usable[yi]!),
+  };
   return {
-    base: {
-      ...base,
-      stays: keepStay.map((si) => base.stays[si]!),
-      groupOfStay: keepStay.map((si) => base.groupOfStay[si]!),
-      years: keepYear.map((yi) => base.years[yi]!),
-      usable: keepYear.map((yi) => base.usable[yi]!),
-      days: keepYear.map((yi) => base.days[yi]!),
-    },
+    base: withDays(kept),
     outcomes: keepYear.map((yi) => outcomes[yi]!),
   };
 }

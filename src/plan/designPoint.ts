@@ -46,7 +46,7 @@ function dropsByProfile(plan: Plan, base: BaseSamples, outcomes: BaseOutcomes): 
   for (const gi of base.groupOfStay) {
     const list = values[base.groups[gi]!.profileIndex]!;
     for (let yi = 0; yi < base.years.length; yi++)
-      for (const d of outcomes[yi]![gi]!.drops) list.push(d.tempC);
+      for (const t of outcomes[yi]![gi]!.drops.tempC) list.push(t);
   }
   return values.map((v) => ({ typicalK: quantile(v, 0.5), p90K: quantile(v, 0.9) }));
 }

@@ -17,7 +17,7 @@ import { assembleResults } from "./assembleResults.js";
 import { aggregateBase } from "./baseResult.js";
 import type { Plan } from "./planFile.js";
 import type { Results } from "./results.js";
-import { type BaseClimate, flownWeekdays, prepareSamples } from "./samples.js";
+import { type BaseClimate, flownWeekdays, prepareSamples, withDays } from "./samples.js";
 import type { Stay } from "./schedule.js";
 import { type RunOptions, type RunStats, simulateBase, simulator } from "./simulateSamples.js";
 
@@ -35,8 +35,11 @@ export function runPlan(
   const weekdays = flownWeekdays(plan);
   const samples = prepareSamples(plan, stays, climate, weekdays, warnings);
   const sim = simulator(plan, samples, opts);
-  // Base by base, so that only one base's outcomes are held at a time.
-  const bases = samples.map((base) => aggregateBase(sim, base, simulateBase(sim, base), warnings));
+  // Base by base, so that only one base's days and outcomes are held at a time.
+  const bases = samples.map((prepared) => {
+    const base = withDays(prepared);
+    return aggregateBase(sim, base, simulateBase(sim, base), warnings);
+  });
   const results = assembleResults(plan, stays, weekdays, samples, bases, warnings);
   return { results, stats: sim.stats };
 }

@@ -7,6 +7,7 @@
  * 1-in-30-year values (Gumbel, method of moments); the monthly climate of the whole record.
  */
 import { localClimatology } from "../climate/index.js";
+import { ABOVE, BELOW, marginPct, SHORT_ONE, SHORT_TWO } from "./keptOutcome.js";
 import type { PlanCore } from "./planFile.js";
 import type { BaseResult, HourRow, MonthStatistics } from "./results.js";
 import type { BaseSamples } from "./samples.js";
@@ -84,35 +85,41 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
     for (let yi = 0; yi < base.years.length; yi++) {
       const o = outcomes[yi]![gi]!;
       t.startsWithoutAmbient += o.startsWithoutAmbient;
-      for (const r of o.preflights) {
-        const a = t.months[r.month]!;
+      const p = o.preflights;
+      for (let i = 0; i < p.month.length; i++) {
+        const a = t.months[p.month[i]!]!;
         a.preflights++;
-        if (r.below) a.below++;
-        if (r.above) a.above++;
-        a.gasKPaGauge.push(r.gasKPaGauge);
-        a.readingPct.push(r.readingPct);
-        const c = t.coldestC[yi];
-        if (c === undefined || r.ambientC < c) t.coldestC[yi] = r.ambientC;
+        if (p.flags[i]! & BELOW) a.below++;
+        if (p.flags[i]! & ABOVE) a.above++;
+        a.gasKPaGauge.push(p.gasKPaGauge[i]!);
+        a.readingPct.push(p.readingPct[i]!);
       }
-      for (const r of o.starts) {
-        const a = t.months[r.month]!;
+      const c = t.coldestC[yi];
+      if (p.coldestAmbientC !== undefined && (c === undefined || p.coldestAmbientC < c))
+        t.coldestC[yi] = p.coldestAmbientC;
+      const s = o.starts;
+      for (let i = 0; i < s.month.length; i++) {
+        const a = t.months[s.month[i]!]!;
         a.starts++;
-        if (r.energyOneJ < r.requiredJ) a.shortOne++;
-        if (r.energyTwoJ < r.requiredJ) a.shortTwo++;
-        a.marginOnePct.push((100 * (r.energyOneJ - r.requiredJ)) / r.requiredJ);
-        a.marginTwoPct.push((100 * (r.energyTwoJ - r.requiredJ)) / r.requiredJ);
+        if (s.flags[i]! & SHORT_ONE) a.shortOne++;
+        if (s.flags[i]! & SHORT_TWO) a.shortTwo++;
+        a.marginOnePct.push(marginPct(s.energyOneJ[i]!, s.requiredJ[i]!));
+        a.marginTwoPct.push(marginPct(s.energyTwoJ[i]!, s.requiredJ[i]!));
       }
-      for (const d of o.drops) {
-        const a = t.months[d.month]!;
-        a.dropTempC.push(d.tempC);
-        a.dropKPa.push(d.gasKPa);
-        a.dropReadingPct.push(d.readingPct);
+      const d = o.drops;
+      for (let i = 0; i < d.month.length; i++) {
+        const a = t.months[d.month[i]!]!;
+        a.dropTempC.push(d.tempC[i]!);
+        a.dropKPa.push(d.gasKPa[i]!);
+        a.dropReadingPct.push(d.readingPct[i]!);
       }
-      for (let i = 0; i < 12 * 24; i++) {
-        t.hourReadings[i % 24]! += o.hourlyReadings[i]!;
-        t.hourOutOfBand[i % 24]! += o.hourlyOutOfBand[i]!;
-        t.monthHourReadings[i]! += o.hourlyReadings[i]!;
-        t.monthHourOutOfBand[i]! += o.hourlyOutOfBand[i]!;
+      const h = o.hourly;
+      for (let k = 0; k < h.cell.length; k++) {
+        const i = h.cell[k]!;
+        t.hourReadings[i % 24]! += h.readings[k]!;
+        t.hourOutOfBand[i % 24]! += h.outOfBand[k]!;
+        t.monthHourReadings[i]! += h.readings[k]!;
+        t.monthHourOutOfBand[i]! += h.outOfBand[k]!;
       }
     }
   }
@@ -181,8 +188,9 @@ function windowDailyRanges(
   ranges: { localDate: string; month: number; rangeC: number }[],
 ): { byMonth: number[][]; all: number[] } {
   const windowDays = new Set<string>();
-  for (const yearDays of base.days)
-    for (const days of yearDays) for (const d of days) windowDays.add(d.climateIso);
+  for (let yi = 0; yi < base.years.length; yi++)
+    for (let gi = 0; gi < base.groups.length; gi++)
+      for (const d of base.days.get(yi, gi)) windowDays.add(d.climateIso);
   const byMonth = Array.from({ length: 13 }, () => [] as number[]);
   const all: number[] = [];
   for (const r of ranges) {
@@ -274,7 +282,8 @@ export function monthlyColdestMornings(base: BaseSamples, outcomes: BaseOutcomes
   for (let yi = 0; yi < base.years.length; yi++) {
     const coldest = new Array<number>(13).fill(Number.POSITIVE_INFINITY);
     for (const o of outcomes[yi]!)
-      for (const r of o.preflights) coldest[r.month] = Math.min(coldest[r.month]!, r.ambientC);
+      for (let m = 1; m <= 12; m++)
+        coldest[m] = Math.min(coldest[m]!, o.preflights.coldestAmbientByMonthC[m]!);
     for (let m = 1; m <= 12; m++) if (Number.isFinite(coldest[m]!)) byMonth[m]!.push(coldest[m]!);
   }
   return byMonth.slice(1).map((minima, i) => ({

@@ -122,7 +122,7 @@ export function baseCalendar(base: BaseSamples): BaseCalendar {
   const dayTempK = base.years.map((_y, yi) => {
     const temps = new Float64Array(nDays).fill(Number.NaN);
     base.groups.forEach((_g, gi) => {
-      base.days[yi]![gi]!.forEach((day, di) => {
+      base.days.get(yi, gi).forEach((day, di) => {
         const d = realDay[gi]![di]!;
         if (Number.isNaN(temps[d]!)) temps[d] = meanTempK(base, day.midnightUtcMs, day.nextMidnightUtcMs);
       });
@@ -199,7 +199,7 @@ export function otherUseEvents(
   const floor = (tempK: number) => lowestTargetAbsPa(contexts, tempK) + plan.nitrogen.transferDifferential;
   const events: DrawEvent[] = [];
   for (const [si, gi] of base.groupOfStay.entries()) {
-    const days = base.days[yi]![gi]!;
+    const days = base.days.get(yi, gi);
     days.forEach((day, di) => {
       const share = use.per === "week" ? (di % 7 === 0 ? Math.min(7, days.length - di) / 7 : 0) : +day.flown;
       if (share === 0) return;
@@ -238,7 +238,7 @@ export function unscheduledEvents(
   const events: FillEvent[] = [];
   for (const [si, gi] of base.groupOfStay.entries()) {
     const stay = base.stays[si]!;
-    const days = base.days[yi]![gi]!;
+    const days = base.days.get(yi, gi);
     const ctx = contexts[gi]!;
     const key = `${baseName}|${stay.aircraft}|${stay.arrive}|${base.years[yi]}|${draw}`;
     for (const di of unscheduledRechargeDays(plan.seed, key, rate, days.length)) {

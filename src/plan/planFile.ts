@@ -1,5 +1,4 @@
 import { dirname, resolve } from "node:path";
-import { type Document, isMap, isScalar, isSeq, LineCounter, parseDocument } from "yaml";
 import { z } from "zod";
 import { inputError } from "../errors.js";
 import { readInputText } from "../fsutil.js";
@@ -17,27 +16,54 @@ import {
   parseTemperatureK,
   parseTimeS,
   parseVolumeM3,
-  S_PER_DAY,
   S_PER_MONTH,
   STANDARD_ATMOSPHERE_PA,
 } from "../units/index.js";
-import { hangarSchema } from "./planHangar.js";
+import { hangarSchema, refuseFormerHangarKeys } from "./planHangar.js";
+import {
+  BULK_MODULUS,
+  ENERGY,
+  EXPANSION,
+  FLOW,
+  GAS_AMOUNT,
+  GAS_TEMPERATURE,
+  limited,
+  numberIn,
+  PRESSURE_DIFFERENCE,
+  pointWithin,
+  pressureAtWithin,
+  RESUPPLY_INTERVAL,
+  TIME_CONSTANT,
+  TIMER,
+  VOLUME,
+  VOLUME_OR_NONE,
+  warmPrechargeProblem,
+} from "./planLimits.js";
 import { q } from "./planQuantity.js";
+import { describeIssue, issueError, nodeLine, planDocument, writtenText } from "./planYaml.js";
 import { WHAT_IF_NAMES } from "./whatIfVariants.js";
 
-const positive = <T extends z.ZodType<number>>(s: T, what: string) =>
-  s.refine((v) => v > 0, { message: `${what} must be greater than zero` });
+export { yamlPathText } from "./planYaml.js";
 
-const pressureAt = q(parsePressureAt);
-const pointPressure = q(parsePointPressure);
+const pressureAt = q(parsePressureAt, pressureAtWithin);
+const pointPressure = q(parsePointPressure, pointWithin);
 const clock = q(parseClockMinutes);
+const gasTemperature = limited(parseTemperatureK, GAS_TEMPERATURE);
+const volume = limited(parseVolumeM3, VOLUME);
+const volumeOrNone = limited(parseVolumeM3, VOLUME_OR_NONE);
+const pressureDifference = limited(parsePressureDifference, PRESSURE_DIFFERENCE);
+const timer = limited(parseTimeS, TIMER);
 const NAME_RE = /^[A-Za-z0-9][A-Za-z0-9 _.-]*$/;
+/** Longest plan name: it names the output folder and, with a run tag, its hidden version folder. */
+export const MAX_PLAN_NAME_LENGTH = 100;
 /** What `coldsoak screen` adds to the plan's name for its output folder. */
 export const SCREEN_SUFFIX = "-screen";
 
 export const WEEKDAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"] as const;
+const WEEKDAY_FULL_NAMES = ["Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday", "Sunday"];
 const weekdayName = z.string().transform((s, ctx) => {
-  const i = WEEKDAY_NAMES.findIndex((d) => s.toLowerCase().startsWith(d.toLowerCase()));
+  // A day's name or its start of at least three letters ("Mon", "Tues", "Monday"), never more ("Monkey").
+  const i = WEEKDAY_FULL_NAMES.findIndex((d) => d.toLowerCase().startsWith(s.toLowerCase()));
   if (i < 0 || s.length < 3) {
     ctx.addIssue({
       code: "custom",
@@ -60,39 +86,46 @@ const profileSchema = z
   .strictObject({
     name: z.string().min(1),
     accumulator: z.strictObject({
-      gasVolumeEmpty: positive(q(parseVolumeM3), "gasVolumeEmpty"),
-      gasVolumeFull: positive(q(parseVolumeM3), "gasVolumeFull"),
+      gasVolumeEmpty: volume,
+      gasVolumeFull: volume,
     }),
-    precharge: z.strictObject({ reference: pressureAt, tolerance: q(parsePressureDifference) }),
+    precharge: z.strictObject({ reference: pressureAt, tolerance: pressureDifference }),
     system: z.strictObject({ low: pointPressure, nominal: pointPressure, high: pointPressure }),
     reliefPressure: pointPressure.optional(),
     fluid: z.strictObject({
-      expansionPerK: q(parseExpansionPerK),
-      bulkModulus: positive(q(parsePressureDifference), "bulkModulus"),
-      lineVolume: q(parseVolumeM3),
+      expansionPerK: limited(parseExpansionPerK, EXPANSION),
+      bulkModulus: limited(parsePressureDifference, BULK_MODULUS),
+      lineVolume: volumeOrNone,
     }),
-    thermalTimeConstant: q(parseTimeS),
+    thermalTimeConstant: limited(parseTimeS, TIME_CONSTANT),
     gasLoss: z.strictObject({
       rate: q(parsePressureRatePaS),
-      spread: z.number().min(0).max(3).default(0),
+      spread: numberIn(0, 3).default(0),
     }),
     starter: z.strictObject({
       minUsefulPressure: pointPressure,
       returnPressure: pointPressure.prefault("0 psig"),
       expansion: z.enum(["isentropic", "isothermal"]).default("isentropic"),
     }),
-    startEnergy: z.array(z.strictObject({ ambient: q(parseTemperatureK), energy: q(parseEnergyJ) })).min(1),
+    startEnergy: z
+      .array(z.strictObject({ ambient: gasTemperature, energy: limited(parseEnergyJ, ENERGY) }))
+      .min(1),
     pump: z.strictObject({
-      curve: z.array(z.strictObject({ pressure: pointPressure, flow: q(parseFlowM3S) })).min(1),
-      timer: positive(q(parseTimeS), "timer"),
+      curve: z
+        .array(z.strictObject({ pressure: pointPressure, flow: limited(parseFlowM3S, FLOW) }))
+        .min(1)
+        .refine((c) => c.some((r) => r.flow > 0), {
+          message: "expected a pump that delivers: a flow above 0",
+        }),
+      timer,
     }),
     handPump: z.strictObject({
-      displacement: positive(q(parseVolumeM3), "displacement"),
-      efficiency: z.number().gt(0).max(1),
+      displacement: volume,
+      efficiency: numberIn(0, 1, { minOpen: true }),
     }),
     coldStartOption: z.strictObject({
-      count: z.number().int().min(1).max(4).default(2),
-      timer: positive(q(parseTimeS), "timer"),
+      count: numberIn(1, 4, { int: true }).default(2),
+      timer,
     }),
   })
   .superRefine((p, ctx) => {
@@ -187,12 +220,12 @@ const operationsSchema = z.strictObject({
       message: "expected start times in increasing order within the day",
     }),
   weekdays: z
-    .union([z.number().int().min(1).max(7), z.array(weekdayName).min(1)])
+    .union([numberIn(1, 7, { int: true }), z.array(weekdayName).min(1)])
     .default(7)
     .refine((w) => typeof w === "number" || new Set(w).size === w.length, {
       message: "expected each weekday once",
     }),
-  prechargeCheckDays: z.number().int().min(1),
+  prechargeCheckDays: numberIn(1, 3650, { int: true }),
   outOfBand: z.enum(["log", "adjust-precharge"]).default("log"),
   /** The accumulator's state on arrival at a base (docs/methods.md §5, "Arrival"). */
   arrival: z.enum(["charged", "precharge-only"]).default("charged"),
@@ -227,11 +260,11 @@ function perBase<T extends z.ZodType>(schema: T, expected: string) {
 }
 
 const stockCylinders = perBase(
-  z.number().int().min(0),
+  numberIn(0, 10000, { int: true }),
   "a whole number of full cylinders, or base names with their numbers",
 );
 const resupplyInterval = perBase(
-  q(parseTimeS).refine((s) => s >= S_PER_DAY, { message: "expected an interval of at least one day" }),
+  limited(parseTimeS, RESUPPLY_INTERVAL),
   'a duration such as "4 weeks", or base names with their durations',
 );
 
@@ -241,12 +274,17 @@ const resupplyInterval = perBase(
  * carts per aircraft, and the stock shipped per base. Every demand item is optional (default none).
  */
 const nitrogenSchema = z.strictObject({
-  cylinder: z.strictObject({ waterVolume: positive(q(parseVolumeM3), "waterVolume"), fill: pressureAt }),
-  transferDifferential: q(parsePressureDifference),
-  hoseVolume: q(parseVolumeM3),
-  cylindersPerCart: z.number().int().min(1),
-  unscheduledRechargesPerAircraftMonth: z.number().min(0).max(30).default(0),
-  otherUse: z.strictObject({ amount: q(parseGasAmountKg), per: z.enum(["flown-day", "week"]) }).optional(),
+  cylinder: z.strictObject({ waterVolume: volume, fill: pressureAt }),
+  transferDifferential: pressureDifference,
+  hoseVolume: volumeOrNone,
+  cylindersPerCart: numberIn(1, 100, { int: true }),
+  unscheduledRechargesPerAircraftMonth: numberIn(0, 30).default(0),
+  otherUse: z
+    .strictObject({
+      amount: limited(parseGasAmountKg, GAS_AMOUNT),
+      per: z.enum(["flown-day", "week"]),
+    })
+    .optional(),
   stock: z.strictObject({ cylinders: stockCylinders, resupplyEvery: resupplyInterval.optional() }).optional(),
 });
 
@@ -255,30 +293,29 @@ export const planSchema = z
     name: z
       .string()
       .regex(NAME_RE, "expected a name of letters, digits, spaces, - _ or . (it names the output folder)")
+      .refine((s) => s.length <= MAX_PLAN_NAME_LENGTH, {
+        message: `expected a name of at most ${MAX_PLAN_NAME_LENGTH} characters (it names the output folder)`,
+      })
       .refine((n) => !n.endsWith(SCREEN_SUFFIX), {
         message: `expected a name not ending in "${SCREEN_SUFFIX}" (coldsoak screen writes out/<plan name>${SCREEN_SUFFIX})`,
       }),
     units: z.enum(["us", "si"]).default("us"),
-    seed: z
-      .number()
-      .int()
-      .min(0)
-      .max(2 ** 32 - 1)
-      .default(0),
+    // The random streams take the seed as a 32-bit unsigned integer (random.ts).
+    seed: numberIn(0, 2 ** 32 - 1, { int: true }).default(0),
     assumptionOrigin: z.enum(["plan file", "demo"]).default("plan file"),
     schedule: z.string().min(1).optional(),
     climate: z.strictObject({
       paths: z.array(z.string().min(1)).min(1),
       years: z
         .strictObject({
-          from: z.number().int().min(1900).max(2100),
-          to: z.number().int().min(1900).max(2100),
+          from: numberIn(1900, 2100, { int: true }),
+          to: numberIn(1900, 2100, { int: true }),
         })
         .refine((y) => y.from <= y.to, { message: "expected from ≤ to" })
         .optional(),
-      gapHours: z.number().int().min(0).max(48).default(3),
-      minYearShare: z.number().min(0).max(1).default(0.8),
-      minYears: z.number().int().min(1).default(5),
+      gapHours: numberIn(0, 48, { int: true }).default(3),
+      minYearShare: numberIn(0, 1).default(0.8),
+      minYears: numberIn(1, 200, { int: true }).default(5),
       cacheDir: z.string().min(1).optional(),
       stationHistory: z.string().min(1).optional(),
       /** Temperatures the design hours below count under (default −20, −30, −40 in the plan's unit). */
@@ -292,8 +329,8 @@ export const planSchema = z
     nitrogen: nitrogenSchema.optional(),
     thresholds: z
       .strictObject({
-        shortStartsPct: z.number().min(0).max(100).default(1),
-        outOfBandPct: z.number().min(0).max(100).default(2),
+        shortStartsPct: numberIn(0, 100).default(1),
+        outOfBandPct: numberIn(0, 100).default(2),
       })
       .default({ shortStartsPct: 1, outOfBandPct: 2 }),
     /** What-if variants run with the plan (docs/methods.md, "What-if variants"). */
@@ -314,6 +351,11 @@ export const planSchema = z
     };
     seen(p.bases ?? [], "bases");
     seen(p.profiles, "profiles");
+    p.profiles.forEach((profile, i) => {
+      const message = warmPrechargeProblem(profile, p.bases ?? [], p.units);
+      if (message !== null)
+        ctx.addIssue({ code: "custom", path: ["profiles", i, "precharge", "reference"], message });
+    });
     const baseNames = new Set((p.bases ?? []).map((b) => b.name));
     const stock = p.nitrogen?.stock;
     for (const key of ["cylinders", "resupplyEvery"] as const) {
@@ -324,7 +366,7 @@ export const planSchema = z
         ctx.addIssue({
           code: "custom",
           path: ["nitrogen", "stock", key, name],
-          message: `unknown base "${name}"; expected one of the plan's bases: ${[...baseNames].join(", ")}`,
+          message: `"${name}" is not a base of the plan; expected one of the plan's bases: ${[...baseNames].join(", ")}`,
         });
       }
     }
@@ -389,82 +431,6 @@ export function requirePlanSections(p: PlanFile): Plan {
   return p as Plan;
 }
 
-/** "profiles[0].precharge.reference" */
-export function yamlPathText(path: readonly PropertyKey[]): string {
-  let out = "";
-  for (const p of path) {
-    if (typeof p === "number") out += `[${p}]`;
-    else out += out === "" ? String(p) : `.${String(p)}`;
-  }
-  return out;
-}
-
-function nodeLine(doc: Document, lc: LineCounter, path: (string | number)[]): number {
-  for (let n = path.length; n >= 0; n--) {
-    const node = n === 0 ? doc.contents : doc.getIn(path.slice(0, n), true);
-    const range = (node as { range?: [number, number, number] } | undefined)?.range;
-    if (node !== undefined && node !== null && range) return lc.linePos(range[0]).line;
-  }
-  return 1;
-}
-
-/** The text of a YAML node as written: a scalar's source, a collection's items joined by ", ". */
-function writtenText(node: unknown): string | null {
-  if (isScalar(node)) return node.source ?? String(node.value);
-  if (isSeq(node)) return node.items.map(writtenText).join(", ");
-  if (isMap(node)) return node.items.map((p) => `${writtenText(p.key)}: ${writtenText(p.value)}`).join(", ");
-  return null;
-}
-
-const article = (noun: string) => (/^[aeiou]/.test(noun) ? `an ${noun}` : `a ${noun}`);
-
-function describeIssue(issue: z.core.$ZodIssue): string {
-  switch (issue.code) {
-    case "invalid_type":
-      if (issue.input === undefined) {
-        return `missing; expected ${issue.expected === "nonoptional" ? "a value" : article(issue.expected)}`;
-      }
-      return `expected ${article(issue.expected)}, found ${issue.input === null ? "nothing" : Array.isArray(issue.input) ? "a list" : typeof issue.input}`;
-    case "unrecognized_keys":
-      return `unknown key${issue.keys.length > 1 ? "s" : ""} ${issue.keys.map((k) => `"${k}"`).join(", ")}`;
-    case "invalid_value":
-      return `expected one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}`;
-    case "invalid_union":
-      return "expected a count 1–7 or a list of day names";
-    case "too_small":
-      return issue.origin === "array"
-        ? `expected at least ${issue.minimum} item${Number(issue.minimum) > 1 ? "s" : ""}`
-        : issue.origin === "string"
-          ? "expected a non-empty text"
-          : `expected a number ${issue.inclusive ? "≥" : ">"} ${issue.minimum}`;
-    case "too_big":
-      return `expected a number ${issue.inclusive ? "≤" : "<"} ${issue.maximum}`;
-    default:
-      return issue.message;
-  }
-}
-
-/**
- * Keys that earlier plan files used and that now mean something else: refused with a located message
- * naming the keys that replace them (a fixed hangar temperature gave a 15 °C "heated" hangar colder than
- * July air and a −5 °C shelter colder than the air outside).
- */
-function refuseFormerKeys(raw: unknown, file: string, lineOf: (path: (string | number)[]) => number): void {
-  const bases = (raw as { bases?: unknown } | null)?.bases;
-  if (!Array.isArray(bases)) return;
-  bases.forEach((b, i) => {
-    const hangar = (b as { hangar?: unknown } | null)?.hangar;
-    if (hangar === null || typeof hangar !== "object" || !("temperature" in hangar)) return;
-    const path = ["bases", i, "hangar", "temperature"];
-    throw inputError(
-      file,
-      lineOf(path),
-      yamlPathText(path),
-      "a fixed hangar temperature is no longer read; write kind: heated with heatedTo (the set point: the inside is the warmer of it and the outdoor air), or kind: shelter (unheated: follows the outdoor air through timeConstant, default 6 h, plus offset)",
-    );
-  });
-}
-
 /** Parses and validates plan text; throws InputError `file:line:yaml.path: message`. */
 export function parsePlanText(text: string, file: string): Plan {
   return requirePlanSections(parsePlanFileText(text, file));
@@ -472,30 +438,10 @@ export function parsePlanText(text: string, file: string): Plan {
 
 /** parsePlanText for a plan that may lack bases and nitrogen (`coldsoak screen`, `coldsoak band`). */
 export function parsePlanFileText(text: string, file: string): PlanFile {
-  const lc = new LineCounter();
-  const doc = parseDocument(text, { lineCounter: lc, prettyErrors: false, uniqueKeys: true });
-  const yamlError = doc.errors[0];
-  if (yamlError !== undefined) {
-    const line = lc.linePos(yamlError.pos[0]).line;
-    throw inputError(file, line, undefined, `not valid YAML: ${yamlError.message.split("\n")[0]}`);
-  }
-  if (!isMap(doc.contents)) {
-    throw inputError(
-      file,
-      1,
-      undefined,
-      "expected a YAML mapping with the keys name, climate, bases, profiles, operations, nitrogen",
-    );
-  }
-  const raw: unknown = doc.toJS({ maxAliasCount: 100 });
-  refuseFormerKeys(raw, file, (path) => nodeLine(doc, lc, path));
-  const parsed = planSchema.safeParse(raw);
-  if (!parsed.success) {
-    const issue = parsed.error.issues[0]!;
-    const path = issue.path.filter((p): p is string | number => typeof p !== "symbol");
-    const where = issue.code === "unrecognized_keys" ? [...path, issue.keys[0]!] : path;
-    throw inputError(file, nodeLine(doc, lc, where), yamlPathText(path) || "(top)", describeIssue(issue));
-  }
+  const { doc, lc, raw } = planDocument(text, file);
+  refuseFormerHangarKeys(raw, file, (path) => nodeLine(doc, lc, path));
+  const parsed = planSchema.safeParse(raw, { reportInput: true });
+  if (!parsed.success) throw issueError(file, doc, lc, parsed.error.issues[0]!);
   const has = (path: (string | number)[]) => doc.hasIn(path);
   return {
     ...parsed.data,

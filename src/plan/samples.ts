@@ -90,8 +90,66 @@ export interface BaseSamples {
   windowSkips: WindowSkip[][];
   /** What each group's window lacks when no year covers it, else null: `gaps[groupIndex]`. */
   gaps: (WindowGap | null)[];
-  /** Days of each group on each usable year (empty where the window is not usable): `days[yearIndex][groupIndex]`. */
-  days: DayPlan[][][];
+  /** Days of each group on each usable year (empty where the window is not usable): `days.get(yearIndex, groupIndex)`. */
+  days: BaseDays;
+  /** How the days are built (`withDays`). */
+  dayOptions: DayOptions;
+}
+
+/**
+ * A base as prepared, without its days: they are built (`withDays`) only while the base is simulated
+ * and aggregated, and then one climate year at a time (`BaseDays`), so that a run never holds the days
+ * of every stay on every year.
+ */
+export type PreparedBase = Omit<BaseSamples, "days">;
+
+/**
+ * The days of each group on each usable year of a base (empty where the window is not usable), the
+ * same days `usableYears` counted: built when asked, the days of one climate year held at a time (the
+ * simulation and the aggregation go year by year).
+ */
+export class BaseDays {
+  private yearIndex = -1;
+  private byGroup: (DayPlan[] | undefined)[] = [];
+  constructor(
+    private readonly base: Pick<BaseSamples, "years" | "usable" | "groups" | "dayOptions" | "refYear">,
+    /** Local month (1–12) after whose last day each group's days are cut; null: not cut. */
+    private readonly untilMonth: number | null = null,
+  ) {}
+
+  /** The same days cut after the last day of `month` in each group's window (no day there: none). */
+  untilEndOf(month: number): BaseDays {
+    return new BaseDays(this.base, month);
+  }
+
+  /** Days of group `gi` on usable year `yi`. */
+  get(yi: number, gi: number): DayPlan[] {
+    const b = this.base;
+    if (!b.usable[yi]?.[gi]) return [];
+    if (yi !== this.yearIndex) {
+      this.yearIndex = yi;
+      this.byGroup = [];
+    }
+    let days = this.byGroup[gi];
+    if (days === undefined) {
+      days = buildDays(b.groups[gi]!.realDays, b.years[yi]!, b.dayOptions, b.refYear);
+      if (this.untilMonth !== null) days = days.slice(0, lastDayOf(days, this.untilMonth) + 1);
+      this.byGroup[gi] = days;
+    }
+    return days;
+  }
+}
+
+/** Index of the last day of local month `month` in `days`, −1 without one. */
+function lastDayOf(days: DayPlan[], month: number): number {
+  let last = -1;
+  for (let i = 0; i < days.length; i++) if (days[i]!.month === month) last = i;
+  return last;
+}
+
+/** The base with its days (`BaseDays`). */
+export function withDays(base: PreparedBase): BaseSamples {
+  return { ...base, days: new BaseDays(base) };
 }
 
 /** One aircraft's drawn gas-loss multiplier for one profile. */
@@ -212,7 +270,7 @@ function dataYears(series: HourlySeries): [number, number] | null {
   ];
 }
 
-type YearSamples = Pick<BaseSamples, "years" | "skipped" | "usable" | "windowSkips" | "gaps" | "days">;
+type YearSamples = Pick<BaseSamples, "years" | "skipped" | "usable" | "windowSkips" | "gaps">;
 
 /** Per group, per local month: the best share found over candidate years and the climate years visited. */
 interface MonthCover {
@@ -253,7 +311,6 @@ function usableYears(
     usable: [],
     windowSkips: groups.map(() => []),
     gaps: groups.map(() => null),
-    days: [],
   };
   const minShare = plan.climate.minYearShare;
   const cover: MonthCover = {
@@ -290,7 +347,6 @@ function usableYears(
     if (ok.some((u) => u)) {
       out.years.push(y);
       out.usable.push(ok);
-      out.days.push(days.map((d, gi) => (ok[gi] ? d : [])));
     } else {
       const best = Math.max(...out.windowSkips.map((w) => w[w.length - 1]?.completenessPct ?? 0));
       out.skipped.push({ year: y, completenessPct: best });
@@ -353,7 +409,7 @@ export function prepareSamples(
   climate: Map<string, BaseClimate>,
   weekdays: number[],
   warnings: string[],
-): BaseSamples[] {
+): PreparedBase[] {
   return plan.bases.map((base, baseIndex) => {
     const clim = climate.get(base.name);
     if (clim === undefined) throw new Error(`no climate for base ${base.name}`);
@@ -369,7 +425,7 @@ export function prepareBase(
   baseIndex: number,
   weekdays: number[],
   warnings: string[],
-): BaseSamples {
+): PreparedBase {
   const flown = new Set(weekdays);
   const base = plan.bases[baseIndex]!;
   const here = stays.filter((s) => s.base === base.name);
@@ -389,5 +445,5 @@ export function prepareBase(
   };
   const years = usableYears(plan, clim, groups, refYear, dayOptions);
   warnings.push(...yearWarnings(plan, base.name, here, groups, years));
-  return { baseIndex, climate: clim, refYear, stays: here, groups, groupOfStay, ...years };
+  return { baseIndex, climate: clim, refYear, stays: here, groups, groupOfStay, dayOptions, ...years };
 }

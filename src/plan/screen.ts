@@ -17,7 +17,7 @@ import { baseStatistics, monthlyColdestMornings } from "./monthStats.js";
 import type { PlanCore, PlanFile } from "./planFile.js";
 import type { StayMonthRow } from "./results.js";
 import { baseClimate } from "./run.js";
-import { flownWeekdays, prepareSamples } from "./samples.js";
+import { flownWeekdays, prepareSamples, withDays } from "./samples.js";
 import type { Stay } from "./schedule.js";
 import { nominalBreakEven } from "./screenExtras.js";
 import type { BreakEvenMargin, ScreenMonth, ScreenStation, ShareWithInterval } from "./screenResults.js";
@@ -138,13 +138,14 @@ export function screenStation(
   const id = station.meta.id;
   const core = screenPlan(plan, id);
   const warnings: string[] = [];
-  const [base] = prepareSamples(
+  const [prepared] = prepareSamples(
     core,
     screenStays(id, profile),
     new Map([[id, baseClimate([station])]]),
     flownWeekdays(core),
     warnings,
   );
+  const base = withDays(prepared!);
   const sim = simulator(core, [base!], {});
   const outcomes = simulateBase(sim, base!);
   const statistics = baseStatistics(core, base!, outcomes, warnings);

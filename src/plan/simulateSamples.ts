@@ -3,13 +3,15 @@
  * by hour (`simulate.ts`), with one gas table and one set of profile contexts for the whole run, and
  * the run's counters for the benchmark and the progress bar.
  */
+import { InputError, inputError } from "../errors.js";
 import { tabulatedGas } from "../physics/gasTable.js";
 import type { GasModel } from "../physics/nitrogen.js";
 import { realGas } from "../physics/nitrogen.js";
 import type { HangarAir } from "./air.js";
 import { ProfileContexts } from "./context.js";
+import { type KeptOutcome, keptOutcome } from "./keptOutcome.js";
 import type { HangarInput, Plan, PlanCore } from "./planFile.js";
-import type { BaseSamples } from "./samples.js";
+import type { BaseSamples, PreparedBase } from "./samples.js";
 import { type SimInputs, type SimOutcome, simulateStayYear } from "./simulate.js";
 import { emptyOutcome } from "./stayRun.js";
 
@@ -38,12 +40,12 @@ export interface Simulator<P extends PlanCore = Plan> {
   onProgress: RunOptions["onProgress"];
 }
 
-/** The outcome of each group on each usable year of a base: `outcomes[yearIndex][groupIndex]`. */
-export type BaseOutcomes = SimOutcome[][];
+/** What is kept of each group on each usable year of a base: `outcomes[yearIndex][groupIndex]`. */
+export type BaseOutcomes = KeptOutcome[][];
 
 export function simulator<P extends PlanCore>(
   plan: P,
-  samples: BaseSamples[],
+  samples: PreparedBase[],
   opts: RunOptions,
 ): Simulator<P> {
   const model = tabulatedGas(realGas);
@@ -73,7 +75,7 @@ export function sampleInputs(sim: Simulator<PlanCore>, base: BaseSamples, gi: nu
     ctx: sim.contexts.get(plan.profiles[g.profileIndex]!, base.climate.atmPa, g.coldStartOption),
     series: base.climate.series,
     timeZone: base.climate.timeZone,
-    days: base.days[yi]![gi]!,
+    days: base.days.get(yi, gi),
     gasLossFactor: g.gasLossFactor,
     hangar: hangar ? hangarAir(hangar) : null,
     prechargeCheckDays: plan.operations.prechargeCheckDays,
@@ -83,22 +85,49 @@ export function sampleInputs(sim: Simulator<PlanCore>, base: BaseSamples, gi: nu
 }
 
 /**
- * Simulates every group of a base on every year usable for its window, group by group; a window not
- * usable on a year gets an empty outcome (no records).
+ * A refusal of the physics during the simulation (a state the plan's own checks did not foresee, at the
+ * base's atmosphere or weather), located at the profile it came from, with the stay and climate year.
+ */
+function locatedPhysicsError(
+  sim: Simulator<PlanCore>,
+  base: BaseSamples,
+  gi: number,
+  yi: number,
+  err: unknown,
+): unknown {
+  const { plan } = sim;
+  if (!(err instanceof InputError) || err.message.startsWith(`${plan.file}:`)) return err;
+  const g = base.groups[gi]!;
+  const stay = base.stays[g.stays[0]!]!;
+  return inputError(
+    plan.file,
+    plan.lineOf(["profiles", g.profileIndex]),
+    `profiles[${g.profileIndex}]`,
+    `${err.message} (profile "${stay.profile}" for aircraft ${stay.aircraft} at base "${stay.base}" on climate year ${base.years[yi]}); expected a profile the accumulator physics can follow there`,
+  );
+}
+
+/**
+ * Simulates every group of a base on every year usable for its window, year by year (the days of one
+ * year are held at a time); a window not usable on a year gets an empty outcome (no records).
  */
 export function simulateBase(sim: Simulator<PlanCore>, base: BaseSamples): BaseOutcomes {
   const outcomes: BaseOutcomes = base.years.map(() => []);
-  for (let gi = 0; gi < base.groups.length; gi++) {
-    for (let yi = 0; yi < base.years.length; yi++) {
+  for (let yi = 0; yi < base.years.length; yi++) {
+    for (let gi = 0; gi < base.groups.length; gi++) {
       if (!base.usable[yi]![gi]) {
-        outcomes[yi]![gi] = emptyOutcome();
+        outcomes[yi]![gi] = keptOutcome(emptyOutcome());
         continue;
       }
-      const inputs = sampleInputs(sim, base, gi, yi);
       const t0 = performance.now();
-      const o = simulateStayYear(inputs);
+      let o: SimOutcome;
+      try {
+        o = simulateStayYear(sampleInputs(sim, base, gi, yi));
+      } catch (err) {
+        throw locatedPhysicsError(sim, base, gi, yi, err);
+      }
       sim.stats.simulationS += (performance.now() - t0) / 1000;
-      outcomes[yi]![gi] = o;
+      outcomes[yi]![gi] = keptOutcome(o);
       sim.stats.accumulatorHours += o.accumulatorHours;
       sim.stats.stayYearsSimulated++;
       sim.onProgress?.(sim.stats.stayYearsSimulated, sim.total);

@@ -19,7 +19,7 @@ export const TRACE_HOURS = 36;
 interface DropRef {
   groupIndex: number;
   yearIndex: number;
-  drop: DropRecord;
+  drop: Pick<DropRecord, "readingPct" | "day" | "rechargeUtcMs">;
 }
 
 /** Every drop of every group on every year, ascending by drop in reading (ties: year, group, day). */
@@ -27,7 +27,14 @@ function sortedDrops(base: BaseSamples, outcomes: BaseOutcomes): DropRef[] {
   const refs: DropRef[] = [];
   for (let yi = 0; yi < base.years.length; yi++) {
     for (let gi = 0; gi < base.groups.length; gi++) {
-      for (const drop of outcomes[yi]![gi]!.drops) refs.push({ groupIndex: gi, yearIndex: yi, drop });
+      const d = outcomes[yi]![gi]!.drops;
+      for (let i = 0; i < d.day.length; i++) {
+        refs.push({
+          groupIndex: gi,
+          yearIndex: yi,
+          drop: { readingPct: d.readingPct[i]!, day: d.day[i]!, rechargeUtcMs: d.rechargeUtcMs[i]! },
+        });
+      }
     }
   }
   return refs.sort(

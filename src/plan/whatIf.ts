@@ -9,9 +9,10 @@
  */
 import type { ProfileContext } from "./context.js";
 import { ProfileContexts } from "./context.js";
+import { ABOVE, BELOW } from "./keptOutcome.js";
 import type { Plan } from "./planFile.js";
 import type { BaseResult, WhatIfBase, WhatIfShares, WhatIfVariantRow } from "./results.js";
-import { type BaseClimate, type BaseSamples, flownWeekdays, prepareBase } from "./samples.js";
+import { type BaseClimate, type BaseSamples, flownWeekdays, prepareBase, withDays } from "./samples.js";
 import type { Stay } from "./schedule.js";
 import { type BaseOutcomes, simulateBase, simulator } from "./simulateSamples.js";
 import { pct } from "./stats.js";
@@ -38,14 +39,7 @@ export function worstMonth(base: BaseResult): number | null {
 
 /** The samples cut after the last day of `month` in each group's window (no day there: nothing to run). */
 export function untilEndOf(base: BaseSamples, month: number): BaseSamples {
-  const days = base.days.map((year) =>
-    year.map((d) => {
-      let last = -1;
-      for (let i = 0; i < d.length; i++) if (d[i]!.month === month) last = i;
-      return d.slice(0, last + 1);
-    }),
-  );
-  return { ...base, days };
+  return { ...base, days: base.days.untilEndOf(month) };
 }
 
 /** The profile contexts with the gas amount serviced to (and arrived with) on a tolerance line. */
@@ -88,20 +82,23 @@ function tally(
   for (const gi of base.groupOfStay) {
     for (let yi = 0; yi < base.years.length; yi++) {
       const o = outcomes[yi]![gi]!;
-      for (const r of o.preflights) {
-        if (r.month !== month) continue;
+      const p = o.preflights;
+      for (let i = 0; i < p.month.length; i++) {
+        if (p.month[i] !== month) continue;
         for (const t of out) {
           t.preflights++;
-          if (r.below || r.above) t.outOfBand++;
+          if (p.flags[i]! & (BELOW | ABOVE)) t.outOfBand++;
         }
       }
-      for (const r of o.starts) {
-        if (r.month !== month) continue;
+      const s = o.starts;
+      for (let i = 0; i < s.month.length; i++) {
+        if (s.month[i] !== month) continue;
+        const requiredJ = s.requiredJ[i]!;
         factors.forEach((f, k) => {
           const t = out[k]!;
           t.starts++;
-          if (r.energyOneJ < r.requiredJ * f) t.shortOne++;
-          if (r.energyTwoJ < r.requiredJ * f) t.shortTwo++;
+          if (s.energyOneJ[i]! < requiredJ * f) t.shortOne++;
+          if (s.energyTwoJ[i]! < requiredJ * f) t.shortTwo++;
         });
       }
     }
@@ -135,7 +132,9 @@ export function simulateTask(
   const edit = variantEdit(task.variant, inp.plan, inp.stays, task.baseIndex);
   const plan: Plan = { ...inp.plan, ...edit.plan };
   const base = untilEndOf(
-    prepareBase(plan, edit.stays, inp.climates[task.baseIndex]!, task.baseIndex, flownWeekdays(plan), []),
+    withDays(
+      prepareBase(plan, edit.stays, inp.climates[task.baseIndex]!, task.baseIndex, flownWeekdays(plan), []),
+    ),
     task.month,
   );
   const sim = simulator(plan, [base], {});

@@ -5,6 +5,7 @@
  * spread across years and its bootstrap interval (`bootstrap.ts`), for a base-month or a stay-month.
  */
 import { bootstrapResamples, pooledShareInterval, yearSpread } from "./bootstrap.js";
+import { ABOVE, BELOW, SHORT_ONE, SHORT_TWO } from "./keptOutcome.js";
 import type { Confidence } from "./results.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
 import { pct } from "./stats.js";
@@ -48,17 +49,19 @@ export function groupCounts(outcomes: BaseOutcomes, gi: number): CountTable {
   return outcomes.map((yearOutcomes) => {
     const o = yearOutcomes[gi]!;
     const year = emptyYear();
-    for (const r of o.preflights) {
-      const c = year[r.month]!;
+    const p = o.preflights;
+    for (let i = 0; i < p.month.length; i++) {
+      const c = year[p.month[i]!]!;
       c.preflights++;
-      if (r.below) c.below++;
-      if (r.above) c.above++;
+      if (p.flags[i]! & BELOW) c.below++;
+      if (p.flags[i]! & ABOVE) c.above++;
     }
-    for (const r of o.starts) {
-      const c = year[r.month]!;
+    const s = o.starts;
+    for (let i = 0; i < s.month.length; i++) {
+      const c = year[s.month[i]!]!;
       c.starts++;
-      if (r.energyOneJ < r.requiredJ) c.shortOne++;
-      if (r.energyTwoJ < r.requiredJ) c.shortTwo++;
+      if (s.flags[i]! & SHORT_ONE) c.shortOne++;
+      if (s.flags[i]! & SHORT_TWO) c.shortTwo++;
     }
     return year;
   });

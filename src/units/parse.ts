@@ -57,6 +57,11 @@ function splitNumber(text: string, expected: string): { value: number; unit: str
   return { value, unit: (m[2] ?? "").trim() };
 }
 
+/** The unit of a quantity as written ("-150 C" → "C", "1450psig" → "psig"); "" when it has none. */
+export function writtenUnit(text: string): string {
+  return NUMBER_RE.exec(text)?.[2]?.trim() ?? "";
+}
+
 function lookup<T>(table: Record<string, T>, unit: string, text: string, expected: string): T {
   const key = Object.keys(table).find((k) => k.toLowerCase() === unit.toLowerCase());
   if (key === undefined || unit === "") {

@@ -177,7 +177,9 @@ describe.skipIf(!HAVE_BUILD)("screen in separate processes", () => {
     );
     const clash = await cli(["screen", "clash.yaml", "climate"], root);
     expect(clash.code).toBe(2);
-    expect(clash.err).toMatch(/clash\.yaml:\d+:name: expected a name not ending in "-screen"/);
+    expect(clash.err).toMatch(
+      /clash\.yaml:\d+:name: "winter-screen": expected a name not ending in "-screen"/,
+    );
     const plan = await cli(["plan", "plan.yaml"], root);
     expect(plan.code).toBe(2);
     expect(plan.err).toMatch(/^coldsoak: plan\.yaml:\d+:bases: missing; expected a list of bases/);

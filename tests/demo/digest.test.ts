@@ -24,10 +24,16 @@ describe("demo outputs against the committed digest", () => {
   let dir: string;
   let code: number;
   let digest: Record<string, string>;
+  /** The summary printed on stdout and the text of every output file, by name. */
+  const texts = new Map<string, string>();
   beforeAll(async () => {
     dir = mkdtempSync(join(tmpdir(), "coldsoak-digest-"));
     vi.stubEnv("SOURCE_DATE_EPOCH", "1767225600"); // 2026-01-01T00:00:00Z, any fixed instant
-    vi.spyOn(process.stdout, "write").mockImplementation(() => true);
+    let stdout = "";
+    vi.spyOn(process.stdout, "write").mockImplementation((s: string | Uint8Array) => {
+      stdout += String(s);
+      return true;
+    });
     vi.spyOn(process.stderr, "write").mockImplementation(() => true);
     try {
       code = await main(["plan", PLAN, "--out", join(dir, "out"), "--cache-dir", join(dir, "cache")]);
@@ -35,9 +41,11 @@ describe("demo outputs against the committed digest", () => {
       vi.restoreAllMocks();
       vi.unstubAllEnvs();
     }
+    texts.set("(stdout)", stdout);
     const folder = join(dir, "out", "demo");
     digest = {};
     for (const f of readdirSync(folder).sort()) {
+      texts.set(f, readFileSync(join(folder, f), "utf8"));
       digest[f] = createHash("sha256")
         .update(readFileSync(join(folder, f)))
         .digest("hex");
@@ -49,6 +57,12 @@ describe("demo outputs against the committed digest", () => {
 
   it("runs the demo", () => {
     expect(code).toBe(0);
+  });
+
+  it("prints no NaN or infinity in its summary, results.json, CSVs or report", () => {
+    // A guard over every output path: a number that is not finite is shown as "–" or left empty.
+    expect(texts.size).toBeGreaterThan(3);
+    for (const [name, text] of texts) expect(text, name).not.toMatch(/\bNaN\b|Infinity|undefined/);
   });
 
   it("writes the same bytes, file by file, as the committed digest", () => {

@@ -36,6 +36,16 @@ export const ATM_PA = 101325;
 export const FIXTURE_DIR = new URL("../fixtures/plan/", import.meta.url);
 export const FIXTURE_TEXT = readFileSync(new URL("minimal-plan.yaml", FIXTURE_DIR), "utf8");
 
+/** The message of the error a plan text is refused with, or "no error". */
+export function errorOf(src: string): string {
+  try {
+    parsePlanText(src, "plan.yaml");
+  } catch (err) {
+    return (err as Error).message;
+  }
+  return "no error";
+}
+
 // biome-ignore lint/suspicious/noExplicitAny: test edits of a parsed YAML tree
 export type Tree = any;
 

@@ -3,7 +3,7 @@
  * on each year (definitions of docs/methods.md, "Simulation"; counts follow from the inputs built here).
  */
 import { describe, expect, it } from "vitest";
-import { gasLossDraws, prepareSamples } from "../../src/plan/samples.js";
+import { gasLossDraws, prepareSamples, withDays } from "../../src/plan/samples.js";
 import { fixturePlan, stayAt, syntheticClimate, type Tree } from "./helpers.js";
 
 const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
@@ -58,6 +58,21 @@ describe("groups of identical stays", () => {
 });
 
 describe("usable climate years, window by window (docs/methods.md §4)", () => {
+  it("holds no days once prepared: a base's days are built when asked, one climate year at a time", () => {
+    const plan = twoProfiles(0);
+    const stays = [stay("A1", "2027-01-05", "2027-01-10"), stay("A2", "2027-02-01", "2027-02-03")];
+    const [prepared] = prepareSamples(plan, stays, climate, [1, 2, 3, 4, 5, 6, 7], []);
+    // Memory grows with what is kept: the days of every stay on every year are not part of it.
+    expect("days" in prepared!).toBe(false);
+    const { days } = withDays(prepared!);
+    const first = days.get(0, 0);
+    expect(days.get(0, 0)).toBe(first); // kept while the year is in use
+    days.get(1, 0);
+    const again = days.get(0, 0);
+    expect(again).not.toBe(first); // built again: only one year is held
+    expect(again).toEqual(first);
+  });
+
   it("skips a year only for the window that lacks data, says which window and the share found", () => {
     const plan = twoProfiles(0);
     const stays = [stay("A1", "2027-01-05", "2027-01-10"), stay("A2", "2027-02-01", "2027-02-03")];
@@ -80,13 +95,16 @@ describe("usable climate years, window by window (docs/methods.md §4)", () => {
     expect(warnings).toEqual([
       'base "North Field": climate years skipped for the stay window 2027-01-05 to 2027-01-10 (A1) (under 80 % of the window\'s hours present): 2016 (0.0 %)',
     ]);
-    expect(base!.days).toHaveLength(3);
-    expect(base!.days[2]![0]).toEqual([]); // not simulated where not usable
-    for (const [yi, yearDays] of base!.days.slice(0, 2).entries()) {
-      expect(yearDays[0]!.map((d) => d.climateIso)).toEqual(
+    const { days } = withDays(base!);
+    expect(base!.years).toHaveLength(3);
+    expect(days.get(2, 0)).toEqual([]); // not simulated where not usable
+    for (const yi of [0, 1]) {
+      expect(days.get(yi, 0).map((d) => d.climateIso)).toEqual(
         [5, 6, 7, 8, 9].map((d) => `${base!.years[yi]}-01-0${d}`),
       );
-      expect(yearDays[1]!.map((d) => d.climateIso)).toEqual([1, 2].map((d) => `${base!.years[yi]}-02-0${d}`));
+      expect(days.get(yi, 1).map((d) => d.climateIso)).toEqual(
+        [1, 2].map((d) => `${base!.years[yi]}-02-0${d}`),
+      );
     }
   });
 
