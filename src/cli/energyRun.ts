@@ -20,6 +20,7 @@ import { loadPlanFile, type ProfileInput } from "../plan/planFile.js";
 import {
   FAHRENHEIT_PER_KELVIN,
   formatMachine,
+  gaugePa,
   kToC,
   PA_PER_KPA,
   parseTemperatureDifferenceOnScale,
@@ -97,7 +98,7 @@ function breakEvenLines(rows: BreakEvenRow[], u: UnitSystem): string[] {
 /** The system pressures of a profile as text ("3,000 psig"). */
 function systemText(profile: ProfileInput, which: "low" | "nominal", u: UnitSystem): string {
   const p = profile.system[which];
-  const gaugeKPa = (p.isGauge ? p.pa : p.pa - STANDARD_ATMOSPHERE_PA) / PA_PER_KPA;
+  const gaugeKPa = gaugePa(p, STANDARD_ATMOSPHERE_PA) / PA_PER_KPA;
   return showWithUnit(u.pressure, gaugeKPa);
 }
 

@@ -2,6 +2,7 @@ import { InputError } from "../errors.js";
 import { standardAtmospherePa } from "../physics/atmosphere.js";
 import { idealGas, N2_CRITICAL_TEMP_K, N2_MAX_TEMP_K, realGas } from "../physics/nitrogen.js";
 import {
+  absPa,
   formatDisplay,
   kToC,
   PA_PER_BAR,
@@ -65,7 +66,7 @@ export function prechargeAnswer(refText: string, atText: string, elevationText =
     const msg = err instanceof Error ? err.message : String(err);
     throw optionError("--elevation", msg.replace(/^elevationM:\s*/, ""));
   }
-  const refAbsPa = pressure.isGauge ? pressure.pa + atmPa : pressure.pa;
+  const refAbsPa = absPa(pressure, atmPa);
   if (!(refAbsPa > 0)) {
     throw optionError(
       "--ref",

@@ -11,8 +11,8 @@ import { bisect } from "simple-statistics";
 import { interpolateClamped } from "../physics/accumulator.js";
 import type { GasModel } from "../physics/nitrogen.js";
 import { equilibriumStartEnergyJ, type StartUnits, trappedStartEnergyJ } from "../physics/startEnergy.js";
-import { cToK, fToK, kToC, type Units } from "../units/index.js";
-import { absPa, fluidOf, geometryOf, prechargeAmountsMol, starterOf } from "./context.js";
+import { absPa, cToK, fToK, kToC, type Units } from "../units/index.js";
+import { fluidOf, geometryOf, prechargeAmountsMol, starterOf } from "./context.js";
 import type { ProfileInput } from "./planFile.js";
 import type { BreakEvenReason, BreakEvenRow, DesignPointRow, PrechargeLine, SystemLine } from "./results.js";
 

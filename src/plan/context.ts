@@ -15,16 +15,9 @@ import {
   type StarterSpec,
 } from "../physics/accumulator.js";
 import type { GasModel } from "../physics/nitrogen.js";
-import { S_PER_MONTH } from "../units/index.js";
+import { absPa, gaugePa, S_PER_MONTH } from "../units/index.js";
 import { type DischargeGrid, dischargeGrid } from "./dischargeGrid.js";
-import type { PointPressure, ProfileInput } from "./planFile.js";
-
-export function absPa(p: PointPressure, atmPa: number): number {
-  return p.isGauge ? p.pa + atmPa : p.pa;
-}
-export function gaugePa(p: PointPressure, atmPa: number): number {
-  return p.isGauge ? p.pa : p.pa - atmPa;
-}
+import type { ProfileInput } from "./planFile.js";
 
 /** Reading band tabulated against temperature and interpolated linearly (it is smooth in T). */
 export interface BandTable {

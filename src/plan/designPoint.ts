@@ -9,7 +9,7 @@
  */
 import { prechargePressureAbsPa, readingPct, recharge, startDischarge } from "../physics/accumulator.js";
 import { realGas } from "../physics/nitrogen.js";
-import { cToK, kToC, M3_PER_LITRE, PA_PER_KPA } from "../units/index.js";
+import { cToK, gaugePa, kToC, M3_PER_LITRE, PA_PER_KPA } from "../units/index.js";
 import { curveTempsK } from "./bandCurves.js";
 import {
   afterDropBreakEven,
@@ -20,7 +20,7 @@ import {
   energyProfile,
   requiredEnergyJ,
 } from "./breakEven.js";
-import { gaugePa, pumpOf } from "./context.js";
+import { pumpOf } from "./context.js";
 import type { Plan, ProfileInput } from "./planFile.js";
 import type {
   DesignMargin,

@@ -3,6 +3,7 @@ import { z } from "zod";
 import { inputError } from "../errors.js";
 import { readInputText } from "../fsutil.js";
 import {
+  gaugePa,
   type PointPressure,
   parseClockMinutes,
   parseEnergyJ,
@@ -147,7 +148,7 @@ const profileSchema = z
       ctx.addIssue({ code: "custom", path: ["system"], message: "expected low ≤ nominal ≤ high" });
     }
     // Gauge comparisons (an absolute value is compared as if the atmosphere were 101.325 kPa).
-    const g = (x: PointPressure) => (x.isGauge ? x.pa : x.pa - STANDARD_ATMOSPHERE_PA);
+    const g = (x: PointPressure) => gaugePa(x, STANDARD_ATMOSPHERE_PA);
     const ref = g(p.precharge.reference.pressure);
     if (!(p.precharge.tolerance < ref)) {
       ctx.addIssue({

@@ -14,6 +14,7 @@ import { TEMP_MAX_TENTHS } from "../climate/qc.js";
 import { InputError } from "../errors.js";
 import { N2_CRITICAL_TEMP_K, N2_MAX_TEMP_K, realGas } from "../physics/nitrogen.js";
 import {
+  absPa,
   cToK,
   kToC,
   M3_PER_LITRE,
@@ -185,7 +186,7 @@ export function warmPrechargeProblem(
   units: Units,
 ): string | null {
   const atm = STANDARD_ATMOSPHERE_PA;
-  const abs = (p: PointPressure) => (p.isGauge ? p.pa + atm : p.pa);
+  const abs = (p: PointPressure) => absPa(p, atm);
   const ref = profile.precharge.reference;
   const warmK = warmestAirK(bases);
   let lineAbsPa: number;

@@ -16,8 +16,8 @@ import {
   fullCylinder,
   type SupplySpec,
 } from "../physics/supply.js";
-import { N2_NORMAL_DENSITY_KG_M3, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
-import { absPa, type ProfileContext } from "./context.js";
+import { absPa, N2_NORMAL_DENSITY_KG_M3, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
+import type { ProfileContext } from "./context.js";
 import {
   type BaseCalendar,
   baseCalendar,

@@ -4,9 +4,8 @@
  * the stays at the base (each counted once) and its climate years; and one warning per base-month where
  * a profile without a relief valve sees a trapped pressure above 1.1 × its system high.
  */
-import { M3_PER_LITRE, PA_PER_KPA, showWithUnit, unitSystem } from "../units/index.js";
+import { gaugePa, M3_PER_LITRE, PA_PER_KPA, showWithUnit, unitSystem } from "../units/index.js";
 import { MONTH_NAMES } from "./calendar.js";
-import { gaugePa } from "./context.js";
 import type { Plan } from "./planFile.js";
 import type { TrappedMonthRow } from "./results.js";
 import type { BaseSamples } from "./samples.js";

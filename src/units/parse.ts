@@ -95,6 +95,16 @@ export interface PointPressure {
   isGauge: boolean;
 }
 
+/** A point pressure as absolute Pa, at an atmosphere of `atmPa`. */
+export function absPa(p: PointPressure, atmPa: number): number {
+  return p.isGauge ? p.pa + atmPa : p.pa;
+}
+
+/** A point pressure as gauge Pa, at an atmosphere of `atmPa`. */
+export function gaugePa(p: PointPressure, atmPa: number): number {
+  return p.isGauge ? p.pa : p.pa - atmPa;
+}
+
 const POINT_PRESSURE_UNITS: Record<string, PointPressure> = {
   psig: { pa: PA_PER_PSI, isGauge: true },
   psia: { pa: PA_PER_PSI, isGauge: false },

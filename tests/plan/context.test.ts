@@ -3,8 +3,8 @@ import { describe, expect, it } from "vitest";
 import { gasLossMolPerS } from "../../src/physics/accumulator.js";
 import { tabulatedGas } from "../../src/physics/gasTable.js";
 import { idealGas, realGas } from "../../src/physics/nitrogen.js";
-import { absPa, ProfileContexts, profileContext } from "../../src/plan/context.js";
-import { S_PER_MONTH } from "../../src/units/index.js";
+import { ProfileContexts, profileContext } from "../../src/plan/context.js";
+import { absPa, S_PER_MONTH } from "../../src/units/index.js";
 import { ATM_PA, fixturePlan } from "./helpers.js";
 
 describe("gas loss of a profile", () => {

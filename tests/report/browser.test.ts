@@ -33,6 +33,13 @@ interface Visit {
   dialogs: string[];
 }
 
+/** Width and height, px, of every chart's drawing on the page. */
+async function chartSizes(page: Page): Promise<[number, number][]> {
+  return (await page.evaluate(
+    `[...document.querySelectorAll("figure.chart svg")].map((e) => { const r = e.getBoundingClientRect(); return [r.width, r.height]; })`,
+  )) as [number, number][];
+}
+
 /** Opens a file with every request but the file itself blocked and recorded. */
 async function visit(launched: LaunchedBrowser, file: string): Promise<Visit> {
   const page = await launched.browser.newPage();
@@ -83,9 +90,7 @@ describe.skipIf(SKIP)("report in a real browser", () => {
     const v = await visit(launched, htmlUs);
     expect(v.consoleErrors).toEqual([]);
     expect(v.blocked).toEqual([]);
-    const sizes = (await v.page.evaluate(
-      `[...document.querySelectorAll("figure.chart svg")].map((e) => { const r = e.getBoundingClientRect(); return [r.width, r.height]; })`,
-    )) as [number, number][];
+    const sizes = await chartSizes(v.page);
     expect(sizes.length).toBe(22); // 11 charts per base in the fixture (see structure test)
     for (const [w, h] of sizes) {
       expect(w).toBeGreaterThan(100);
@@ -280,9 +285,7 @@ describe.skipIf(SKIP)("screen page in a real browser", () => {
     const v = await visit(launched, page);
     expect(v.consoleErrors).toEqual([]);
     expect(v.blocked).toEqual([]);
-    const sizes = (await v.page.evaluate(
-      `[...document.querySelectorAll("figure.chart svg")].map((e) => { const r = e.getBoundingClientRect(); return [r.width, r.height]; })`,
-    )) as [number, number][];
+    const sizes = await chartSizes(v.page);
     expect(sizes.length).toBe(1); // the map
     for (const [w, h] of sizes) {
       expect(w).toBeGreaterThan(300);
