@@ -57,7 +57,7 @@ function nitrogenSamples(
   };
   return {
     base: withDays(kept),
-    outcomes: keepYear.map((yi) => outcomes[yi]!),
+    outcomes: outcomes.onYears(keepYear),
   };
 }
 

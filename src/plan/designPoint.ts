@@ -43,10 +43,13 @@ interface Drops {
 /** Overnight drops of the accumulator temperature per profile (index of `plan.profiles`), each stay once. */
 function dropsByProfile(plan: Plan, base: BaseSamples, outcomes: BaseOutcomes): Drops[] {
   const values = plan.profiles.map(() => [] as number[]);
+  const d = outcomes.drops;
   for (const gi of base.groupOfStay) {
     const list = values[base.groups[gi]!.profileIndex]!;
-    for (let yi = 0; yi < base.years.length; yi++)
-      for (const t of outcomes[yi]![gi]!.drops.tempC) list.push(t);
+    for (let yi = 0; yi < base.years.length; yi++) {
+      const o = outcomes.slot(yi, gi);
+      for (let i = d.at[o]!; i < d.at[o + 1]!; i++) list.push(d.tempC[i]!);
+    }
   }
   return values.map((v) => ({ typicalK: quantile(v, 0.5), p90K: quantile(v, 0.9) }));
 }

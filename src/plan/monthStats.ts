@@ -7,12 +7,12 @@
  * 1-in-30-year values (Gumbel, method of moments); the monthly climate of the whole record.
  */
 import { localClimatology } from "../climate/index.js";
-import { ABOVE, BELOW, marginPct, SHORT_ONE, SHORT_TWO } from "./keptOutcome.js";
+import { ABOVE, BELOW, marginPct, SHORT_ONE, SHORT_TWO } from "./baseOutcomes.js";
 import type { PlanCore } from "./planFile.js";
 import type { BaseResult, HourRow, MonthStatistics } from "./results.js";
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
-import { gumbelMinimumReturnLevel, mean, pct, quantile } from "./stats.js";
+import { gumbelMinimumReturnLevel, mean, pct, quantileOfSorted, sortedCopy } from "./stats.js";
 
 /** Return periods of the coldest-morning values, years. */
 export const RETURN_PERIODS_YEARS = { oneIn10: 10, oneIn30: 30 } as const;
@@ -81,12 +81,12 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
     coldestC: base.years.map(() => undefined),
     startsWithoutAmbient: 0,
   };
+  const { preflights: p, starts: s, drops: d, hourly: h } = outcomes;
   for (const gi of base.groupOfStay) {
     for (let yi = 0; yi < base.years.length; yi++) {
-      const o = outcomes[yi]![gi]!;
-      t.startsWithoutAmbient += o.startsWithoutAmbient;
-      const p = o.preflights;
-      for (let i = 0; i < p.month.length; i++) {
+      const o = outcomes.slot(yi, gi);
+      t.startsWithoutAmbient += outcomes.startsWithoutAmbient(o);
+      for (let i = p.at[o]!; i < p.at[o + 1]!; i++) {
         const a = t.months[p.month[i]!]!;
         a.preflights++;
         if (p.flags[i]! & BELOW) a.below++;
@@ -94,11 +94,10 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
         a.gasKPaGauge.push(p.gasKPaGauge[i]!);
         a.readingPct.push(p.readingPct[i]!);
       }
+      const coldest = outcomes.coldestAmbientC(o);
       const c = t.coldestC[yi];
-      if (p.coldestAmbientC !== undefined && (c === undefined || p.coldestAmbientC < c))
-        t.coldestC[yi] = p.coldestAmbientC;
-      const s = o.starts;
-      for (let i = 0; i < s.month.length; i++) {
+      if (coldest < Number.POSITIVE_INFINITY && (c === undefined || coldest < c)) t.coldestC[yi] = coldest;
+      for (let i = s.at[o]!; i < s.at[o + 1]!; i++) {
         const a = t.months[s.month[i]!]!;
         a.starts++;
         if (s.flags[i]! & SHORT_ONE) a.shortOne++;
@@ -106,15 +105,13 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
         a.marginOnePct.push(marginPct(s.energyOneJ[i]!, s.requiredJ[i]!));
         a.marginTwoPct.push(marginPct(s.energyTwoJ[i]!, s.requiredJ[i]!));
       }
-      const d = o.drops;
-      for (let i = 0; i < d.month.length; i++) {
+      for (let i = d.at[o]!; i < d.at[o + 1]!; i++) {
         const a = t.months[d.month[i]!]!;
         a.dropTempC.push(d.tempC[i]!);
         a.dropKPa.push(d.gasKPa[i]!);
         a.dropReadingPct.push(d.readingPct[i]!);
       }
-      const h = o.hourly;
-      for (let k = 0; k < h.cell.length; k++) {
+      for (let k = h.at[o]!; k < h.at[o + 1]!; k++) {
         const i = h.cell[k]!;
         t.hourReadings[i % 24]! += h.readings[k]!;
         t.hourOutOfBand[i % 24]! += h.outOfBand[k]!;
@@ -126,7 +123,9 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
   return t;
 }
 
-const q = (v: number[], p: number): number | null => (v.length > 0 ? quantile(v, p) : null);
+/** The values sorted once, for several quantiles of them. */
+const sorted = (v: number[]) => sortedCopy(v);
+const q = quantileOfSorted;
 
 /**
  * The local hours of day of a month whose hourly what-if readings are most often out of band (worst
@@ -148,6 +147,13 @@ function worstHours(readings: number[], outOfBand: number[], month: number): num
 /** One month's row; the daily range only in months with preflights. */
 function monthRow(month: number, a: MonthTally, dailyRangesC: number[], t: BaseTally): MonthStatistics {
   const has = a.preflights > 0;
+  const gas = sorted(a.gasKPaGauge);
+  const reading = sorted(a.readingPct);
+  const dropTemp = sorted(a.dropTempC);
+  const dropKPa = sorted(a.dropKPa);
+  const dropReading = sorted(a.dropReadingPct);
+  const marginOne = sorted(a.marginOnePct);
+  const marginTwo = sorted(a.marginTwoPct);
   return {
     month,
     preflights: a.preflights,
@@ -156,25 +162,25 @@ function monthRow(month: number, a: MonthTally, dailyRangesC: number[], t: BaseT
     outOfBandPct: has ? pct(a.below + a.above, a.preflights) : null,
     shortPctOne: pct(a.shortOne, a.starts),
     shortPctTwo: pct(a.shortTwo, a.starts),
-    morningKPaGaugeP10: q(a.gasKPaGauge, 0.1),
-    morningKPaGaugeP50: q(a.gasKPaGauge, 0.5),
-    morningKPaGaugeP90: q(a.gasKPaGauge, 0.9),
-    morningReadingPctP10: q(a.readingPct, 0.1),
-    morningReadingPctP50: q(a.readingPct, 0.5),
-    morningReadingPctP90: q(a.readingPct, 0.9),
+    morningKPaGaugeP10: q(gas, 0.1),
+    morningKPaGaugeP50: q(gas, 0.5),
+    morningKPaGaugeP90: q(gas, 0.9),
+    morningReadingPctP10: q(reading, 0.1),
+    morningReadingPctP50: q(reading, 0.5),
+    morningReadingPctP90: q(reading, 0.9),
     overnightDropTempMeanC: mean(a.dropTempC),
-    overnightDropTempP90C: q(a.dropTempC, 0.9),
+    overnightDropTempP90C: q(dropTemp, 0.9),
     overnightDropKPaMean: mean(a.dropKPa),
-    overnightDropKPaP90: q(a.dropKPa, 0.9),
+    overnightDropKPaP90: q(dropKPa, 0.9),
     overnightDropReadingMeanPct: mean(a.dropReadingPct),
-    overnightDropReadingP90Pct: q(a.dropReadingPct, 0.9),
+    overnightDropReadingP90Pct: q(dropReading, 0.9),
     dailyRangeMeanC: has ? mean(dailyRangesC) : null,
-    dailyRangeP90C: has ? q(dailyRangesC, 0.9) : null,
+    dailyRangeP90C: has ? q(sorted(dailyRangesC), 0.9) : null,
     starts: a.starts,
-    energyMarginOneP10Pct: q(a.marginOnePct, 0.1),
-    energyMarginOneP50Pct: q(a.marginOnePct, 0.5),
-    energyMarginTwoP10Pct: q(a.marginTwoPct, 0.1),
-    energyMarginTwoP50Pct: q(a.marginTwoPct, 0.5),
+    energyMarginOneP10Pct: q(marginOne, 0.1),
+    energyMarginOneP50Pct: q(marginOne, 0.5),
+    energyMarginTwoP10Pct: q(marginTwo, 0.1),
+    energyMarginTwoP50Pct: q(marginTwo, 0.5),
     outOfBandWorstHours: worstHours(t.monthHourReadings, t.monthHourOutOfBand, month),
   };
 }
@@ -281,9 +287,9 @@ export function monthlyColdestMornings(base: BaseSamples, outcomes: BaseOutcomes
   const byMonth = Array.from({ length: 13 }, () => [] as number[]);
   for (let yi = 0; yi < base.years.length; yi++) {
     const coldest = new Array<number>(13).fill(Number.POSITIVE_INFINITY);
-    for (const o of outcomes[yi]!)
+    for (let gi = 0; gi < outcomes.groups; gi++)
       for (let m = 1; m <= 12; m++)
-        coldest[m] = Math.min(coldest[m]!, o.preflights.coldestAmbientByMonthC[m]!);
+        coldest[m] = Math.min(coldest[m]!, outcomes.coldestAmbientInMonthC(outcomes.slot(yi, gi), m));
     for (let m = 1; m <= 12; m++) if (Number.isFinite(coldest[m]!)) byMonth[m]!.push(coldest[m]!);
   }
   return byMonth.slice(1).map((minima, i) => ({

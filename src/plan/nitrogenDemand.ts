@@ -161,7 +161,7 @@ export function servicingEvents(
   const events: FillEvent[] = [];
   for (const [si, gi] of base.groupOfStay.entries()) {
     const v0M3 = plan.profiles[base.groups[gi]!.profileIndex]!.accumulator.gasVolumeEmpty;
-    for (const e of outcomes[yi]![gi]!.nitrogen) {
+    for (const e of outcomes.nitrogen(outcomes.slot(yi, gi))) {
       events.push({
         cause: "servicing",
         realDay: cal.realDay[gi]![e.day]!,

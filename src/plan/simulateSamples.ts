@@ -8,8 +8,8 @@ import { tabulatedGas } from "../physics/gasTable.js";
 import type { GasModel } from "../physics/nitrogen.js";
 import { realGas } from "../physics/nitrogen.js";
 import type { HangarAir } from "./air.js";
+import { type BaseOutcomes, OutcomesBuilder } from "./baseOutcomes.js";
 import { ProfileContexts } from "./context.js";
-import { type KeptOutcome, keptOutcome } from "./keptOutcome.js";
 import type { HangarInput, Plan, PlanCore } from "./planFile.js";
 import type { BaseSamples, PreparedBase } from "./samples.js";
 import { type SimInputs, type SimOutcome, simulateStayYear } from "./simulate.js";
@@ -40,8 +40,7 @@ export interface Simulator<P extends PlanCore = Plan> {
   onProgress: RunOptions["onProgress"];
 }
 
-/** What is kept of each group on each usable year of a base: `outcomes[yearIndex][groupIndex]`. */
-export type BaseOutcomes = KeptOutcome[][];
+export type { BaseOutcomes } from "./baseOutcomes.js";
 
 export function simulator<P extends PlanCore>(
   plan: P,
@@ -112,11 +111,11 @@ function locatedPhysicsError(
  * year are held at a time); a window not usable on a year gets an empty outcome (no records).
  */
 export function simulateBase(sim: Simulator<PlanCore>, base: BaseSamples): BaseOutcomes {
-  const outcomes: BaseOutcomes = base.years.map(() => []);
+  const outcomes = new OutcomesBuilder(base.years.length, base.groups.length);
   for (let yi = 0; yi < base.years.length; yi++) {
     for (let gi = 0; gi < base.groups.length; gi++) {
       if (!base.usable[yi]![gi]) {
-        outcomes[yi]![gi] = keptOutcome(emptyOutcome());
+        outcomes.add(yi, gi, emptyOutcome());
         continue;
       }
       const t0 = performance.now();
@@ -127,11 +126,11 @@ export function simulateBase(sim: Simulator<PlanCore>, base: BaseSamples): BaseO
         throw locatedPhysicsError(sim, base, gi, yi, err);
       }
       sim.stats.simulationS += (performance.now() - t0) / 1000;
-      outcomes[yi]![gi] = keptOutcome(o);
+      outcomes.add(yi, gi, o);
       sim.stats.accumulatorHours += o.accumulatorHours;
       sim.stats.stayYearsSimulated++;
       sim.onProgress?.(sim.stats.stayYearsSimulated, sim.total);
     }
   }
-  return outcomes;
+  return outcomes.done();
 }

@@ -8,15 +8,15 @@ import { quantileSorted, sampleStandardDeviation, mean as ssMean } from "simple-
 export const QUANTILE_METHOD =
   "linear interpolation between order statistics (Hyndman & Fan 1996, type 7; simple-statistics quantileSorted)";
 
-/** Sorts a copy ascending (numbers, not strings). */
-export function sortedCopy(values: ArrayLike<number>): number[] {
-  return Array.from(values).sort((a, b) => a - b);
+/** Sorts a copy ascending (numbers, not strings; as 64-bit floats, in native code). */
+export function sortedCopy(values: ArrayLike<number>): Float64Array {
+  return Float64Array.from(values).sort();
 }
 
 /** Quantile p (0–1) of the values, or null for an empty sample. */
 export function quantile(values: ArrayLike<number>, p: number): number | null {
   if (values.length === 0) return null;
-  return quantileSorted(sortedCopy(values), p);
+  return quantileOfSorted(sortedCopy(values), p);
 }
 
 /** Quantile p (0–1) of values already sorted ascending, by the same method, or null for an empty sample. */

@@ -9,15 +9,10 @@
  * the usable gas, the stock and the timeline come from `nitrogenStock.ts`.
  */
 import { type GasModel, N2_MOLAR_MASS_KG_MOL } from "../physics/nitrogen.js";
-import {
-  type Cylinder,
-  cascadeFill,
-  drawFromCylinders,
-  fullCylinder,
-  type SupplySpec,
-} from "../physics/supply.js";
+import type { SupplySpec } from "../physics/supply.js";
 import { absPa, N2_NORMAL_DENSITY_KG_M3, STANDARD_ATMOSPHERE_PA } from "../units/index.js";
 import type { ProfileContext } from "./context.js";
+import { CylinderPool } from "./cylinderPool.js";
 import {
   type BaseCalendar,
   baseCalendar,
@@ -35,65 +30,6 @@ import type { NitrogenBase, NitrogenFlows, NitrogenSample, NitrogenStay } from "
 import type { BaseSamples } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 import { quantile, sortedCopy } from "./stats.js";
-
-const MAX_CYLINDERS_PER_EVENT = 20;
-
-/** The cylinders of one sample at a base: the pool, the count opened, the events it could not meet. */
-class CylinderPool {
-  cylinders: Cylinder[] = [];
-  opened = 0;
-  unreachable = 0;
-
-  constructor(
-    private readonly model: GasModel,
-    private readonly spec: SupplySpec,
-  ) {}
-
-  /** Opens one more full cylinder. */
-  private open(): void {
-    this.cylinders = [...this.cylinders, fullCylinder(this.model, this.spec)];
-    this.opened++;
-  }
-
-  /**
-   * One accumulator from fromMol toward toMol through the cascade, opening cylinders while the pool
-   * cannot reach the target. Returns the gas added to it and vented from the hose, mol.
-   */
-  fill(v0M3: number, fromMol: number, toMol: number, tempK: number): { addedMol: number; hoseMol: number } {
-    let from = fromMol;
-    let hoseMol = 0;
-    for (let k = 0; k <= MAX_CYLINDERS_PER_EVENT; k++) {
-      const r = cascadeFill(this.model, this.cylinders, v0M3, from, toMol, tempK, this.spec);
-      this.cylinders = r.cylinders;
-      hoseMol += r.ventedMol;
-      from += r.addedMol;
-      if (r.reachedTarget) break;
-      if (k === MAX_CYLINDERS_PER_EVENT || (k > 0 && r.addedMol <= 0)) {
-        this.unreachable++;
-        break;
-      }
-      this.open();
-    }
-    return { addedMol: from - fromMol, hoseMol };
-  }
-
-  /** An amount for another use, down to the floor pressure, opening cylinders as needed. Returns mol drawn. */
-  draw(amountMol: number, floorAbsPa: number, tempK: number): number {
-    let left = amountMol;
-    for (let k = 0; k <= MAX_CYLINDERS_PER_EVENT; k++) {
-      const r = drawFromCylinders(this.model, this.cylinders, left, floorAbsPa, tempK);
-      this.cylinders = r.cylinders;
-      left -= r.drawnMol;
-      if (r.reachedAmount) break;
-      if (k === MAX_CYLINDERS_PER_EVENT || (k > 0 && r.drawnMol <= 0)) {
-        this.unreachable++;
-        break;
-      }
-      this.open();
-    }
-    return amountMol - left;
-  }
-}
 
 /** One sample of a base through the cascade. Per stay (index) in mol; drawn = added + hose + other uses. */
 export interface CascadeSample {
@@ -200,12 +136,13 @@ interface Replay {
   unreachable: number;
 }
 
-/** The figures of stay `si` in one sample (kg and counts). */
+/** The figures of stay `si` in one sample (kg and counts); `slot` is its simulated outcome's. */
 function stayFigures(
   c: CascadeSample,
   si: number,
   released: { mol: Float64Array; count: Int32Array },
-  outcome: BaseOutcomes[number][number],
+  outcomes: BaseOutcomes,
+  slot: number,
 ): Record<Key, number> {
   const addedServicing = kgOf(c.addedServicingMol[si]!);
   const addedUnscheduled = kgOf(c.addedUnscheduledMol[si]!);
@@ -219,10 +156,10 @@ function stayFigures(
     addedUnscheduled,
     hoseVented,
     otherUse,
-    released: kgOf(outcome.ventedMol + released.mol[si]!),
-    servicings: outcome.servicings,
-    checks: outcome.checks,
-    strokes: outcome.handPumpStrokes,
+    released: kgOf(outcomes.ventedMol(slot) + released.mol[si]!),
+    servicings: outcomes.servicings(slot),
+    checks: outcomes.checks(slot),
+    strokes: outcomes.handPumpStrokes(slot),
     unscheduled: released.count[si]!,
     cylinders: 0,
   };
@@ -267,7 +204,7 @@ function replaySamples(
         number
       >;
       for (const [si, gi] of base.groupOfStay.entries()) {
-        const f = stayFigures(c, si, released, outcomes[yi]![gi]!);
+        const f = stayFigures(c, si, released, outcomes, outcomes.slot(yi, gi));
         push(r.perStay[si]!, f);
         for (const k of [...FLOW_KEYS, ...COUNT_KEYS]) total[k] += f[k];
       }

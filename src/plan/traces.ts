@@ -22,28 +22,46 @@ interface DropRef {
   drop: Pick<DropRecord, "readingPct" | "day" | "rechargeUtcMs">;
 }
 
-/** Every drop of every group on every year, ascending by drop in reading (ties: year, group, day). */
-function sortedDrops(base: BaseSamples, outcomes: BaseOutcomes): DropRef[] {
-  const refs: DropRef[] = [];
+/**
+ * Every drop of every group on every year as indices into the drop columns, ascending by drop in
+ * reading (ties: year, group, day), with the year and group of each drop.
+ */
+function sortedDrops(base: BaseSamples, outcomes: BaseOutcomes) {
+  const d = outcomes.drops;
+  const n = d.readingPct.length;
+  const year = new Int32Array(n);
+  const group = new Int32Array(n);
+  const order: number[] = [];
   for (let yi = 0; yi < base.years.length; yi++) {
     for (let gi = 0; gi < base.groups.length; gi++) {
-      const d = outcomes[yi]![gi]!.drops;
-      for (let i = 0; i < d.day.length; i++) {
-        refs.push({
-          groupIndex: gi,
-          yearIndex: yi,
-          drop: { readingPct: d.readingPct[i]!, day: d.day[i]!, rechargeUtcMs: d.rechargeUtcMs[i]! },
-        });
+      const o = outcomes.slot(yi, gi);
+      for (let i = d.at[o]!; i < d.at[o + 1]!; i++) {
+        year[i] = yi;
+        group[i] = gi;
+        order.push(i);
       }
     }
   }
-  return refs.sort(
+  order.sort(
     (a, b) =>
-      a.drop.readingPct - b.drop.readingPct ||
-      a.yearIndex - b.yearIndex ||
-      a.groupIndex - b.groupIndex ||
-      a.drop.day - b.drop.day,
+      d.readingPct[a]! - d.readingPct[b]! ||
+      year[a]! - year[b]! ||
+      group[a]! - group[b]! ||
+      d.day[a]! - d.day[b]!,
   );
+  /** The drop at `rank` of the order, or undefined past its end. */
+  return {
+    length: order.length,
+    at(rank: number): DropRef | undefined {
+      const i = order[rank];
+      if (i === undefined) return undefined;
+      return {
+        groupIndex: group[i]!,
+        yearIndex: year[i]!,
+        drop: { readingPct: d.readingPct[i]!, day: d.day[i]!, rechargeUtcMs: d.rechargeUtcMs[i]! },
+      };
+    },
+  };
 }
 
 function trace(sim: Simulator, base: BaseSamples, ref: DropRef | undefined, label: string): Trace | null {
@@ -84,9 +102,9 @@ export function overnightTraces(
     typical: trace(
       sim,
       base,
-      drops[Math.floor((drops.length - 1) / 2)],
+      drops.at(Math.floor((drops.length - 1) / 2)),
       "typical (median overnight drop in reading)",
     ),
-    worst: trace(sim, base, drops[drops.length - 1], "worst (largest overnight drop in reading)"),
+    worst: trace(sim, base, drops.at(drops.length - 1), "worst (largest overnight drop in reading)"),
   };
 }

@@ -33,13 +33,13 @@ export function trappedChargeMonths(
     const profile = plan.profiles[base.groups[gi]!.profileIndex]!;
     const limitAbsPa = atmPa + OVER_HIGH_WARNING_RATIO * gaugePa(profile.system.high, atmPa);
     for (let yi = 0; yi < base.years.length; yi++) {
-      const o = outcomes[yi]![gi]!;
-      for (const r of o.reliefs) {
+      const o = outcomes.slot(yi, gi);
+      for (const r of outcomes.reliefs(o)) {
         events[r.month]!++;
         relievedM3[r.month]! += r.relievedM3;
       }
       for (let m = 1; m <= 12; m++) {
-        const p = o.peakTrappedAbsPa[m]!;
+        const p = outcomes.peakTrappedAbsPa(o, m);
         if (p > peakAbsPa[m]! || (Number.isNaN(peakAbsPa[m]!) && !Number.isNaN(p))) peakAbsPa[m] = p;
         const worst = overLimit[m] ?? null;
         if (profile.reliefPressure === undefined && p > limitAbsPa && (worst === null || p > worst.peakAbsPa))

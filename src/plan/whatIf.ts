@@ -7,9 +7,10 @@
  * whole run). The energy variants change no state: they are the baseline's starts against the scaled
  * requirement. Pure: the same inputs give the same figures, on a worker thread or not.
  */
+
+import { ABOVE, BELOW } from "./baseOutcomes.js";
 import type { ProfileContext } from "./context.js";
 import { ProfileContexts } from "./context.js";
-import { ABOVE, BELOW } from "./keptOutcome.js";
 import type { Plan } from "./planFile.js";
 import type { BaseResult, WhatIfBase, WhatIfShares, WhatIfVariantRow } from "./results.js";
 import { type BaseClimate, type BaseSamples, flownWeekdays, prepareBase, withDays } from "./samples.js";
@@ -79,19 +80,18 @@ function tally(
     shortOne: 0,
     shortTwo: 0,
   }));
+  const { preflights: p, starts: s } = outcomes;
   for (const gi of base.groupOfStay) {
     for (let yi = 0; yi < base.years.length; yi++) {
-      const o = outcomes[yi]![gi]!;
-      const p = o.preflights;
-      for (let i = 0; i < p.month.length; i++) {
+      const o = outcomes.slot(yi, gi);
+      for (let i = p.at[o]!; i < p.at[o + 1]!; i++) {
         if (p.month[i] !== month) continue;
         for (const t of out) {
           t.preflights++;
           if (p.flags[i]! & (BELOW | ABOVE)) t.outOfBand++;
         }
       }
-      const s = o.starts;
-      for (let i = 0; i < s.month.length; i++) {
+      for (let i = s.at[o]!; i < s.at[o + 1]!; i++) {
         if (s.month[i] !== month) continue;
         const requiredJ = s.requiredJ[i]!;
         factors.forEach((f, k) => {

@@ -4,8 +4,9 @@
  * that drives a status is events over counts of these; kept year by year, they give the share's
  * spread across years and its bootstrap interval (`bootstrap.ts`), for a base-month or a stay-month.
  */
+
+import { ABOVE, BELOW, SHORT_ONE, SHORT_TWO } from "./baseOutcomes.js";
 import { bootstrapResamples, pooledShareInterval, yearSpread } from "./bootstrap.js";
-import { ABOVE, BELOW, SHORT_ONE, SHORT_TWO } from "./keptOutcome.js";
 import type { Confidence } from "./results.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
 import { pct } from "./stats.js";
@@ -46,18 +47,17 @@ function emptyYear(): MonthCounts[] {
 
 /** The counts of group `gi` on each of the base's years (an unusable year counts nothing). */
 export function groupCounts(outcomes: BaseOutcomes, gi: number): CountTable {
-  return outcomes.map((yearOutcomes) => {
-    const o = yearOutcomes[gi]!;
+  const { preflights: p, starts: s } = outcomes;
+  return Array.from({ length: outcomes.years }, (_y, yi) => {
+    const o = outcomes.slot(yi, gi);
     const year = emptyYear();
-    const p = o.preflights;
-    for (let i = 0; i < p.month.length; i++) {
+    for (let i = p.at[o]!; i < p.at[o + 1]!; i++) {
       const c = year[p.month[i]!]!;
       c.preflights++;
       if (p.flags[i]! & BELOW) c.below++;
       if (p.flags[i]! & ABOVE) c.above++;
     }
-    const s = o.starts;
-    for (let i = 0; i < s.month.length; i++) {
+    for (let i = s.at[o]!; i < s.at[o + 1]!; i++) {
       const c = year[s.month[i]!]!;
       c.starts++;
       if (s.flags[i]! & SHORT_ONE) c.shortOne++;
