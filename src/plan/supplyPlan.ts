@@ -100,16 +100,18 @@ export const FLOW_KEYS = [
 const COUNT_KEYS = ["servicings", "checks", "strokes", "unscheduled", "cylinders"] as const;
 type Key = (typeof FLOW_KEYS)[number] | (typeof COUNT_KEYS)[number];
 
-/** One value per sample of every figure (flows in kg, counts). */
-type Columns = Record<Key, number[]>;
+const KEYS: readonly Key[] = [...FLOW_KEYS, ...COUNT_KEYS];
 
-function emptyColumns(): Columns {
-  return Object.fromEntries([...FLOW_KEYS, ...COUNT_KEYS].map((k) => [k, []])) as unknown as Columns;
+/** One value per sample of every figure (flows in kg, counts), index: the sample's. */
+type Columns = Record<Key, Float64Array>;
+
+function emptyColumns(samples: number): Columns {
+  return Object.fromEntries(KEYS.map((k) => [k, new Float64Array(samples)])) as unknown as Columns;
 }
 
-/** Adds one sample's figures to columns. */
-function push(c: Columns, figures: Record<Key, number>): void {
-  for (const k of [...FLOW_KEYS, ...COUNT_KEYS]) c[k].push(figures[k]);
+/** Puts one sample's figures in the columns. */
+function put(c: Columns, sample: number, figures: Record<Key, number>): void {
+  for (const k of KEYS) c[k][sample] = figures[k];
 }
 
 const kgOf = (mol: number): number => mol * N2_MOLAR_MASS_KG_MOL;
@@ -177,9 +179,10 @@ function replaySamples(
   const { plan, model } = sim;
   const spec = supplySpec(plan);
   const nStays = base.stays.length;
+  const samples = base.years.length * draws;
   const r: Replay = {
-    perStay: base.stays.map(emptyColumns),
-    totals: emptyColumns(),
+    perStay: base.stays.map(() => emptyColumns(samples)),
+    totals: emptyColumns(samples),
     drawnKgByDay: [],
     samples: [],
     unreachable: 0,
@@ -199,17 +202,15 @@ function replaySamples(
         released.mol[e.stay]! += (e.toMol - e.fromMol) * e.units;
         released.count[e.stay]!++;
       }
-      const total = Object.fromEntries([...FLOW_KEYS, ...COUNT_KEYS].map((k) => [k, 0])) as Record<
-        Key,
-        number
-      >;
+      const sample = yi * draws + draw;
+      const total = Object.fromEntries(KEYS.map((k) => [k, 0])) as Record<Key, number>;
       for (const [si, gi] of base.groupOfStay.entries()) {
         const f = stayFigures(c, si, released, outcomes, outcomes.slot(yi, gi));
-        push(r.perStay[si]!, f);
-        for (const k of [...FLOW_KEYS, ...COUNT_KEYS]) total[k] += f[k];
+        put(r.perStay[si]!, sample, f);
+        for (const k of KEYS) total[k] += f[k];
       }
       total.cylinders = c.cylindersOpened;
-      push(r.totals, total);
+      put(r.totals, sample, total);
       r.drawnKgByDay.push(c.drawnMolByDay.map(kgOf));
       r.samples.push({ climateYear: base.years[yi]!, draw, kg: total.drawn });
     }
@@ -217,8 +218,8 @@ function replaySamples(
   return r;
 }
 
-const q0 = (v: number[], p: number) => quantile(v, p) ?? 0;
-const mean = (v: number[]) => (v.length === 0 ? 0 : v.reduce((a, b) => a + b, 0) / v.length);
+const q0 = (v: Float64Array, p: number) => quantile(v, p) ?? 0;
+const mean = (v: Float64Array) => (v.length === 0 ? 0 : v.reduce((a, b) => a + b, 0) / v.length);
 
 /** Mean flows of columns, kg. */
 function meanFlows(c: Columns): NitrogenFlows {
