@@ -7,7 +7,16 @@
  */
 import type { AircraftAction, Results } from "../../plan/results.js";
 import { formatDisplay, pct, show, type UnitSystem } from "../../units/index.js";
-import { baseAnchor, MONTHS, monthName, pctInterval, type StatusCell, statusCell } from "../shared.js";
+import {
+  type BaseHref,
+  baseAnchor,
+  MONTHS,
+  monthName,
+  pctInterval,
+  type StatusCell,
+  samePage,
+  statusCell,
+} from "../shared.js";
 
 export interface GlanceLine {
   text: string;
@@ -17,7 +26,8 @@ export interface GlanceLine {
 
 export interface GlanceView {
   months: string[];
-  rows: { base: string; anchor: string; cells: StatusCell[] }[];
+  /** Each base's row; `href` links to its part of the report (a fragment, or its page in a split report). */
+  rows: { base: string; anchor: string; href: string; cells: StatusCell[] }[];
   engineer: GlanceLine[];
   planner: GlanceLine[];
   logistics: GlanceLine[];
@@ -81,7 +91,7 @@ function hoursText(hours: number[]): string {
 }
 
 /** The planner's lines: per base, the months above the out-of-band threshold and their worst hours of day. */
-function plannerLines(results: Results): GlanceLine[] {
+function plannerLines(results: Results, href: BaseHref): GlanceLine[] {
   const limit = results.thresholds.outOfBandPct;
   const out: GlanceLine[] = [];
   for (const [i, b] of results.bases.entries()) {
@@ -93,7 +103,7 @@ function plannerLines(results: Results): GlanceLine[] {
     );
     out.push({
       text: `${b.name}: first preflights out of band in ${items.join("; ")} — allow servicing time and brief technicians on the overnight drop.`,
-      href: `#${sectionId(baseAnchor(i), "hours")}`,
+      href: href(i, sectionId(baseAnchor(i), "hours")),
       link: `${b.name}, out of band by hour`,
     });
   }
@@ -128,7 +138,8 @@ function logisticsLines(results: Results, u: UnitSystem): GlanceLine[] {
   ];
 }
 
-export function glanceSection(results: Results, u: UnitSystem): GlanceView {
+/** The first screen; `href` places each base's part (the same page by default). */
+export function glanceSection(results: Results, u: UnitSystem, href: BaseHref = samePage): GlanceView {
   return {
     months: MONTHS,
     rows: results.bases.map((b, i) => {
@@ -136,6 +147,7 @@ export function glanceSection(results: Results, u: UnitSystem): GlanceView {
       return {
         base: b.name,
         anchor: baseAnchor(i),
+        href: href(i),
         cells: MONTHS.map((_n, k) => {
           const m = byMonth.get(k + 1);
           return m
@@ -153,7 +165,7 @@ export function glanceSection(results: Results, u: UnitSystem): GlanceView {
       };
     }),
     engineer: engineerLines(results.actions),
-    planner: plannerLines(results),
+    planner: plannerLines(results, href),
     logistics: logisticsLines(results, u),
   };
 }
