@@ -19,6 +19,12 @@ export const MAX_BASES_IN_ONE_FILE = 12;
  */
 export const MAX_LIST_ROWS = 250;
 
+/**
+ * At most this many stays named in one line of the first screen (the engineer's "fit the option: …"
+ * and the like); the line then says how many more there are, all in the aircraft actions.
+ */
+export const MAX_LINE_ITEMS = 25;
+
 /** The folder of the base pages, beside `report.html`. */
 export const BASE_PAGE_DIR = "bases";
 

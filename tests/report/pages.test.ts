@@ -2,7 +2,12 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runPlanCommand } from "../../src/cli/planRun.js";
 import type { Results } from "../../src/plan/results.js";
 import { renderReport, writeReport } from "../../src/report/index.js";
-import { basePagePath, MAX_BASES_IN_ONE_FILE, MAX_LIST_ROWS } from "../../src/report/split.js";
+import {
+  basePagePath,
+  MAX_BASES_IN_ONE_FILE,
+  MAX_LINE_ITEMS,
+  MAX_LIST_ROWS,
+} from "../../src/report/split.js";
 import { planText, useClimateRoot } from "../cli/planCase.js";
 import { type Element, elements, inner, textOf, tokenize } from "./html.js";
 
@@ -198,8 +203,9 @@ describe("report of many bases", () => {
     const rows = MAX_LIST_ROWS + 7;
     const copies = Math.ceil(rows / one.actions.length);
     const long = copiesOf(one, [one.bases[0]!.name]);
+    // Every stay to be fitted, so that the engineer's line names more stays than it shows.
     long.actions = Array.from({ length: copies }, (_, k) =>
-      one.actions.map((a) => ({ ...a, aircraft: `${a.aircraft}~${k + 1}~` })),
+      one.actions.map((a) => ({ ...a, action: "fit" as const, aircraft: `${a.aircraft}~${k + 1}~` })),
     ).flat();
     long.stays = Array.from({ length: copies }, () => one.stays).flat();
     const html = await renderReport(long);
@@ -213,5 +219,11 @@ describe("report of many bases", () => {
     expect(p.text(p.els.find((e) => e.attrs["class"] === "note more")!)).toContain(
       `${long.actions.length - MAX_LIST_ROWS} more rows in aircraft_actions.csv`,
     );
+    const engineer = p.els.find((e) => e.name === "h3" && p.text(e).startsWith("Engineer"))!;
+    const line = p.text(elements(tokenize(html).slice(engineer.index)).find((e) => e.name === "li")!);
+    expect(line).toContain(
+      `; and ${long.actions.length - MAX_LINE_ITEMS} more, all in aircraft_actions.csv.`,
+    );
+    expect(line.split("; ")).toHaveLength(MAX_LINE_ITEMS + 1);
   });
 });
