@@ -9,7 +9,7 @@ import {
   MAX_LIST_ROWS,
 } from "../../src/report/split.js";
 import { planText, useClimateRoot } from "../cli/planCase.js";
-import { type Element, elements, inner, textOf, tokenize } from "./html.js";
+import { type Element, elements, inner, nestingProblem, textOf, tokenize } from "./html.js";
 
 // A split report built from the results of a small generated plan (one base on the synthetic climate
 // of tests/cli/planCase.ts), its base copied under other names, hostile ones among them. Structure and
@@ -88,6 +88,21 @@ describe("report of many bases", () => {
   it("writes the overview, then one page per base named by its position", () => {
     expect(written).toEqual(["report.html", ...NAMES.map((_n, i) => basePagePath(i))]);
     expect([...files.keys()]).toEqual(written);
+  });
+
+  it("writes every page as one balanced, self-contained HTML document", () => {
+    for (const [name, html] of files) {
+      const tokens = tokenize(html);
+      expect(nestingProblem(tokens), name).toBeNull();
+      const els = elements(tokens);
+      expect(
+        els.filter((e) => e.name === "style"),
+        name,
+      ).toHaveLength(1);
+      expect(
+        els.filter((e) => ["script", "link", "img", "iframe", "object", "embed"].includes(e.name)),
+      ).toEqual([]);
+    }
   });
 
   it("links every base from the overview to a page that exists, and every link resolves", () => {
