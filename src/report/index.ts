@@ -152,5 +152,3 @@ export async function renderReport(results: Results): Promise<string> {
   const view = await withChartBatch(() => buildView(results, { generatedAt }));
   return pageTemplate("report", false)(view);
 }
-
-export { type ReportFileWriter, writeReport } from "./pages.js";

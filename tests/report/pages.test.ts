@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runPlanCommand } from "../../src/cli/planRun.js";
 import type { Results } from "../../src/plan/results.js";
-import { renderReport, writeReport } from "../../src/report/index.js";
+import { renderReport } from "../../src/report/index.js";
+import { writeReport } from "../../src/report/pages.js";
 import {
   basePagePath,
   MAX_BASES_IN_ONE_FILE,
