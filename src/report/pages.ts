@@ -6,7 +6,7 @@
  * whatever the number of bases.
  */
 import type { Results } from "../plan/results.js";
-import { unitSystem } from "../units/index.js";
+import { formatDisplay, unitSystem } from "../units/index.js";
 import { withChartBatch } from "./chartBatch.js";
 import { generationTime, pageTemplate, renderReport } from "./index.js";
 import { type ActionRowView, actionsSection } from "./sections/actions.js";
@@ -47,7 +47,7 @@ export async function basePageView(results: Results, i: number, options: ViewOpt
   return {
     ...pageHeader(results, options, u),
     base: await withChartBatch(() => buildBase(ctx)),
-    position: `${i + 1} of ${count}`,
+    position: `${formatDisplay(i + 1, 0)} of ${formatDisplay(count, 0)}`,
     overview: "../report.html",
     previous: i > 0 ? basePageName(i - 1) : "",
     next: i + 1 < count ? basePageName(i + 1) : "",
