@@ -22,6 +22,12 @@ import {
   type ViewOptions,
 } from "./view.js";
 
+/**
+ * Base pages built ahead of the one being written: memory holds at most PAGES_AHEAD + 1 pages' views
+ * and charts, whatever the number of bases.
+ */
+export const PAGES_AHEAD = 1;
+
 /** Writes one file of the report: `name` is relative to the report's folder ("report.html", "bases/001.html"). */
 export type ReportFileWriter = (name: string, text: string) => Promise<void>;
 
@@ -74,7 +80,21 @@ export async function writeReport(results: Results, write: ReportFileWriter): Pr
   };
   await put("report.html", pageTemplate("report", true)(overviewView(results, options)));
   const page = pageTemplate("basePage", true);
-  for (let i = 0; i < results.bases.length; i++)
-    await put(basePagePath(i), page(await basePageView(results, i, options)));
+  // The next PAGES_AHEAD pages are built (their charts queued to the chart workers) while a page is
+  // awaited and written, so that the workers never wait for the next page's charts.
+  const ahead: (Promise<BasePageView> | undefined)[] = [];
+  const start = (i: number) => {
+    if (i >= results.bases.length) return;
+    const view = basePageView(results, i, options);
+    view.catch(() => undefined); // awaited in order below; a failure is thrown there
+    ahead[i] = view;
+  };
+  for (let i = 0; i <= PAGES_AHEAD; i++) start(i);
+  for (let i = 0; i < results.bases.length; i++) {
+    const view = await ahead[i]!;
+    ahead[i] = undefined;
+    start(i + PAGES_AHEAD + 1);
+    await put(basePagePath(i), page(view));
+  }
   return written;
 }
