@@ -139,20 +139,21 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
   const names = whatIfNames(plan, opts.whatIf === true);
   const results = await withWhatIf(plan, stays, climate, plain, names, { onProgress: variants.update });
   variants.stop();
-  const out = new Map<string, string>();
-  out.set("results.json", resultsJson(results));
-  for (const t of resultTables(results)) out.set(`${t.name}.csv`, toCsv(t));
-  const reported: Results = { ...results, files: [...out.keys()] };
+  const tables = resultTables(results);
+  const reported: Results = { ...results, files: ["results.json", ...tables.map((t) => `${t.name}.csv`)] };
   let pdf: PlanRun["pdf"] = null;
-  const folder = await writeOutputFolder(resolve(opts.out), plan.name, out, {
-    // The report (one file, or the overview and its base pages written one at a time) and the PDF are
-    // written inside the new folder before it is made visible: they are part of the swap.
+  const folder = await writeOutputFolder(resolve(opts.out), plan.name, new Map(), {
+    // Every file is written inside the new folder before it is made visible: results.json, each CSV
+    // and each page of the report made, written and dropped in turn (memory holds one of them at a
+    // time besides the results), then the PDF.
     beforeSwap: async (dir: string) => {
-      out.clear(); // written already: results.json and the tables need not stay in memory
-      await writeReport(reported, async (name, text) => {
+      const write = async (name: string, text: string) => {
         await mkdir(dirname(join(dir, name)), { recursive: true });
         await writeFile(join(dir, name), text);
-      });
+      };
+      await write("results.json", resultsJson(results));
+      for (const t of tables) await write(`${t.name}.csv`, toCsv(t));
+      await writeReport(reported, write);
       if (opts.pdf) pdf = await writePdf(join(dir, "report.html"), join(dir, "report.pdf"));
     },
   });
