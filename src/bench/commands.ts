@@ -6,10 +6,11 @@
  * the plain run. Peak memory comes from what each run
  * reports of itself (COLDSOAK_RUN_STATS).
  */
-import { mkdtempSync, rmSync } from "node:fs";
+import { mkdtempSync, readdirSync, rmSync, statSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
+import { BASE_PAGE_DIR, MAX_BASES_IN_ONE_FILE } from "../report/split.js";
 import {
   type Command,
   type Figure,
@@ -127,6 +128,7 @@ export async function benchCommands(): Promise<Record<string, Figure>> {
       ["demo plan with what-if variants", () => benchWhatIf(dir, stats)],
       ["copies of a demo base", () => benchBaseCopies(dir, stats)],
       ["a large generated schedule", () => benchLargeSchedule(dir, stats)],
+      ["a report split by base", () => benchSplitReport(dir, stats)],
     ] as const) {
       try {
         Object.assign(figures, await step());
@@ -270,6 +272,43 @@ async function benchLargeSchedule(dir: string, stats: string): Promise<Record<st
   };
   line(
     `plan of a ${rows}-row schedule: peak RSS ${showFigure(figures["largeSchedulePeakRssMiB"]!, 0)} MiB, ${showFigure(figures["largeScheduleMsPerRow"]!, 1)} ms per row (wall ${run.wallS.toFixed(0)} s)`,
+  );
+  return figures;
+}
+
+/** Copies of a demo base in the split-report case: beyond MAX_BASES_IN_ONE_FILE, a run of about a minute. */
+export const SPLIT_REPORT_COPIES = 30;
+
+/**
+ * A plan of SPLIT_REPORT_COPIES copies of a demo base (filled cache, one run), whose report is split
+ * by base: peak memory, wall time, the size of the overview `report.html` and of the largest base page.
+ * (README, "Tests and benchmarks", has the same figures for 100, 200 and 500 copies.)
+ */
+export async function benchSplitReport(dir: string, stats: string): Promise<Record<string, Figure>> {
+  const n = Number(process.env["COLDSOAK_BENCH_SPLIT_COPIES"] ?? SPLIT_REPORT_COPIES);
+  if (n <= MAX_BASES_IN_ONE_FILE) throw new Error(`${n} copies: the report would not be split`);
+  const plan = copiedBasePlan(join(dir, `split-${n}`), n);
+  const cache = join(dir, `split-${n}`, "cache");
+  const out = join(dir, `split-${n}`, "out");
+  // The cache holds the demo's climate whatever the copies: fill it with a plan of one copy first.
+  const small = copiedBasePlan(join(dir, "split-1"), 1);
+  await runOnce(cli("plan, 1 copy", ["plan", small, "--out", out, "--cache-dir", cache]));
+  const run = await runOnce(
+    cli(`plan, ${n} copies`, ["plan", plan, "--out", out, "--cache-dir", cache]),
+    stats,
+  );
+  const folder = join(out, `bench-${n}`);
+  const pages = readdirSync(join(folder, BASE_PAGE_DIR)).map(
+    (f) => statSync(join(folder, BASE_PAGE_DIR, f)).size,
+  );
+  const figures: Record<string, Figure> = {
+    splitReportPeakRssMiB: statFigure([run], mib),
+    splitReportWallS: figureOf([run.wallS]),
+    splitReportOverviewKB: figureOf([statSync(join(folder, "report.html")).size / 1000]),
+    splitReportLargestPageKB: figureOf([Math.max(...pages) / 1000]),
+  };
+  line(
+    `plan of ${n} × ${COPIED_BASE}, report split by base: peak RSS ${showFigure(figures["splitReportPeakRssMiB"]!, 0)} MiB, wall ${run.wallS.toFixed(0)} s; report.html ${showFigure(figures["splitReportOverviewKB"]!, 0)} kB, largest of ${pages.length} base pages ${showFigure(figures["splitReportLargestPageKB"]!, 0)} kB`,
   );
   return figures;
 }

@@ -138,6 +138,7 @@ export function copiedBasePlan(dir: string, copies: number): string {
   const plan = plainDemoPlan();
   const base = plan.bases.find((b) => b.name === COPIED_BASE)!;
   plan.name = `bench-${copies}`;
+  plan.schedule = "schedule.csv"; // the copies' schedule written below, not the demo's
   plan.bases = Array.from({ length: copies }, (_, k) => ({ ...base, name: `${COPIED_BASE} ${k + 1}` }));
   copyPerBaseEntries(plan.nitrogen?.stock, copies);
   const [header, ...rows] = readFileSync(join(DEMO_DIR, "demo-schedule.csv"), "utf8").trim().split("\n");

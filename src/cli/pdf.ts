@@ -19,6 +19,8 @@ export function registerPdf(program: Command): void {
       "\nExamples:\n" +
         "  coldsoak pdf out/demo/report.html                  writes out/demo/report.pdf\n" +
         "  coldsoak pdf out/demo/report.html --paper letter --out demo-letter.pdf\n" +
+        "\nA report split by base (more bases than one file holds) prints the page given: its report.html\n" +
+        "is the fleet overview alone (the terminal says so); print a base's page from its bases/ folder.\n" +
         "\nNeeds Chromium: Debian's `apt-get install chromium`, or set COLDSOAK_CHROMIUM to its binary.\n" +
         "Exit codes: 0 success, 2 bad input or usage, 1 anything else, such as no browser.",
     )

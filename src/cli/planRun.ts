@@ -3,7 +3,8 @@
  * writes `out/<plan name>/` (results.json, one CSV per table, report.html), made visible in one step
  * only after every file is written (see outputFolder.ts).
  */
-import { join, resolve } from "node:path";
+import { mkdir, writeFile } from "node:fs/promises";
+import { dirname, join, resolve } from "node:path";
 import { inputError } from "../errors.js";
 import { resultsJson, resultTables, toCsv } from "../output/tables.js";
 import { runPlan } from "../plan/engine.js";
@@ -12,7 +13,9 @@ import type { Results } from "../plan/results.js";
 import { loadPlanClimate } from "../plan/run.js";
 import { loadSchedule } from "../plan/schedule.js";
 import { whatIfNames, withWhatIf } from "../plan/whatIfRun.js";
-import { renderReport, startChartWorkers, writePdf } from "../report/index.js";
+import { startChartWorkers, writePdf } from "../report/index.js";
+import { writeReport } from "../report/pages.js";
+import { isSplit, splitPdfNote } from "../report/split.js";
 import { formatDisplay, pct, showWithUnit, unitSystem } from "../units/index.js";
 import { writeOutputFolder } from "./outputFolder.js";
 import { loadBars, progressBar } from "./progress.js";
@@ -136,22 +139,31 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
   const names = whatIfNames(plan, opts.whatIf === true);
   const results = await withWhatIf(plan, stays, climate, plain, names, { onProgress: variants.update });
   variants.stop();
-  const out = new Map<string, string>();
-  out.set("results.json", resultsJson(results));
-  for (const t of resultTables(results)) out.set(`${t.name}.csv`, toCsv(t));
-  out.set("report.html", await renderReport({ ...results, files: [...out.keys()] }));
+  const tables = resultTables(results);
+  const reported: Results = { ...results, files: ["results.json", ...tables.map((t) => `${t.name}.csv`)] };
   let pdf: PlanRun["pdf"] = null;
-  const folder = await writeOutputFolder(resolve(opts.out), plan.name, out, {
-    // The PDF is printed inside the new folder before it is made visible: it is part of the swap.
-    ...(opts.pdf
-      ? {
-          beforeSwap: async (dir: string) => {
-            pdf = await writePdf(join(dir, "report.html"), join(dir, "report.pdf"));
-          },
-        }
-      : {}),
+  const folder = await writeOutputFolder(resolve(opts.out), plan.name, new Map(), {
+    // Every file is written inside the new folder before it is made visible: results.json, each CSV
+    // and each page of the report made, written and dropped in turn (memory holds one of them at a
+    // time besides the results), then the PDF.
+    beforeSwap: async (dir: string) => {
+      const write = async (name: string, text: string) => {
+        await mkdir(dirname(join(dir, name)), { recursive: true });
+        await writeFile(join(dir, name), text);
+      };
+      await write("results.json", resultsJson(results));
+      for (const t of tables) await write(`${t.name}.csv`, toCsv(t));
+      await writeReport(reported, write);
+      if (opts.pdf) pdf = await writePdf(join(dir, "report.html"), join(dir, "report.pdf"));
+    },
   });
-  return { folder, results, climateWarnings, pdf };
+  return { folder, results, climateWarnings, pdf: pdfNoted(pdf, results, folder) };
+}
+
+/** The PDF step's note; of a split report it also says that the PDF holds the overview alone. */
+function pdfNoted(pdf: PlanRun["pdf"], results: Results, folder: string): PlanRun["pdf"] {
+  if (pdf === null || !pdf.ok || !isSplit(results.bases.length)) return pdf;
+  return { ok: true, message: `${pdf.message}; ${splitPdfNote(results.bases.length, folder)}` };
 }
 
 /** `coldsoak plan` once its options are parsed: runs the plan, prints the summary (or results.json) and the report's path. */

@@ -39,14 +39,39 @@ class ChartBatch {
 
   add(chart: Chart, spec: Spec): void {
     const key = JSON.stringify(spec);
-    let svg = this.svgBySpec.get(key);
+    let svg = this.svgBySpec.get(key) ?? recentSvg(key);
     if (svg === undefined) {
       svg = renderSpec(spec);
       svg.catch(() => undefined); // reported when the batch ends
-      this.svgBySpec.set(key, svg);
+      keepRecent(key, svg);
     }
+    this.svgBySpec.set(key, svg);
     this.charts.push({ chart, svg });
   }
+}
+
+/**
+ * The renderings of the last RECENT_SPECS distinct specs, across batches: a chart that the pages of a
+ * report split by base share (a profile's curves at one atmosphere, say) is rendered once, while memory
+ * holds a bounded number of them whatever the number of pages.
+ */
+export const RECENT_SPECS = 64;
+const recent = new Map<string, Promise<string>>();
+
+function recentSvg(key: string): Promise<string> | undefined {
+  const svg = recent.get(key);
+  if (svg !== undefined) {
+    recent.delete(key); // most recently used last
+    recent.set(key, svg);
+  }
+  return svg;
+}
+
+function keepRecent(key: string, svg: Promise<string>): void {
+  recent.set(key, svg);
+  // A failed rendering is not kept: the next batch asks again.
+  svg.catch(() => recent.get(key) === svg && recent.delete(key));
+  if (recent.size > RECENT_SPECS) recent.delete(recent.keys().next().value as string);
 }
 
 const batches = new AsyncLocalStorage<ChartBatch>();

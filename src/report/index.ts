@@ -103,15 +103,28 @@ export function pageEnvironment(): typeof Handlebars {
   return hb;
 }
 
-let compiled: Handlebars.TemplateDelegate | null = null;
-let css = "";
+const compiled = new Map<string, Handlebars.TemplateDelegate>();
 
-/** Compiles the report's template once per process. */
-function template(): Handlebars.TemplateDelegate {
-  if (compiled) return compiled;
-  css = templateText("report.css");
-  compiled = pageEnvironment().compile(templateText("report.hbs"), { strict: true, noEscape: false });
-  return compiled;
+/** Compiles a page template of `templates/` (`<name>.hbs`) once per process. */
+function compiledTemplate(name: string): Handlebars.TemplateDelegate {
+  let t = compiled.get(name);
+  if (t === undefined) {
+    t = pageEnvironment().compile(templateText(`${name}.hbs`), { strict: true, noEscape: false });
+    compiled.set(name, t);
+  }
+  return t;
+}
+
+/**
+ * A page of the report: the template `<name>.hbs` given a view and the inline CSS (`report.css`; with
+ * `pages.css` after it on the pages of a split report).
+ */
+export function pageTemplate(name: "report" | "basePage", split: boolean): (view: object) => string {
+  const render = compiledTemplate(name);
+  const css = new Handlebars.SafeString(
+    split ? `${templateText("report.css")}${templateText("pages.css")}` : templateText("report.css"),
+  );
+  return (view) => render({ ...view, css });
 }
 
 /**
@@ -137,6 +150,5 @@ export async function renderReport(results: Results): Promise<string> {
   // where available) once all the sections have described theirs.
   const generatedAt = generationTime();
   const view = await withChartBatch(() => buildView(results, { generatedAt }));
-  const render = template();
-  return render({ ...view, css: new Handlebars.SafeString(css) });
+  return pageTemplate("report", false)(view);
 }

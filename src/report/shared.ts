@@ -108,6 +108,15 @@ export function baseAnchor(index: number): string {
 }
 
 /**
+ * Where the fleet-wide parts of the report link to a base's part: its fragment in the same file, or
+ * (split report) its own page. `fragment` is an id inside the base's part; without it, the part itself.
+ */
+export type BaseHref = (index: number, fragment?: string) => string;
+
+/** The links of a report in one file: fragments of the same page. */
+export const samePage: BaseHref = (index, fragment) => `#${fragment ?? baseAnchor(index)}`;
+
+/**
  * Which air surrounds the aircraft in a base's hangar hours, from the plan's hangar assumptions of the
  * base (keys `bases.<name>.hangar.{kind,heatedTo,timeConstant,offset,in,out,months}`), in the plan's
  * units: "heated hangar air, the outside air or 59.0 °F where colder, from 19:00 to 06:30", "unheated

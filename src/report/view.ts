@@ -10,6 +10,7 @@
 import type { BaseResult, Results, StationResult } from "../plan/results.js";
 import { formatDisplay, pct, shownText, showWithUnit, type UnitSystem, unitSystem } from "../units/index.js";
 import { type ActionRowView, actionsSection } from "./sections/actions.js";
+import { type BaseIndexView, baseIndexSection } from "./sections/baseIndex.js";
 import { climateSection } from "./sections/climate.js";
 import { type CoverageView, coverageSection } from "./sections/coverage.js";
 import { designPointSection } from "./sections/designPoint.js";
@@ -20,7 +21,16 @@ import { overnightSection } from "./sections/overnight.js";
 import { profileSection } from "./sections/profile.js";
 import { riskSection } from "./sections/risk.js";
 import { whatIfSection } from "./sections/whatIf.js";
-import { type BaseContext, baseAnchor, FigureCounter, yearsSkippedText, yearsText } from "./shared.js";
+import {
+  type BaseContext,
+  type BaseHref,
+  baseAnchor,
+  FigureCounter,
+  samePage,
+  yearsSkippedText,
+  yearsText,
+} from "./shared.js";
+import { basePagePath, type ListPart, listPart } from "./split.js";
 
 /**
  * The sections of each base, in report order. A section is a builder in `sections/<partial>.ts`
@@ -74,15 +84,20 @@ export interface ReportView {
   outOfBandThresholdText: string;
   minYears: string;
   fleet: GlanceView;
-  actions: ActionRowView[];
+  /** The aircraft actions, the first MAX_LIST_ROWS of them with the count of the rest. */
+  actions: ListPart<ActionRowView>;
   /** The fleet's nitrogen roll-up, its own part near the top (partial `nitrogenFleet`). */
   nitrogenFleet: NitrogenFleetView;
+  /** Every base's sections (one file), or none (split report: they are on the base pages). */
   bases: BaseView[];
+  /** The base pages of a split report; null for a report in one file. */
+  index: BaseIndexView | null;
   methods: { name: string; source: string; description: string }[];
   quantileMethod: string;
   randomInputs: { name: string; description: string }[];
   unitNotes: string[];
-  assumptions: AssumptionView[];
+  assumptions: ListPart<AssumptionView>;
+  /** Every base's data coverage (one file), or none (split report: each is on its base's page). */
   coverage: CoverageView[];
   warnings: string[];
   u: Record<string, string>;
@@ -110,7 +125,7 @@ function stationLabel(s: StationResult): string {
 }
 
 /** One base: its header, then its sections in the order of `BASE_SECTIONS`. */
-async function buildBase(ctx: BaseContext): Promise<BaseView> {
+export async function buildBase(ctx: BaseContext): Promise<BaseView> {
   const { base, results } = ctx;
   const sections: SectionView[] = [];
   for (const { partial, build } of BASE_SECTIONS) sections.push({ partial, view: await build(ctx) });
@@ -126,14 +141,16 @@ async function buildBase(ctx: BaseContext): Promise<BaseView> {
   };
 }
 
-/** The assumptions table of the back matter: every parameter of the run, as the results list it. */
-function assumptionsTable(results: Results, u: UnitSystem): AssumptionView[] {
-  return results.assumptions.map((a) => ({
-    key: a.key,
-    label: a.label,
-    shown: shownText(a, u),
-    origin: a.origin,
-  }));
+/**
+ * The assumptions table of the back matter: every parameter of the run, as the results list it, the
+ * first MAX_LIST_ROWS of them with the count of the rest (all in assumptions.csv).
+ */
+function assumptionsTable(results: Results, u: UnitSystem): ListPart<AssumptionView> {
+  const part = listPart(results.assumptions, "assumptions.csv");
+  return {
+    rows: part.rows.map((a) => ({ key: a.key, label: a.label, shown: shownText(a, u), origin: a.origin })),
+    more: part.more,
+  };
 }
 
 /** Only plain relative file names become links; anything else is shown as text. */
@@ -145,15 +162,71 @@ function unitsName(u: UnitSystem): string {
   return `${u.name} (${u.pressure.unit}, ${u.temp.unit}, ${u.volume.unit}, ${u.mass.unit}, ${u.gasVolume.unit})`;
 }
 
-/** Builds the whole view model (every chart rendered) from the results. */
+/** Builds the whole view model of a report in one file (every base, every chart rendered) from the results. */
 export async function buildView(results: Results, options: ViewOptions): Promise<ReportView> {
   const u = unitSystem(results.units);
   const figs = new FigureCounter();
-  const shortPct = results.thresholds.shortPct;
   const bases: BaseView[] = [];
   for (const [i, base] of results.bases.entries())
     bases.push(await buildBase({ results, base, anchor: baseAnchor(i), u, figs }));
+  return {
+    ...fleetView(results, options, samePage),
+    bases,
+    coverage: coverageSection(results, u),
+    index: null,
+  };
+}
+
+/** The view of a split report's overview: everything fleet-wide and the index of the base pages. */
+export function overviewView(results: Results, options: ViewOptions): ReportView {
+  const toPage: BaseHref = (i, fragment) => `${basePagePath(i)}${fragment ? `#${fragment}` : ""}`;
+  return {
+    ...fleetView(results, options, toPage),
+    bases: [],
+    coverage: [],
+    index: baseIndexSection(results),
+  };
+}
+
+/** What the report shows before and after the bases' own parts; `href` places each base's part. */
+function fleetView(
+  results: Results,
+  options: ViewOptions,
+  href: BaseHref,
+): Omit<ReportView, "bases" | "coverage" | "index"> {
+  const u = unitSystem(results.units);
   const files = results.files ?? ["results.json"];
+  return {
+    ...pageHeader(results, options, u),
+    files: files.map((name) => ({ name, linkable: linkable(name) })),
+    fleet: glanceSection(results, u, href),
+    actions: actionsSection(results),
+    nitrogenFleet: nitrogenFleetSection(results, u),
+    methods: results.methods,
+    quantileMethod: results.quantileMethod,
+    randomInputs: results.randomInputs,
+    unitNotes: u.notes,
+    assumptions: assumptionsTable(results, u),
+    warnings: results.warnings,
+  };
+}
+
+/** The fields every page of a report shows or its sections read: the title block, thresholds and units. */
+export type PageHeader = Pick<
+  ReportView,
+  | "plan"
+  | "generatedAt"
+  | "toolVersion"
+  | "climateYears"
+  | "unitsName"
+  | "seed"
+  | "thresholdText"
+  | "outOfBandThresholdText"
+  | "minYears"
+  | "u"
+>;
+
+export function pageHeader(results: Results, options: ViewOptions, u: UnitSystem): PageHeader {
   return {
     plan: results.plan,
     generatedAt: options.generatedAt,
@@ -161,21 +234,9 @@ export async function buildView(results: Results, options: ViewOptions): Promise
     climateYears: yearsText(results.climateYears),
     unitsName: unitsName(u),
     seed: String(results.seed),
-    files: files.map((name) => ({ name, linkable: linkable(name) })),
-    thresholdText: pct(shortPct),
+    thresholdText: pct(results.thresholds.shortPct),
     outOfBandThresholdText: pct(results.thresholds.outOfBandPct),
     minYears: String(results.thresholds.minYears),
-    fleet: glanceSection(results, u),
-    actions: actionsSection(results),
-    nitrogenFleet: nitrogenFleetSection(results, u),
-    bases,
-    methods: results.methods,
-    quantileMethod: results.quantileMethod,
-    randomInputs: results.randomInputs,
-    unitNotes: u.notes,
-    assumptions: assumptionsTable(results, u),
-    coverage: coverageSection(results, u),
-    warnings: results.warnings,
     u: {
       pressure: u.pressure.unit,
       pressureDelta: u.pressureDelta.unit,

@@ -6,6 +6,7 @@
  */
 import type { ActionName, AircraftAction, Results, StayResult } from "../../plan/results.js";
 import { filesText, monthName, pctInterval, yearsShort } from "../shared.js";
+import { type ListPart, listPart } from "../split.js";
 
 /** How each action reads in the table. */
 export const ACTION_LABEL: Record<ActionName, string> = {
@@ -71,7 +72,25 @@ function row(a: AircraftAction, noData: StayResult["noData"]): ActionRowView {
   };
 }
 
-/** One row per action, in schedule order (the actions and the stays share it). */
-export function actionsSection(results: Results): ActionRowView[] {
-  return results.actions.map((a, i) => row(a, results.stays[i]?.noData ?? null));
+/** The file that holds every action, whatever a page shows of them. */
+export const ACTIONS_FILE = "aircraft_actions.csv";
+
+/**
+ * One row per action, in schedule order (the actions and the stays share it), or only those at the
+ * base named `base`; at most MAX_LIST_ROWS of them, then the count of the rest, all in ACTIONS_FILE
+ * (`csvHref`: that file relative to the page).
+ */
+export function actionsSection(
+  results: Results,
+  options: { base?: string; csvHref?: string } = {},
+): ListPart<ActionRowView> {
+  const picked: number[] = [];
+  results.actions.forEach((a, i) => {
+    if (options.base === undefined || a.base === options.base) picked.push(i);
+  });
+  const part = listPart(picked, ACTIONS_FILE, options.csvHref);
+  return {
+    rows: part.rows.map((i) => row(results.actions[i]!, results.stays[i]?.noData ?? null)),
+    more: part.more,
+  };
 }

@@ -44,8 +44,15 @@ function unbroken(text: string): string {
   return text.replace(/ /g, "\u00a0").replace(/-/g, "\u2011");
 }
 
+/** The data coverage of every base, in plan order. */
 export function coverageSection(results: Results, u: UnitSystem): CoverageView[] {
-  return results.bases.map((b, i) => ({
+  return results.bases.map((_b, i) => baseCoverage(results, i, u));
+}
+
+/** The data coverage of base `i` (0-based). */
+export function baseCoverage(results: Results, i: number, u: UnitSystem): CoverageView {
+  const b = results.bases[i]!;
+  return {
     base: b.name,
     anchor: baseAnchor(i),
     stations: b.stations.map((s) => ({
@@ -72,5 +79,5 @@ export function coverageSection(results: Results, u: UnitSystem): CoverageView[]
     })),
     yearsUsed: yearsText(b.yearsUsed),
     yearsSkipped: yearsSkippedText(results, b),
-  }));
+  };
 }

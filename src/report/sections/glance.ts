@@ -7,7 +7,18 @@
  */
 import type { AircraftAction, Results } from "../../plan/results.js";
 import { formatDisplay, pct, show, type UnitSystem } from "../../units/index.js";
-import { baseAnchor, MONTHS, monthName, pctInterval, type StatusCell, statusCell } from "../shared.js";
+import {
+  type BaseHref,
+  baseAnchor,
+  MONTHS,
+  monthName,
+  pctInterval,
+  type StatusCell,
+  samePage,
+  statusCell,
+} from "../shared.js";
+import { listPart, MAX_LINE_ITEMS } from "../split.js";
+import { ACTIONS_FILE } from "./actions.js";
 
 export interface GlanceLine {
   text: string;
@@ -17,7 +28,8 @@ export interface GlanceLine {
 
 export interface GlanceView {
   months: string[];
-  rows: { base: string; anchor: string; cells: StatusCell[] }[];
+  /** Each base's row; `href` links to its part of the report (a fragment, or its page in a split report). */
+  rows: { base: string; anchor: string; href: string; cells: StatusCell[] }[];
   engineer: GlanceLine[];
   planner: GlanceLine[];
   logistics: GlanceLine[];
@@ -34,6 +46,21 @@ function needPhrase(a: AircraftAction): string {
   return `${a.aircraft} at ${a.base} (needed ${a.neededFrom} to ${until})`;
 }
 
+/** "AC01 at Korrash 2027-11-15 to 2028-03-01". */
+function stayPhrase(a: AircraftAction): string {
+  return `${a.aircraft} at ${a.base} ${a.arrive} to ${a.depart}`;
+}
+
+/**
+ * The stays named in one line, the first MAX_LINE_ITEMS of them, then how many more there are (every
+ * one is in the aircraft actions table and its CSV).
+ */
+function listed(actions: AircraftAction[], phrase: (a: AircraftAction) => string): string {
+  const part = listPart(actions, ACTIONS_FILE, ACTIONS_FILE, MAX_LINE_ITEMS);
+  const more = part.more ? `; and ${part.more.count} more, all in ${part.more.file}` : "";
+  return `${part.rows.map(phrase).join("; ")}${more}`;
+}
+
 /** The engineer's lines: which aircraft to fit, which have the option and need it or not, and the rest. */
 function engineerLines(actions: AircraftAction[]): GlanceLine[] {
   const of = (kind: AircraftAction["action"]) => actions.filter((a) => a.action === kind);
@@ -43,32 +70,21 @@ function engineerLines(actions: AircraftAction[]): GlanceLine[] {
   if (fit.length > 0)
     out.push(
       line(
-        `Fit the cold-start option: ${fit.map((a) => `${a.aircraft} at ${a.base} before ${a.arrive} (needed ${a.neededFrom} to ${a.notNeededFrom ?? `departure ${a.depart}`}${a.stillShortWithOption ? "; still short with it" : ""})`).join("; ")}.`,
+        `Fit the cold-start option: ${listed(fit, (a) => `${a.aircraft} at ${a.base} before ${a.arrive} (needed ${a.neededFrom} to ${a.notNeededFrom ?? `departure ${a.depart}`}${a.stillShortWithOption ? "; still short with it" : ""})`)}.`,
       ),
     );
   const stillShort = of("fitted-still-short");
   if (stillShort.length > 0)
     out.push(
-      line(
-        `Option fitted but still short (hangar or later first start): ${stillShort.map((a) => `${a.aircraft} at ${a.base} ${a.arrive} to ${a.depart}`).join("; ")}.`,
-      ),
+      line(`Option fitted but still short (hangar or later first start): ${listed(stillShort, stayPhrase)}.`),
     );
   const needed = of("fitted-needed");
-  if (needed.length > 0) out.push(line(`Fitted, needed: ${needed.map(needPhrase).join("; ")}.`));
+  if (needed.length > 0) out.push(line(`Fitted, needed: ${listed(needed, needPhrase)}.`));
   const notNeeded = of("fitted-not-needed");
   if (notNeeded.length > 0)
-    out.push(
-      line(
-        `Fitted, not needed by this estimate: ${notNeeded.map((a) => `${a.aircraft} at ${a.base} ${a.arrive} to ${a.depart}`).join("; ")}.`,
-      ),
-    );
+    out.push(line(`Fitted, not needed by this estimate: ${listed(notNeeded, stayPhrase)}.`));
   const noData = of("no-data");
-  if (noData.length > 0)
-    out.push(
-      line(
-        `No data for: ${noData.map((a) => `${a.aircraft} at ${a.base} ${a.arrive} to ${a.depart}`).join("; ")}.`,
-      ),
-    );
+  if (noData.length > 0) out.push(line(`No data for: ${listed(noData, stayPhrase)}.`));
   const keep = of("keep").length;
   if (keep > 0)
     out.push(line(`Keep as is: ${keep} stay${keep === 1 ? "" : "s"} without the option that need none.`));
@@ -81,7 +97,7 @@ function hoursText(hours: number[]): string {
 }
 
 /** The planner's lines: per base, the months above the out-of-band threshold and their worst hours of day. */
-function plannerLines(results: Results): GlanceLine[] {
+function plannerLines(results: Results, href: BaseHref): GlanceLine[] {
   const limit = results.thresholds.outOfBandPct;
   const out: GlanceLine[] = [];
   for (const [i, b] of results.bases.entries()) {
@@ -93,7 +109,7 @@ function plannerLines(results: Results): GlanceLine[] {
     );
     out.push({
       text: `${b.name}: first preflights out of band in ${items.join("; ")} — allow servicing time and brief technicians on the overnight drop.`,
-      href: `#${sectionId(baseAnchor(i), "hours")}`,
+      href: href(i, sectionId(baseAnchor(i), "hours")),
       link: `${b.name}, out of band by hour`,
     });
   }
@@ -128,7 +144,8 @@ function logisticsLines(results: Results, u: UnitSystem): GlanceLine[] {
   ];
 }
 
-export function glanceSection(results: Results, u: UnitSystem): GlanceView {
+/** The first screen; `href` places each base's part (the same page by default). */
+export function glanceSection(results: Results, u: UnitSystem, href: BaseHref = samePage): GlanceView {
   return {
     months: MONTHS,
     rows: results.bases.map((b, i) => {
@@ -136,6 +153,7 @@ export function glanceSection(results: Results, u: UnitSystem): GlanceView {
       return {
         base: b.name,
         anchor: baseAnchor(i),
+        href: href(i),
         cells: MONTHS.map((_n, k) => {
           const m = byMonth.get(k + 1);
           return m
@@ -153,7 +171,7 @@ export function glanceSection(results: Results, u: UnitSystem): GlanceView {
       };
     }),
     engineer: engineerLines(results.actions),
-    planner: plannerLines(results),
+    planner: plannerLines(results, href),
     logistics: logisticsLines(results, u),
   };
 }
