@@ -197,26 +197,47 @@ export class BaseOutcomes {
   }
 }
 
-/** A column of numbers that grows by doubling, then is cut to its length. */
+/** Elements of one chunk of a `Growing` column. */
+const CHUNK = 1 << 16;
+
+/**
+ * A column of numbers gathered in chunks of `CHUNK` elements, then joined into one array of its
+ * length: nothing is copied while it grows, and joining holds the chunks of one column beside its
+ * array (growth by doubling would leave every smaller array behind as garbage, and a copy at the end).
+ */
 class Growing<A extends Uint8Array | Uint16Array | Int32Array | Float64Array> {
-  private data: A;
+  private full: A[] = [];
+  private chunk: A;
+  private used = 0;
   length = 0;
 
   constructor(private readonly make: (n: number) => A) {
-    this.data = make(1024);
+    this.chunk = make(CHUNK);
   }
 
   push(v: number): void {
-    if (this.length === this.data.length) {
-      const next = this.make(this.data.length * 2);
-      next.set(this.data);
-      this.data = next;
+    if (this.used === CHUNK) {
+      this.full.push(this.chunk);
+      this.chunk = this.make(CHUNK);
+      this.used = 0;
     }
-    this.data[this.length++] = v;
+    this.chunk[this.used++] = v;
+    this.length++;
   }
 
+  /** The column as one array; the builder's chunks are dropped. */
   done(): A {
-    return this.data.slice(0, this.length) as A;
+    const out = this.make(this.length);
+    let at = 0;
+    for (const c of this.full) {
+      out.set(c, at);
+      at += c.length;
+    }
+    out.set(this.chunk.subarray(0, this.used), at);
+    this.full = [];
+    this.chunk = this.make(0);
+    this.used = 0;
+    return out;
   }
 }
 

@@ -89,6 +89,32 @@ export function localHourOf(day: DayPlan, utcMs: number, zone: string): number {
   return h ?? localHourAt(utcMs, zone);
 }
 
+/** A real day on a climate year: its climate date and the local midnights that bound it (UTC ms). */
+export interface ClimateDay {
+  date: CivilDate;
+  midnightUtcMs: number;
+  nextMidnightUtcMs: number;
+}
+
+/**
+ * The climate date of real day `real` (real year `referenceYear` maps onto `climateYear`) and its
+ * local midnight and the next one: all that the count of a window's hours needs, without the rest of
+ * a `DayPlan`.
+ */
+export function climateDay(
+  real: CivilDate,
+  referenceYear: number,
+  climateYear: number,
+  timeZone: string,
+): ClimateDay {
+  const date = climateDate(real, referenceYear, climateYear);
+  return {
+    date,
+    midnightUtcMs: localInstant(date, 0, timeZone),
+    nextMidnightUtcMs: localInstant(nextDay(date), 0, timeZone),
+  };
+}
+
 /**
  * The days of a stay (real dates) on climate sample `climateYear`: real year `referenceYear` maps onto
  * `climateYear`, the next real year onto the next climate year, and so on. Every stay at one base uses
@@ -102,9 +128,11 @@ export function buildDays(
   referenceYear = realDays[0]!.year,
 ): DayPlan[] {
   return realDays.map((real) => {
-    const c = climateDate(real, referenceYear, climateYear);
-    const midnight = localInstant(c, 0, opts.timeZone);
-    const next = localInstant(nextDay(c), 0, opts.timeZone);
+    const {
+      date: c,
+      midnightUtcMs: midnight,
+      nextMidnightUtcMs: next,
+    } = climateDay(real, referenceYear, climateYear, opts.timeZone);
     const len = next - midnight;
     const flown = opts.flownWeekdays.has(isoWeekday(real));
     const startsUtcMs = flown

@@ -21,21 +21,22 @@ const WORST_HOURS = 3;
 /** Width of a bin of the daily-range histogram, °C. */
 const HISTOGRAM_BIN_C = 2;
 
-/** What one local month of a base gathers over its stays and years. */
+/** What one local month of a base gathers over its stays and years (values in the order gathered). */
 interface MonthTally {
   preflights: number;
   below: number;
   above: number;
-  gasKPaGauge: number[];
-  readingPct: number[];
+  gasKPaGauge: Float64Array;
+  readingPct: Float64Array;
   starts: number;
   shortOne: number;
   shortTwo: number;
-  marginOnePct: number[];
-  marginTwoPct: number[];
-  dropTempC: number[];
-  dropKPa: number[];
-  dropReadingPct: number[];
+  marginOnePct: Float64Array;
+  marginTwoPct: Float64Array;
+  drops: number;
+  dropTempC: Float64Array;
+  dropKPa: Float64Array;
+  dropReadingPct: Float64Array;
 }
 
 interface BaseTally {
@@ -52,26 +53,39 @@ interface BaseTally {
   startsWithoutAmbient: number;
 }
 
+const NO_VALUES = new Float64Array(0);
+
 function emptyMonth(): MonthTally {
   return {
     preflights: 0,
     below: 0,
     above: 0,
-    gasKPaGauge: [],
-    readingPct: [],
+    gasKPaGauge: NO_VALUES,
+    readingPct: NO_VALUES,
     starts: 0,
     shortOne: 0,
     shortTwo: 0,
-    marginOnePct: [],
-    marginTwoPct: [],
-    dropTempC: [],
-    dropKPa: [],
-    dropReadingPct: [],
+    marginOnePct: NO_VALUES,
+    marginTwoPct: NO_VALUES,
+    drops: 0,
+    dropTempC: NO_VALUES,
+    dropKPa: NO_VALUES,
+    dropReadingPct: NO_VALUES,
   };
 }
 
-/** Every stay's records on every year, stay by stay in schedule order (each stay counts once). */
-function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
+/** Calls `visit` with the sample of every stay on every year, stay by stay in schedule order (each stay counts once). */
+function eachStaySample(
+  base: BaseSamples,
+  outcomes: BaseOutcomes,
+  visit: (sample: number, yi: number) => void,
+): void {
+  for (const gi of base.groupOfStay)
+    for (let yi = 0; yi < base.years.length; yi++) visit(outcomes.slot(yi, gi), yi);
+}
+
+/** The counts of every month and hour, the coldest morning of each year: the first pass over the records. */
+function countOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
   const t: BaseTally = {
     months: Array.from({ length: 13 }, emptyMonth),
     hourReadings: new Array<number>(24).fill(0),
@@ -82,49 +96,79 @@ function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
     startsWithoutAmbient: 0,
   };
   const { preflights: p, starts: s, drops: d, hourly: h } = outcomes;
-  for (const gi of base.groupOfStay) {
-    for (let yi = 0; yi < base.years.length; yi++) {
-      const o = outcomes.slot(yi, gi);
-      t.startsWithoutAmbient += outcomes.startsWithoutAmbient(o);
-      for (let i = p.at[o]!; i < p.at[o + 1]!; i++) {
-        const a = t.months[p.month[i]!]!;
-        a.preflights++;
-        if (p.flags[i]! & BELOW) a.below++;
-        if (p.flags[i]! & ABOVE) a.above++;
-        a.gasKPaGauge.push(p.gasKPaGauge[i]!);
-        a.readingPct.push(p.readingPct[i]!);
-      }
-      const coldest = outcomes.coldestAmbientC(o);
-      const c = t.coldestC[yi];
-      if (coldest < Number.POSITIVE_INFINITY && (c === undefined || coldest < c)) t.coldestC[yi] = coldest;
-      for (let i = s.at[o]!; i < s.at[o + 1]!; i++) {
-        const a = t.months[s.month[i]!]!;
-        a.starts++;
-        if (s.flags[i]! & SHORT_ONE) a.shortOne++;
-        if (s.flags[i]! & SHORT_TWO) a.shortTwo++;
-        a.marginOnePct.push(marginPct(s.energyOneJ[i]!, s.requiredJ[i]!));
-        a.marginTwoPct.push(marginPct(s.energyTwoJ[i]!, s.requiredJ[i]!));
-      }
-      for (let i = d.at[o]!; i < d.at[o + 1]!; i++) {
-        const a = t.months[d.month[i]!]!;
-        a.dropTempC.push(d.tempC[i]!);
-        a.dropKPa.push(d.gasKPa[i]!);
-        a.dropReadingPct.push(d.readingPct[i]!);
-      }
-      for (let k = h.at[o]!; k < h.at[o + 1]!; k++) {
-        const i = h.cell[k]!;
-        t.hourReadings[i % 24]! += h.readings[k]!;
-        t.hourOutOfBand[i % 24]! += h.outOfBand[k]!;
-        t.monthHourReadings[i]! += h.readings[k]!;
-        t.monthHourOutOfBand[i]! += h.outOfBand[k]!;
-      }
+  eachStaySample(base, outcomes, (o, yi) => {
+    t.startsWithoutAmbient += outcomes.startsWithoutAmbient(o);
+    for (let i = p.at[o]!; i < p.at[o + 1]!; i++) {
+      const a = t.months[p.month[i]!]!;
+      a.preflights++;
+      if (p.flags[i]! & BELOW) a.below++;
+      if (p.flags[i]! & ABOVE) a.above++;
     }
-  }
+    const coldest = outcomes.coldestAmbientC(o);
+    const c = t.coldestC[yi];
+    if (coldest < Number.POSITIVE_INFINITY && (c === undefined || coldest < c)) t.coldestC[yi] = coldest;
+    for (let i = s.at[o]!; i < s.at[o + 1]!; i++) {
+      const a = t.months[s.month[i]!]!;
+      a.starts++;
+      if (s.flags[i]! & SHORT_ONE) a.shortOne++;
+      if (s.flags[i]! & SHORT_TWO) a.shortTwo++;
+    }
+    for (let i = d.at[o]!; i < d.at[o + 1]!; i++) t.months[d.month[i]!]!.drops++;
+    for (let k = h.at[o]!; k < h.at[o + 1]!; k++) {
+      const i = h.cell[k]!;
+      t.hourReadings[i % 24]! += h.readings[k]!;
+      t.hourOutOfBand[i % 24]! += h.outOfBand[k]!;
+      t.monthHourReadings[i]! += h.readings[k]!;
+      t.monthHourOutOfBand[i]! += h.outOfBand[k]!;
+    }
+  });
   return t;
 }
 
-/** The values sorted once, for several quantiles of them. */
-const sorted = (v: number[]) => sortedCopy(v);
+/**
+ * Every stay's records on every year, stay by stay in schedule order (each stay counts once): counted
+ * first, then each month's values gathered into arrays of their exact length (a base's values are
+ * the largest thing its statistics hold).
+ */
+function tallyOutcomes(base: BaseSamples, outcomes: BaseOutcomes): BaseTally {
+  const t = countOutcomes(base, outcomes);
+  for (const a of t.months) {
+    a.gasKPaGauge = new Float64Array(a.preflights);
+    a.readingPct = new Float64Array(a.preflights);
+    a.marginOnePct = new Float64Array(a.starts);
+    a.marginTwoPct = new Float64Array(a.starts);
+    a.dropTempC = new Float64Array(a.drops);
+    a.dropKPa = new Float64Array(a.drops);
+    a.dropReadingPct = new Float64Array(a.drops);
+  }
+  const next = t.months.map(() => ({ preflight: 0, start: 0, drop: 0 }));
+  const { preflights: p, starts: s, drops: d } = outcomes;
+  eachStaySample(base, outcomes, (o) => {
+    for (let i = p.at[o]!; i < p.at[o + 1]!; i++) {
+      const m = p.month[i]!;
+      const k = next[m]!.preflight++;
+      t.months[m]!.gasKPaGauge[k] = p.gasKPaGauge[i]!;
+      t.months[m]!.readingPct[k] = p.readingPct[i]!;
+    }
+    for (let i = s.at[o]!; i < s.at[o + 1]!; i++) {
+      const m = s.month[i]!;
+      const k = next[m]!.start++;
+      t.months[m]!.marginOnePct[k] = marginPct(s.energyOneJ[i]!, s.requiredJ[i]!);
+      t.months[m]!.marginTwoPct[k] = marginPct(s.energyTwoJ[i]!, s.requiredJ[i]!);
+    }
+    for (let i = d.at[o]!; i < d.at[o + 1]!; i++) {
+      const m = d.month[i]!;
+      const k = next[m]!.drop++;
+      t.months[m]!.dropTempC[k] = d.tempC[i]!;
+      t.months[m]!.dropKPa[k] = d.gasKPa[i]!;
+      t.months[m]!.dropReadingPct[k] = d.readingPct[i]!;
+    }
+  });
+  return t;
+}
+
+/** The values sorted in place (ascending, as numbers), for several quantiles of them. */
+const sorted = (v: Float64Array) => v.sort();
 const q = quantileOfSorted;
 
 /**
@@ -147,6 +191,10 @@ function worstHours(readings: number[], outOfBand: number[], month: number): num
 /** One month's row; the daily range only in months with preflights. */
 function monthRow(month: number, a: MonthTally, dailyRangesC: number[], t: BaseTally): MonthStatistics {
   const has = a.preflights > 0;
+  // Means first, in the order gathered: the quantiles below sort the month's values in place.
+  const dropTempMean = mean(a.dropTempC);
+  const dropKPaMean = mean(a.dropKPa);
+  const dropReadingMean = mean(a.dropReadingPct);
   const gas = sorted(a.gasKPaGauge);
   const reading = sorted(a.readingPct);
   const dropTemp = sorted(a.dropTempC);
@@ -168,14 +216,14 @@ function monthRow(month: number, a: MonthTally, dailyRangesC: number[], t: BaseT
     morningReadingPctP10: q(reading, 0.1),
     morningReadingPctP50: q(reading, 0.5),
     morningReadingPctP90: q(reading, 0.9),
-    overnightDropTempMeanC: mean(a.dropTempC),
+    overnightDropTempMeanC: dropTempMean,
     overnightDropTempP90C: q(dropTemp, 0.9),
-    overnightDropKPaMean: mean(a.dropKPa),
+    overnightDropKPaMean: dropKPaMean,
     overnightDropKPaP90: q(dropKPa, 0.9),
-    overnightDropReadingMeanPct: mean(a.dropReadingPct),
+    overnightDropReadingMeanPct: dropReadingMean,
     overnightDropReadingP90Pct: q(dropReading, 0.9),
     dailyRangeMeanC: has ? mean(dailyRangesC) : null,
-    dailyRangeP90C: has ? q(sorted(dailyRangesC), 0.9) : null,
+    dailyRangeP90C: has ? q(sortedCopy(dailyRangesC), 0.9) : null,
     starts: a.starts,
     energyMarginOneP10Pct: q(marginOne, 0.1),
     energyMarginOneP50Pct: q(marginOne, 0.5),

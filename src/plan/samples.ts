@@ -11,8 +11,8 @@
  * equal windows share.
  */
 import type { HourlySeries, StationClimate } from "../climate/types.js";
-import { type CivilDate, isoWeekday, MONTH_NAMES, stayDays } from "./calendar.js";
-import { buildDays, type DayOptions, type DayPlan, HOUR_MS } from "./days.js";
+import { type CivilDate, civilIso, isoWeekday, MONTH_NAMES, stayDays } from "./calendar.js";
+import { buildDays, climateDay, type DayOptions, type DayPlan, HOUR_MS } from "./days.js";
 import type { PlanCore } from "./planFile.js";
 import { drawWeekdays, gasLossFactor } from "./random.js";
 import type { Stay } from "./schedule.js";
@@ -237,7 +237,10 @@ function groupStays(
 }
 
 /** Grid hours of the days and those with a value, by local month (index 1–12). */
-function hoursByMonth(series: HourlySeries, days: DayPlan[]): { total: number[]; present: number[] } {
+function hoursByMonth(
+  series: HourlySeries,
+  days: readonly { month: number; midnightUtcMs: number; nextMidnightUtcMs: number }[],
+): { total: number[]; present: number[] } {
   const total = new Array<number>(13).fill(0);
   const present = new Array<number>(13).fill(0);
   for (const d of days) {
@@ -322,14 +325,19 @@ function usableYears(
     : dataYears(climate.series);
   const span = Math.max(0, ...groups.map((g) => g.realDays[g.realDays.length - 1]!.year - refYear));
   for (let y = range?.[0] ?? 1; range !== null && y + span <= range[1]!; y++) {
-    const days = groups.map((g) => buildDays(g.realDays, y, dayOptions, refYear));
-    const ok = days.map((d, gi) => {
+    // One group's days at a time, and only their bounds: every group's whole days of a year together
+    // would be rows × days objects.
+    const ok = groups.map((g, gi) => {
+      const d = g.realDays.map((real) => {
+        const day = climateDay(real, refYear, y, dayOptions.timeZone);
+        return { ...day, month: day.date.month };
+      });
       const hours = hoursByMonth(climate.series, d);
       for (let m = 1; m <= 12; m++) {
         if (hours.total[m] === 0) continue;
         const share = hours.present[m]! / hours.total[m]!;
         cover.bestShare[gi]![m] = Math.max(cover.bestShare[gi]![m]!, share);
-        for (const day of d) if (day.month === m) cover.calendarYears[gi]![m]!.add(day.climateYear);
+        for (const day of d) if (day.month === m) cover.calendarYears[gi]![m]!.add(day.date.year);
       }
       const total = sum(hours.total);
       const share = total === 0 ? 0 : sum(hours.present) / total;
@@ -337,8 +345,8 @@ function usableYears(
       if (!usable) {
         out.windowSkips[gi]!.push({
           year: y,
-          fromIso: d[0]!.climateIso,
-          toIso: d[d.length - 1]!.climateIso,
+          fromIso: civilIso(d[0]!.date),
+          toIso: civilIso(d[d.length - 1]!.date),
           completenessPct: 100 * share,
         });
       }

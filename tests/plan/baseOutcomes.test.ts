@@ -89,3 +89,35 @@ describe("a base's outcomes as columns", () => {
     expect(() => c.done()).toThrow(/3 samples not added/);
   });
 });
+
+describe("a base's outcome columns beyond one gathering chunk", () => {
+  // Columns are gathered in chunks of 65,536 elements and joined at the end; 150,000 records
+  // over two samples cross two chunk boundaries, one of them inside the second sample.
+  const sizes = [70_000, 80_000];
+  const b = new OutcomesBuilder(1, 2);
+  sizes.forEach((n, gi) => {
+    b.add(0, gi, outcome(n, 1 + gi, 0));
+  });
+  const o = b.done();
+
+  it("joins the chunks into one column holding every record in the order added", () => {
+    const p = o.preflights;
+    expect(p.month).toHaveLength(150_000);
+    expect(Array.from(p.at)).toEqual([0, 70_000, 150_000]);
+    for (const [i, expected] of [
+      [0, 10_000],
+      [65_535, 10_000 + 65_535],
+      [65_536, 10_000 + 65_536],
+      [69_999, 10_000 + 69_999],
+      [70_000, 10_000],
+      [70_000 + 61_071, 10_000 + 61_071],
+      [131_072, 10_000 + 61_072],
+      [149_999, 10_000 + 79_999],
+    ] as const) {
+      expect(p.gasKPaGauge[i]).toBe(expected);
+    }
+    expect(p.month[69_999]).toBe(1);
+    expect(p.month[70_000]).toBe(2);
+    expect(o.starts.energyOneJ).toHaveLength(150_000);
+  });
+});
