@@ -38,6 +38,11 @@ export function isLeapYear(y: number): boolean {
 
 const DAY_MS = 86_400_000;
 
+/** Days since 1970-01-01 of a civil date (proleptic Gregorian calendar, UTC days). */
+export function dayNumber(d: CivilDate): number {
+  return Date.UTC(d.year, d.month - 1, d.day) / DAY_MS;
+}
+
 /**
  * Real calendar days of a stay: from arrive up to, not including, depart (ISO dates). Civil dates
  * without a time zone: counted on the proleptic Gregorian calendar of the ECMAScript Date (UTC days).

@@ -8,9 +8,10 @@
  */
 import { localClimatology } from "../climate/index.js";
 import { ABOVE, BELOW, marginPct, SHORT_ONE, SHORT_TWO } from "./baseOutcomes.js";
+import { civilIso } from "./calendar.js";
 import type { PlanCore } from "./planFile.js";
 import type { BaseResult, HourRow, MonthStatistics } from "./results.js";
-import type { BaseSamples } from "./samples.js";
+import { type BaseSamples, usableClimateDays } from "./samples.js";
 import type { BaseOutcomes } from "./simulateSamples.js";
 import { gumbelMinimumReturnLevel, mean, pct, quantileOfSorted, sortedCopy } from "./stats.js";
 
@@ -243,8 +244,7 @@ function windowDailyRanges(
 ): { byMonth: number[][]; all: number[] } {
   const windowDays = new Set<string>();
   for (let yi = 0; yi < base.years.length; yi++)
-    for (let gi = 0; gi < base.groups.length; gi++)
-      for (const d of base.days.get(yi, gi)) windowDays.add(d.climateIso);
+    for (const d of usableClimateDays(base, yi).values()) windowDays.add(civilIso(d.date));
   const byMonth = Array.from({ length: 13 }, () => [] as number[]);
   const all: number[] = [];
   for (const r of ranges) {

@@ -13,11 +13,12 @@
 
 import { N2_MOLAR_MASS_KG_MOL } from "../physics/nitrogen.js";
 import { ZERO_CELSIUS_K as K0, S_PER_DAY } from "../units/index.js";
+import { dayNumber, isoWeekday } from "./calendar.js";
 import { type ProfileContext, prechargeLineAbsPa } from "./context.js";
 import { HOUR_MS } from "./days.js";
 import type { Plan } from "./planFile.js";
 import { unscheduledRechargeDays } from "./random.js";
-import type { BaseSamples } from "./samples.js";
+import { type BaseSamples, usableClimateDays } from "./samples.js";
 import type { BaseOutcomes, Simulator } from "./simulateSamples.js";
 
 /** Draws of the seeded events per climate year when unscheduled recharges are in the plan (else 1). */
@@ -64,15 +65,21 @@ export interface BaseCalendar {
   realDay: number[][];
   /** 1 on the real days at least one stay covers, 0 on the days between stays. */
   covered: Uint8Array;
+  /** 1 on the real days whose weekday is flown, else 0 (0 on the days between stays). */
+  flown: Uint8Array;
+  /**
+   * The local midnights (UTC ms) that bound each real day's climate day on each usable year:
+   * `midnightUtcMs[yearIndex][realDay]` up to `nextMidnightUtcMs[yearIndex][realDay]` (NaN on a day
+   * no window usable that year covers).
+   */
+  midnightUtcMs: Float64Array[];
+  nextMidnightUtcMs: Float64Array[];
   /**
    * Each real day's mean outdoor temperature on each usable year, K: `dayTempK[yearIndex][realDay]`
    * (a day without a value, or without a stay, takes the nearest earlier day's, else the nearest later).
    */
   dayTempK: Float64Array[];
 }
-
-const dayNumber = (d: { year: number; month: number; day: number }): number =>
-  Date.UTC(d.year, d.month - 1, d.day) / (S_PER_DAY * 1000);
 
 /** The date `n` days after the day number `start`, YYYY-MM-DD. */
 export function isoOfDay(start: number, n: number): string {
@@ -110,7 +117,7 @@ function fillGaps(a: Float64Array): void {
   }
 }
 
-/** The base's real days and the site temperature of each on each usable year. */
+/** The base's real days, their bounds and the site temperature of each on each usable year. */
 export function baseCalendar(base: BaseSamples): BaseCalendar {
   const firsts = base.groups.map((g) => dayNumber(g.realDays[0]!));
   const lasts = base.groups.map((g) => dayNumber(g.realDays[g.realDays.length - 1]!));
@@ -118,19 +125,32 @@ export function baseCalendar(base: BaseSamples): BaseCalendar {
   const nDays = lasts.length === 0 ? 0 : Math.max(...lasts) + 1 - start;
   const realDay = base.groups.map((g) => g.realDays.map((d) => dayNumber(d) - start));
   const covered = new Uint8Array(nDays);
-  for (const days of realDay) for (const d of days) covered[d] = 1;
+  const flown = new Uint8Array(nDays);
+  base.groups.forEach((g, gi) => {
+    g.realDays.forEach((real, di) => {
+      const d = realDay[gi]![di]!;
+      if (covered[d] === 1) return;
+      covered[d] = 1;
+      flown[d] = base.dayOptions.flownWeekdays.has(isoWeekday(real)) ? 1 : 0;
+    });
+  });
+  const midnightUtcMs: Float64Array[] = [];
+  const nextMidnightUtcMs: Float64Array[] = [];
   const dayTempK = base.years.map((_y, yi) => {
     const temps = new Float64Array(nDays).fill(Number.NaN);
-    base.groups.forEach((_g, gi) => {
-      base.days.get(yi, gi).forEach((day, di) => {
-        const d = realDay[gi]![di]!;
-        if (Number.isNaN(temps[d]!)) temps[d] = meanTempK(base, day.midnightUtcMs, day.nextMidnightUtcMs);
-      });
-    });
+    const from = new Float64Array(nDays).fill(Number.NaN);
+    const to = new Float64Array(nDays).fill(Number.NaN);
+    for (const [n, day] of usableClimateDays(base, yi)) {
+      from[n - start] = day.midnightUtcMs;
+      to[n - start] = day.nextMidnightUtcMs;
+      temps[n - start] = meanTempK(base, day.midnightUtcMs, day.nextMidnightUtcMs);
+    }
     fillGaps(temps);
+    midnightUtcMs.push(from);
+    nextMidnightUtcMs.push(to);
     return temps;
   });
-  return { startDay: start, nDays, realDay, covered, dayTempK };
+  return { startDay: start, nDays, realDay, covered, flown, midnightUtcMs, nextMidnightUtcMs, dayTempK };
 }
 
 /** The profile context of each group of a base (precharge line, V0, nominal amount, atmosphere). */
@@ -140,9 +160,15 @@ export function groupContexts(sim: Simulator, base: BaseSamples): ProfileContext
   );
 }
 
+/** The distinct contexts of a list (groups of one profile and option share one context). */
+export function distinctContexts(contexts: readonly ProfileContext[]): ProfileContext[] {
+  return [...new Set(contexts)];
+}
+
 /**
  * The lowest precharge target any accumulator at the base is raised to at tempK: the lowest of its
  * profiles' precharge lines there, Pa absolute (a cylinder is spent below it plus the differential).
+ * Its cost grows with the list: give it `distinctContexts` of the groups' contexts.
  */
 export function lowestTargetAbsPa(contexts: ProfileContext[], tempK: number): number {
   let low = Number.POSITIVE_INFINITY;
@@ -178,9 +204,16 @@ export function servicingEvents(
   return events;
 }
 
-/** Midday of a day (UTC ms): when unscheduled work and other uses draw their gas within the day. */
-const middayUtcMs = (day: { midnightUtcMs: number; nextMidnightUtcMs: number }) =>
-  (day.midnightUtcMs + day.nextMidnightUtcMs) / 2;
+/**
+ * Midday of real day `d` on usable year `yi` (UTC ms): when unscheduled work and other uses draw their
+ * gas within the day.
+ */
+const middayUtcMs = (cal: BaseCalendar, yi: number, d: number) =>
+  (cal.midnightUtcMs[yi]![d]! + cal.nextMidnightUtcMs[yi]![d]!) / 2;
+
+/** Days of group `gi`'s window on usable year `yi`: all of them where the window is usable, else none. */
+const windowLength = (base: BaseSamples, yi: number, gi: number) =>
+  base.usable[yi]?.[gi] ? base.groups[gi]!.realDays.length : 0;
 
 /**
  * Other uses of every stay of a base on its usable year `yi`: the plan's amount on each flown day, or
@@ -196,25 +229,26 @@ export function otherUseEvents(
   const use = plan.nitrogen.otherUse;
   if (use === undefined || use.amount === 0) return [];
   const amountMol = use.amount / N2_MOLAR_MASS_KG_MOL;
-  const floor = (tempK: number) => lowestTargetAbsPa(contexts, tempK) + plan.nitrogen.transferDifferential;
+  const targets = distinctContexts(contexts);
+  const floor = (tempK: number) => lowestTargetAbsPa(targets, tempK) + plan.nitrogen.transferDifferential;
   const events: DrawEvent[] = [];
   for (const [si, gi] of base.groupOfStay.entries()) {
-    const days = base.days.get(yi, gi);
-    days.forEach((day, di) => {
-      const share = use.per === "week" ? (di % 7 === 0 ? Math.min(7, days.length - di) / 7 : 0) : +day.flown;
-      if (share === 0) return;
+    const n = windowLength(base, yi, gi);
+    for (let di = 0; di < n; di++) {
       const realDay = cal.realDay[gi]![di]!;
+      const share = use.per === "week" ? (di % 7 === 0 ? Math.min(7, n - di) / 7 : 0) : cal.flown[realDay]!;
+      if (share === 0) continue;
       const tempK = cal.dayTempK[yi]![realDay]!;
       events.push({
         cause: "otherUse",
         realDay,
-        utcMs: middayUtcMs(day),
+        utcMs: middayUtcMs(cal, yi, realDay),
         stay: si,
         tempK,
         amountMol: amountMol * share,
         floorAbsPa: floor(tempK),
       });
-    });
+    }
   }
   return events;
 }
@@ -238,17 +272,16 @@ export function unscheduledEvents(
   const events: FillEvent[] = [];
   for (const [si, gi] of base.groupOfStay.entries()) {
     const stay = base.stays[si]!;
-    const days = base.days.get(yi, gi);
     const ctx = contexts[gi]!;
     const key = `${baseName}|${stay.aircraft}|${stay.arrive}|${base.years[yi]}|${draw}`;
-    for (const di of unscheduledRechargeDays(plan.seed, key, rate, days.length)) {
+    for (const di of unscheduledRechargeDays(plan.seed, key, rate, windowLength(base, yi, gi))) {
       const realDay = cal.realDay[gi]![di]!;
       const tempK = cal.dayTempK[yi]![realDay]!;
       const v0M3 = ctx.geometry.v0M3;
       events.push({
         cause: "unscheduled",
         realDay,
-        utcMs: middayUtcMs(days[di]!),
+        utcMs: middayUtcMs(cal, yi, realDay),
         stay: si,
         tempK,
         v0M3,

@@ -10,7 +10,7 @@ import { N2_MOLAR_MASS_KG_MOL } from "../physics/nitrogen.js";
 import { cylinderGas, type SupplySpec } from "../physics/supply.js";
 import { kToC, S_PER_DAY } from "../units/index.js";
 import type { ProfileContext } from "./context.js";
-import { type BaseCalendar, isoOfDay, lowestTargetAbsPa } from "./nitrogenDemand.js";
+import { type BaseCalendar, distinctContexts, isoOfDay, lowestTargetAbsPa } from "./nitrogenDemand.js";
 import { forBase, type Plan } from "./planFile.js";
 import type { CylinderGasRow, NitrogenDay, NitrogenStock } from "./results.js";
 import type { BaseSamples } from "./samples.js";
@@ -50,13 +50,14 @@ export function usableGasRows(
 ): CylinderGasRow[] {
   const site = siteTemperatures(cal);
   if (site === null || contexts.length === 0) return [];
+  const targets = distinctContexts(contexts);
   const at: [CylinderGasRow["at"], number][] = [
     ["fill", spec.fillTempK],
     ["mean", site.meanK],
     ["coldest", site.coldestK],
   ];
   return at.map(([label, tempK]) => {
-    const g = cylinderGas(model, spec, lowestTargetAbsPa(contexts, tempK), tempK);
+    const g = cylinderGas(model, spec, lowestTargetAbsPa(targets, tempK), tempK);
     const kg = (mol: number) => mol * N2_MOLAR_MASS_KG_MOL;
     return {
       at: label,
@@ -146,7 +147,8 @@ export function stockAndTimeline(
   };
   const site = siteTemperatures(cal);
   if (drawnKgByDay.length === 0 || site === null) return { stock, timeline: [] };
-  if (cylinders !== null) stock.usableKgAtMean = cylinders * usableKg(model, spec, contexts, site.meanK);
+  const targets = distinctContexts(contexts);
+  if (cylinders !== null) stock.usableKgAtMean = cylinders * usableKg(model, spec, targets, site.meanK);
   const { cumulative, since } = runningSums(drawnKgByDay, topUpDays(cal.nDays, everyDays));
   const drawn = dailyQuantiles(cumulative, cal.nDays);
   const sinceTopUp = dailyQuantiles(since, cal.nDays);
@@ -155,7 +157,7 @@ export function stockAndTimeline(
     let sum = 0;
     for (const temps of cal.dayTempK) sum += temps[d]!;
     const tempK = sum / cal.dayTempK.length;
-    const stockUsableKg = cylinders === null ? null : cylinders * usableKg(model, spec, contexts, tempK);
+    const stockUsableKg = cylinders === null ? null : cylinders * usableKg(model, spec, targets, tempK);
     const date = isoOfDay(cal.startDay, d);
     if (stockUsableKg !== null && stock.stockOutP90 === null && sinceTopUp.p90[d]! > stockUsableKg) {
       stock.stockOutP90 = date;

@@ -11,8 +11,8 @@
  * equal windows share.
  */
 import type { HourlySeries, StationClimate } from "../climate/types.js";
-import { type CivilDate, civilIso, isoWeekday, MONTH_NAMES, stayDays } from "./calendar.js";
-import { buildDays, climateDay, type DayOptions, type DayPlan, HOUR_MS } from "./days.js";
+import { type CivilDate, civilIso, dayNumber, isoWeekday, MONTH_NAMES, stayDays } from "./calendar.js";
+import { buildDays, type ClimateDay, climateDay, type DayOptions, type DayPlan, HOUR_MS } from "./days.js";
 import type { PlanCore } from "./planFile.js";
 import { drawWeekdays, gasLossFactor } from "./random.js";
 import type { Stay } from "./schedule.js";
@@ -105,12 +105,10 @@ export type PreparedBase = Omit<BaseSamples, "days">;
 
 /**
  * The days of each group on each usable year of a base (empty where the window is not usable), the
- * same days `usableYears` counted: built when asked, the days of one climate year held at a time (the
- * simulation and the aggregation go year by year).
+ * same days `usableYears` counted: built anew each time they are asked for (each sample is simulated
+ * once, so nothing is held between samples).
  */
 export class BaseDays {
-  private yearIndex = -1;
-  private byGroup: (DayPlan[] | undefined)[] = [];
   constructor(
     private readonly base: Pick<BaseSamples, "years" | "usable" | "groups" | "dayOptions" | "refYear">,
     /** Local month (1–12) after whose last day each group's days are cut; null: not cut. */
@@ -126,18 +124,30 @@ export class BaseDays {
   get(yi: number, gi: number): DayPlan[] {
     const b = this.base;
     if (!b.usable[yi]?.[gi]) return [];
-    if (yi !== this.yearIndex) {
-      this.yearIndex = yi;
-      this.byGroup = [];
-    }
-    let days = this.byGroup[gi];
-    if (days === undefined) {
-      days = buildDays(b.groups[gi]!.realDays, b.years[yi]!, b.dayOptions, b.refYear);
-      if (this.untilMonth !== null) days = days.slice(0, lastDayOf(days, this.untilMonth) + 1);
-      this.byGroup[gi] = days;
-    }
-    return days;
+    const days = buildDays(b.groups[gi]!.realDays, b.years[yi]!, b.dayOptions, b.refYear);
+    return this.untilMonth === null ? days : days.slice(0, lastDayOf(days, this.untilMonth) + 1);
   }
+}
+
+/**
+ * The climate day of each real day that a window usable on year `yi` covers, keyed by the real day's
+ * number (`dayNumber`), each real day once however many windows cover it, in order of first window:
+ * every stay at a base maps real dates onto a climate year alike, so this is all that counts a year's
+ * window days or bounds them, without a `DayPlan` per group and day.
+ */
+export function usableClimateDays(
+  base: Pick<BaseSamples, "years" | "usable" | "groups" | "dayOptions" | "refYear">,
+  yi: number,
+): Map<number, ClimateDay> {
+  const out = new Map<number, ClimateDay>();
+  base.groups.forEach((g, gi) => {
+    if (!base.usable[yi]?.[gi]) return;
+    for (const real of g.realDays) {
+      const n = dayNumber(real);
+      if (!out.has(n)) out.set(n, climateDay(real, base.refYear, base.years[yi]!, base.dayOptions.timeZone));
+    }
+  });
+  return out;
 }
 
 /** Index of the last day of local month `month` in `days`, −1 without one. */

@@ -3,7 +3,7 @@
  * on each year (definitions of docs/methods.md, "Simulation"; counts follow from the inputs built here).
  */
 import { describe, expect, it } from "vitest";
-import { gasLossDraws, prepareSamples, withDays } from "../../src/plan/samples.js";
+import { gasLossDraws, prepareSamples, usableClimateDays, withDays } from "../../src/plan/samples.js";
 import { fixturePlan, stayAt, syntheticClimate, type Tree } from "./helpers.js";
 
 const ALL_DAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
@@ -58,7 +58,7 @@ describe("groups of identical stays", () => {
 });
 
 describe("usable climate years, window by window (docs/methods.md §4)", () => {
-  it("holds no days once prepared: a base's days are built when asked, one climate year at a time", () => {
+  it("holds no days once prepared: a base's days are built anew each time they are asked for", () => {
     const plan = twoProfiles(0);
     const stays = [stay("A1", "2027-01-05", "2027-01-10"), stay("A2", "2027-02-01", "2027-02-03")];
     const [prepared] = prepareSamples(plan, stays, climate, [1, 2, 3, 4, 5, 6, 7], []);
@@ -66,11 +66,57 @@ describe("usable climate years, window by window (docs/methods.md §4)", () => {
     expect("days" in prepared!).toBe(false);
     const { days } = withDays(prepared!);
     const first = days.get(0, 0);
-    expect(days.get(0, 0)).toBe(first); // kept while the year is in use
-    days.get(1, 0);
     const again = days.get(0, 0);
-    expect(again).not.toBe(first); // built again: only one year is held
+    expect(again).not.toBe(first); // nothing is held between samples
     expect(again).toEqual(first);
+    expect(first.map((d) => d.climateIso)).toEqual([
+      "2014-01-05",
+      "2014-01-06",
+      "2014-01-07",
+      "2014-01-08",
+      "2014-01-09",
+    ]);
+  });
+
+  it("bounds each real day of the windows usable on a year once, as the days of the groups do", () => {
+    const plan = twoProfiles(0);
+    const stays = [
+      stay("A1", "2027-01-05", "2027-01-10"),
+      stay("A3", "2027-01-07", "2027-01-12"), // overlaps A1 on 7–9 January: those days once
+      stay("A2", "2027-02-01", "2027-02-03"),
+    ];
+    const [prepared] = prepareSamples(plan, stays, climate, [1, 2, 3, 4, 5, 6, 7], []);
+    const base = withDays(prepared!);
+    const onYear = (yi: number) => [...usableClimateDays(base, yi).values()];
+    // 2014 (index 0): 5–11 January and 1–2 February; UTC, so each day runs midnight to midnight.
+    const days2014 = onYear(0);
+    expect(days2014.map((d) => `${d.date.month}-${d.date.day}`)).toEqual([
+      "1-5",
+      "1-6",
+      "1-7",
+      "1-8",
+      "1-9",
+      "1-10",
+      "1-11",
+      "2-1",
+      "2-2",
+    ]);
+    expect(days2014[0]!.midnightUtcMs).toBe(Date.UTC(2014, 0, 5));
+    expect(days2014[0]!.nextMidnightUtcMs).toBe(Date.UTC(2014, 0, 6));
+    // 2016 (index 2): the January windows are not usable (no January data), February's is.
+    expect(onYear(2).map((d) => `${d.date.year}-${d.date.month}-${d.date.day}`)).toEqual([
+      "2016-2-1",
+      "2016-2-2",
+    ]);
+    // The same bounds as the days built for each group.
+    for (let yi = 0; yi < base.years.length; yi++) {
+      const bounds = new Map([...usableClimateDays(base, yi).values()].map((d) => [d.midnightUtcMs, d]));
+      for (let gi = 0; gi < base.groups.length; gi++) {
+        for (const d of base.days.get(yi, gi)) {
+          expect(bounds.get(d.midnightUtcMs)?.nextMidnightUtcMs).toBe(d.nextMidnightUtcMs);
+        }
+      }
+    }
   });
 
   it("skips a year only for the window that lacks data, says which window and the share found", () => {
