@@ -3,10 +3,10 @@
  * writes `out/<plan name>/` (results.json, one CSV per table, report.html), made visible in one step
  * only after every file is written (see outputFolder.ts).
  */
-import { mkdir, writeFile } from "node:fs/promises";
+import { mkdir, open, writeFile } from "node:fs/promises";
 import { dirname, join, resolve } from "node:path";
 import { inputError } from "../errors.js";
-import { resultsJson, resultTables, toCsv } from "../output/tables.js";
+import { resultsJson, resultsJsonPieces, resultTables, toCsv } from "../output/tables.js";
 import { runPlan } from "../plan/engine.js";
 import { loadPlan, type Plan } from "../plan/planFile.js";
 import type { Results } from "../plan/results.js";
@@ -30,6 +30,13 @@ export interface PlanCliOptions {
   pdf?: boolean;
   whatIf?: boolean;
 }
+
+/**
+ * Schedules of up to this many stays start the chart workers before the simulation (the demo's wall
+ * time gains their loading); larger ones after it, so that the workers' memory (about 35 MiB on a
+ * 2-core machine) does not add to the simulation's peak.
+ */
+export const EARLY_CHART_WORKERS_MAX_STAYS = 1000;
 
 const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
@@ -98,8 +105,6 @@ export interface PlanRun {
 
 /** Runs a plan file end to end; returns the output folder and the results. */
 export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Promise<PlanRun> {
-  // The chart workers load the chart library while the plan is read and simulated.
-  startChartWorkers();
   const plan: Plan = await loadPlan(planFile);
   const scheduleFile =
     opts.schedule !== undefined
@@ -120,6 +125,10 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
     plan.bases.map((b) => b.name),
     plan.profiles.map((p) => p.name),
   );
+  // The chart workers load the chart library while the climate is read and the plan simulated; the
+  // simulation of a large schedule is long and needs the memory more, so there they start after it.
+  const earlyCharts = stays.length <= EARLY_CHART_WORKERS_MAX_STAYS;
+  if (earlyCharts) startChartWorkers();
   const bars = await loadBars();
   const files = progressBar(bars, "climate files");
   const climateWarnings: string[] = [];
@@ -135,6 +144,7 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
   noteRunStat("simulationS", stats.simulationS);
   noteRunStat("accumulatorHours", stats.accumulatorHours);
   sims.stop();
+  if (!earlyCharts) startChartWorkers();
   const variants = progressBar(bars, "what-if runs");
   const names = whatIfNames(plan, opts.whatIf === true);
   const results = await withWhatIf(plan, stays, climate, plain, names, { onProgress: variants.update });
@@ -143,21 +153,42 @@ export async function runPlanCommand(planFile: string, opts: PlanCliOptions): Pr
   const reported: Results = { ...results, files: ["results.json", ...tables.map((t) => `${t.name}.csv`)] };
   let pdf: PlanRun["pdf"] = null;
   const folder = await writeOutputFolder(resolve(opts.out), plan.name, new Map(), {
-    // Every file is written inside the new folder before it is made visible: results.json, each CSV
-    // and each page of the report made, written and dropped in turn (memory holds one of them at a
-    // time besides the results), then the PDF.
+    // Every file is written inside the new folder before it is made visible: results.json in pieces,
+    // then each CSV and each page of the report made, written and dropped in turn (memory holds one
+    // of them at a time besides the results), then the PDF.
     beforeSwap: async (dir: string) => {
       const write = async (name: string, text: string) => {
         await mkdir(dirname(join(dir, name)), { recursive: true });
         await writeFile(join(dir, name), text);
       };
-      await write("results.json", resultsJson(results));
+      await writeTextPieces(join(dir, "results.json"), resultsJsonPieces(results));
       for (const t of tables) await write(`${t.name}.csv`, toCsv(t));
       await writeReport(reported, write);
       if (opts.pdf) pdf = await writePdf(join(dir, "report.html"), join(dir, "report.pdf"));
     },
   });
   return { folder, results, climateWarnings, pdf: pdfNoted(pdf, results, folder) };
+}
+
+/** Writes a text given in pieces to a file, about a mebibyte at a time (never the whole text in memory). */
+export async function writeTextPieces(file: string, pieces: Iterable<string>): Promise<void> {
+  const handle = await open(file, "w");
+  try {
+    let pending: string[] = [];
+    let length = 0;
+    for (const piece of pieces) {
+      pending.push(piece);
+      length += piece.length;
+      if (length >= 1 << 20) {
+        await handle.write(pending.join(""));
+        pending = [];
+        length = 0;
+      }
+    }
+    await handle.write(pending.join(""));
+  } finally {
+    await handle.close();
+  }
 }
 
 /** The PDF step's note; of a split report it also says that the PDF holds the overview alone. */

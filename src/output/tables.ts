@@ -21,11 +21,13 @@ import type {
   StationResult,
   StayResult,
 } from "../plan/results.js";
-import { formatMachine, shownText, unitSystem } from "../units/index.js";
+import { shownText, unitSystem } from "../units/index.js";
 import type { Cell, Table } from "./csv.js";
 import { designTables } from "./designTables.js";
+import { machineJson, machineJsonPieces } from "./json.js";
 
 export { type Cell, type Table, toCsv } from "./csv.js";
+export { machineJson } from "./json.js";
 
 /** A column: its CSV header (unit in the name) and how to read its cell from a row's source. */
 export type Column<T> = [header: string, value: (row: T) => Cell];
@@ -509,12 +511,7 @@ export function resultsJson(r: Results): string {
   return machineJson(r);
 }
 
-/** JSON text for programs: key order as built, numbers with at most 6 decimals (`formatMachine`), two-space indent. */
-export function machineJson(r: object): string {
-  return `${JSON.stringify(
-    r,
-    (_k, v) =>
-      typeof v === "number" && !Number.isInteger(v) && Number.isFinite(v) ? Number(formatMachine(v)) : v,
-    2,
-  )}\n`;
+/** The results.json text in pieces (`machineJsonPieces`): what a large plan's file is written from. */
+export function resultsJsonPieces(r: Results): Generator<string> {
+  return machineJsonPieces(r);
 }

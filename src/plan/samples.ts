@@ -335,13 +335,21 @@ function usableYears(
     : dataYears(climate.series);
   const span = Math.max(0, ...groups.map((g) => g.realDays[g.realDays.length - 1]!.year - refYear));
   for (let y = range?.[0] ?? 1; range !== null && y + span <= range[1]!; y++) {
-    // One group's days at a time, and only their bounds: every group's whole days of a year together
-    // would be rows × days objects.
+    // Only the bounds of the days, each real day's once per year (groups share them): every group's
+    // whole days of a year would be rows × days objects.
+    const bounds = new Map<number, ClimateDay & { month: number }>();
+    const boundsOf = (real: CivilDate) => {
+      const n = dayNumber(real);
+      let day = bounds.get(n);
+      if (day === undefined) {
+        const c = climateDay(real, refYear, y, dayOptions.timeZone);
+        day = { ...c, month: c.date.month };
+        bounds.set(n, day);
+      }
+      return day;
+    };
     const ok = groups.map((g, gi) => {
-      const d = g.realDays.map((real) => {
-        const day = climateDay(real, refYear, y, dayOptions.timeZone);
-        return { ...day, month: day.date.month };
-      });
+      const d = g.realDays.map(boundsOf);
       const hours = hoursByMonth(climate.series, d);
       for (let m = 1; m <= 12; m++) {
         if (hours.total[m] === 0) continue;
