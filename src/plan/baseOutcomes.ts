@@ -200,34 +200,57 @@ export class BaseOutcomes {
 /** Elements of one chunk of a `Growing` column. */
 const CHUNK = 1 << 16;
 
+type ColumnArray = Uint8Array | Uint16Array | Int32Array | Float64Array;
+
+/** A typed-array type: one of its own of a length, or a view on a buffer. */
+interface ColumnKind<A extends ColumnArray> {
+  readonly BYTES_PER_ELEMENT: number;
+  new (length: number): A;
+  new (buffer: ArrayBuffer, byteOffset: number, length: number): A;
+}
+
+/** Where the columns of a base are joined: one buffer, filled from `offset` on. */
+interface Block {
+  buffer: ArrayBuffer;
+  offset: number;
+}
+
 /**
- * A column of numbers gathered in chunks of `CHUNK` elements, then joined into one array of its
- * length: nothing is copied while it grows, and joining holds the chunks of one column beside its
- * array (growth by doubling would leave every smaller array behind as garbage, and a copy at the end).
+ * A column of numbers gathered in chunks of `CHUNK` elements, then joined as a view on the base's one
+ * block: nothing is copied while it grows (growth by doubling would leave every smaller array behind
+ * as garbage, and a copy at the end), and the base's columns are one allocation, which the C library
+ * gives back to the system whole when it is freed (many column-sized blocks, allocated and freed base
+ * after base, stay with the process).
  */
-class Growing<A extends Uint8Array | Uint16Array | Int32Array | Float64Array> {
+class Growing<A extends ColumnArray> {
   private full: A[] = [];
   private chunk: A;
   private used = 0;
   length = 0;
 
-  constructor(private readonly make: (n: number) => A) {
-    this.chunk = make(CHUNK);
+  constructor(private readonly kind: ColumnKind<A>) {
+    this.chunk = new kind(CHUNK);
   }
 
   push(v: number): void {
     if (this.used === CHUNK) {
       this.full.push(this.chunk);
-      this.chunk = this.make(CHUNK);
+      this.chunk = new this.kind(CHUNK);
       this.used = 0;
     }
     this.chunk[this.used++] = v;
     this.length++;
   }
 
-  /** The column as one array; the builder's chunks are dropped. */
-  done(): A {
-    const out = this.make(this.length);
+  /** Bytes the column takes in a block, rounded up to 8 so that every column after it is aligned. */
+  blockBytes(): number {
+    return Math.ceil((this.length * this.kind.BYTES_PER_ELEMENT) / 8) * 8;
+  }
+
+  /** The column as a view on `block` at its offset (which moves past it); the chunks are dropped. */
+  done(block: Block): A {
+    const out = new this.kind(block.buffer, block.offset, this.length);
+    block.offset += this.blockBytes();
     let at = 0;
     for (const c of this.full) {
       out.set(c, at);
@@ -235,14 +258,12 @@ class Growing<A extends Uint8Array | Uint16Array | Int32Array | Float64Array> {
     }
     out.set(this.chunk.subarray(0, this.used), at);
     this.full = [];
-    this.chunk = this.make(0);
+    this.chunk = new this.kind(0);
     this.used = 0;
     return out;
   }
 }
 
-const u8 = (n: number) => new Uint8Array(n);
-const u16 = (n: number) => new Uint16Array(n);
 const i32 = (n: number) => new Int32Array(n);
 const f64 = (n: number) => new Float64Array(n);
 const NONE: readonly never[] = Object.freeze([]);
@@ -268,29 +289,34 @@ export class OutcomesBuilder {
     const at = () => i32(this.slots + 1);
     this.pf = {
       at: at(),
-      month: new Growing(u8),
-      flags: new Growing(u8),
-      gas: new Growing(f64),
-      reading: new Growing(f64),
+      month: new Growing(Uint8Array),
+      flags: new Growing(Uint8Array),
+      gas: new Growing(Float64Array),
+      reading: new Growing(Float64Array),
     };
     this.st = {
       at: at(),
-      month: new Growing(u8),
-      flags: new Growing(u8),
-      one: new Growing(f64),
-      two: new Growing(f64),
-      required: new Growing(f64),
+      month: new Growing(Uint8Array),
+      flags: new Growing(Uint8Array),
+      one: new Growing(Float64Array),
+      two: new Growing(Float64Array),
+      required: new Growing(Float64Array),
     };
     this.dr = {
       at: at(),
-      month: new Growing(u8),
-      day: new Growing(i32),
-      tempC: new Growing(f64),
-      gasKPa: new Growing(f64),
-      reading: new Growing(f64),
-      recharge: new Growing(f64),
+      month: new Growing(Uint8Array),
+      day: new Growing(Int32Array),
+      tempC: new Growing(Float64Array),
+      gasKPa: new Growing(Float64Array),
+      reading: new Growing(Float64Array),
+      recharge: new Growing(Float64Array),
     };
-    this.hr = { at: at(), cell: new Growing(u16), readings: new Growing(i32), outOfBand: new Growing(i32) };
+    this.hr = {
+      at: at(),
+      cell: new Growing(Uint16Array),
+      readings: new Growing(Int32Array),
+      outOfBand: new Growing(Int32Array),
+    };
     this.figures = {
       coldestAmbientC: f64(this.slots).fill(Number.POSITIVE_INFINITY),
       coldestAmbientByMonthC: f64(this.slots * MONTH_SLOTS).fill(Number.POSITIVE_INFINITY),
@@ -382,39 +408,46 @@ export class OutcomesBuilder {
   done(): BaseOutcomes {
     if (this.next !== this.slots) throw new Error(`${this.slots - this.next} samples not added`);
     const { pf, st, dr, hr } = this;
+    const columns = [
+      [pf.month, pf.flags, pf.gas, pf.reading],
+      [st.month, st.flags, st.one, st.two, st.required],
+      [dr.month, dr.day, dr.tempC, dr.gasKPa, dr.reading, dr.recharge],
+      [hr.cell, hr.readings, hr.outOfBand],
+    ].flat();
+    const b: Block = { buffer: new ArrayBuffer(columns.reduce((n, c) => n + c.blockBytes(), 0)), offset: 0 };
     return new BaseOutcomes(
       this.groups,
       Array.from({ length: this.years }, (_y, yi) => yi),
       {
         preflights: {
           at: pf.at,
-          month: pf.month.done(),
-          flags: pf.flags.done(),
-          gasKPaGauge: pf.gas.done(),
-          readingPct: pf.reading.done(),
+          month: pf.month.done(b),
+          flags: pf.flags.done(b),
+          gasKPaGauge: pf.gas.done(b),
+          readingPct: pf.reading.done(b),
         },
         starts: {
           at: st.at,
-          month: st.month.done(),
-          flags: st.flags.done(),
-          energyOneJ: st.one.done(),
-          energyTwoJ: st.two.done(),
-          requiredJ: st.required.done(),
+          month: st.month.done(b),
+          flags: st.flags.done(b),
+          energyOneJ: st.one.done(b),
+          energyTwoJ: st.two.done(b),
+          requiredJ: st.required.done(b),
         },
         drops: {
           at: dr.at,
-          month: dr.month.done(),
-          day: dr.day.done(),
-          tempC: dr.tempC.done(),
-          gasKPa: dr.gasKPa.done(),
-          readingPct: dr.reading.done(),
-          rechargeUtcMs: dr.recharge.done(),
+          month: dr.month.done(b),
+          day: dr.day.done(b),
+          tempC: dr.tempC.done(b),
+          gasKPa: dr.gasKPa.done(b),
+          readingPct: dr.reading.done(b),
+          rechargeUtcMs: dr.recharge.done(b),
         },
         hourly: {
           at: hr.at,
-          cell: hr.cell.done(),
-          readings: hr.readings.done(),
-          outOfBand: hr.outOfBand.done(),
+          cell: hr.cell.done(b),
+          readings: hr.readings.done(b),
+          outOfBand: hr.outOfBand.done(b),
         },
         figures: this.figures,
       },

@@ -120,4 +120,16 @@ describe("a base's outcome columns beyond one gathering chunk", () => {
     expect(p.month[70_000]).toBe(2);
     expect(o.starts.energyOneJ).toHaveLength(150_000);
   });
+
+  it("holds every column of the base in one buffer, each aligned and apart from the others", () => {
+    const columns = [o.preflights.month, o.preflights.gasKPaGauge, o.starts.flags, o.starts.requiredJ];
+    const buffer = columns[0]!.buffer;
+    for (const c of columns) {
+      expect(c.buffer).toBe(buffer);
+      expect(c.byteOffset % 8).toBe(0);
+    }
+    // Written in turn, no column overwrites another: the last start's requirement is still 2000 J.
+    expect(o.starts.requiredJ[149_999]).toBe(2000);
+    expect(o.preflights.month[149_999]).toBe(2);
+  });
 });
