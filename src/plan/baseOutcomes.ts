@@ -408,12 +408,9 @@ export class OutcomesBuilder {
   done(): BaseOutcomes {
     if (this.next !== this.slots) throw new Error(`${this.slots - this.next} samples not added`);
     const { pf, st, dr, hr } = this;
-    const columns = [
-      [pf.month, pf.flags, pf.gas, pf.reading],
-      [st.month, st.flags, st.one, st.two, st.required],
-      [dr.month, dr.day, dr.tempC, dr.gasKPa, dr.reading, dr.recharge],
-      [hr.cell, hr.readings, hr.outOfBand],
-    ].flat();
+    const columns = [pf, st, dr, hr].flatMap((kind) =>
+      Object.values(kind).filter((c): c is Growing<ColumnArray> => c instanceof Growing),
+    );
     const b: Block = { buffer: new ArrayBuffer(columns.reduce((n, c) => n + c.blockBytes(), 0)), offset: 0 };
     return new BaseOutcomes(
       this.groups,

@@ -139,15 +139,33 @@ export function usableClimateDays(
   base: Pick<BaseSamples, "years" | "usable" | "groups" | "dayOptions" | "refYear">,
   yi: number,
 ): Map<number, ClimateDay> {
-  const out = new Map<number, ClimateDay>();
+  const onYear = climateDaysOn(base.refYear, base.years[yi]!, base.dayOptions.timeZone);
   base.groups.forEach((g, gi) => {
-    if (!base.usable[yi]?.[gi]) return;
-    for (const real of g.realDays) {
-      const n = dayNumber(real);
-      if (!out.has(n)) out.set(n, climateDay(real, base.refYear, base.years[yi]!, base.dayOptions.timeZone));
-    }
+    if (base.usable[yi]?.[gi]) g.realDays.forEach(onYear.of);
   });
-  return out;
+  return onYear.found;
+}
+
+/**
+ * The climate days of real days on climate year `climateYear`, each real day's found once and shared
+ * by every window that covers it (`found`, keyed by `dayNumber`, in the order first asked for).
+ */
+function climateDaysOn(
+  referenceYear: number,
+  climateYear: number,
+  timeZone: string,
+): { of: (real: CivilDate) => ClimateDay; found: Map<number, ClimateDay> } {
+  const found = new Map<number, ClimateDay>();
+  const of = (real: CivilDate): ClimateDay => {
+    const n = dayNumber(real);
+    let day = found.get(n);
+    if (day === undefined) {
+      day = climateDay(real, referenceYear, climateYear, timeZone);
+      found.set(n, day);
+    }
+    return day;
+  };
+  return { of, found };
 }
 
 /** Index of the last day of local month `month` in `days`, −1 without one. */
@@ -249,16 +267,16 @@ function groupStays(
 /** Grid hours of the days and those with a value, by local month (index 1–12). */
 function hoursByMonth(
   series: HourlySeries,
-  days: readonly { month: number; midnightUtcMs: number; nextMidnightUtcMs: number }[],
+  days: readonly ClimateDay[],
 ): { total: number[]; present: number[] } {
   const total = new Array<number>(13).fill(0);
   const present = new Array<number>(13).fill(0);
   for (const d of days) {
     const first = Math.ceil((d.midnightUtcMs - series.startUtcMs) / HOUR_MS);
     const last = Math.ceil((d.nextMidnightUtcMs - series.startUtcMs) / HOUR_MS);
-    total[d.month]! += last - first;
+    total[d.date.month]! += last - first;
     for (let i = Math.max(0, first); i < Math.min(series.tempC.length, last); i++) {
-      if (!Number.isNaN(series.tempC[i]!)) present[d.month]!++;
+      if (!Number.isNaN(series.tempC[i]!)) present[d.date.month]!++;
     }
   }
   return { total, present };
@@ -337,25 +355,15 @@ function usableYears(
   for (let y = range?.[0] ?? 1; range !== null && y + span <= range[1]!; y++) {
     // Only the bounds of the days, each real day's once per year (groups share them): every group's
     // whole days of a year would be rows × days objects.
-    const bounds = new Map<number, ClimateDay & { month: number }>();
-    const boundsOf = (real: CivilDate) => {
-      const n = dayNumber(real);
-      let day = bounds.get(n);
-      if (day === undefined) {
-        const c = climateDay(real, refYear, y, dayOptions.timeZone);
-        day = { ...c, month: c.date.month };
-        bounds.set(n, day);
-      }
-      return day;
-    };
+    const onYear = climateDaysOn(refYear, y, dayOptions.timeZone);
     const ok = groups.map((g, gi) => {
-      const d = g.realDays.map(boundsOf);
+      const d = g.realDays.map(onYear.of);
       const hours = hoursByMonth(climate.series, d);
       for (let m = 1; m <= 12; m++) {
         if (hours.total[m] === 0) continue;
         const share = hours.present[m]! / hours.total[m]!;
         cover.bestShare[gi]![m] = Math.max(cover.bestShare[gi]![m]!, share);
-        for (const day of d) if (day.month === m) cover.calendarYears[gi]![m]!.add(day.date.year);
+        for (const day of d) if (day.date.month === m) cover.calendarYears[gi]![m]!.add(day.date.year);
       }
       const total = sum(hours.total);
       const share = total === 0 ? 0 : sum(hours.present) / total;
